@@ -1,0 +1,258 @@
+/**
+ * The engine's data contract: what a stage is (`StageInput`, all SI, defaults applied,
+ * op-amp resolved) and what the engine returns (`StageResult`).
+ *
+ * `StageResult`'s fields `id … requirements` are the `--json` contract of DESIGN §6; the
+ * report-only fields (`curves`, `swing`, `bias`) are stripped by `src/report/json.ts`.
+ * Notes (`notes` in the JSON) come from `src/rules`, not from the engine.
+ */
+
+/** Stage topologies (DESIGN §3.3). */
+export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance'] as const
+export type Topology = (typeof TOPOLOGIES)[number]
+export const isTopology = (s: string): s is Topology => (TOPOLOGIES as readonly string[]).includes(s)
+
+/** Input technologies of an op-amp (DESIGN §3.2). */
+export const INPUT_TYPES = ['bipolar', 'bipolar-cancelled', 'jfet', 'cmos', 'zero-drift'] as const
+export type InputType = (typeof INPUT_TYPES)[number]
+export const isInputType = (s: string): s is InputType => (INPUT_TYPES as readonly string[]).includes(s)
+
+/** Requirement keys of a stage's `require:` map (DESIGN §3.3). */
+export const REQUIREMENT_KEYS = {
+  'output-error': {unit: 'V', sense: 'max'},
+  'output-error-rss': {unit: 'V', sense: 'max'},
+  'input-error': {unit: 'V', sense: 'max'},
+  'noise-rms': {unit: 'V', sense: 'max'},
+  'noise-pp': {unit: 'V', sense: 'max'},
+  'phase-margin': {unit: 'deg', sense: 'min'},
+  bandwidth: {unit: 'Hz', sense: 'min'}
+} as const
+export type RequirementKey = keyof typeof REQUIREMENT_KEYS
+
+/** A resistor: value with tolerance and temperature coefficient. */
+export interface Resistor {
+  /** Resistance, Ω (> 0). */
+  value: number
+  /** Tolerance as a fraction (0.001 for 0.1 %); 0 when not given. */
+  tolerance: number
+  /** Temperature coefficient, 1/K (25e-6 for 25 ppm/K); 0 when not given. */
+  tempco: number
+}
+
+/** An op-amp's datasheet values, SI. */
+export interface OpampParams {
+  /** Block id or archetype name. */
+  name: string
+  /** True when this is a built-in archetype (representative of its class, not a real part). */
+  archetype: boolean
+  inputType: InputType
+  /** Input offset voltage, max at 25 °C, V. */
+  vos: number
+  /** Offset drift, max, V/K. */
+  vosDrift: number
+  /** Input bias current, max magnitude at 25 °C, A (average of the two inputs). */
+  ib: number
+  /** Input offset current, max magnitude at 25 °C, A. */
+  ios: number
+  /** Max bias current over the stage's temperature range, A; null when not entered. */
+  ibMax: number | null
+  /** Max offset current over the temperature range, A; null when not entered. */
+  iosMax: number | null
+  /** Bias current doubling interval, K. Null when not entered (then 10 K for jfet/cmos; zero-drift uses the rule only when given). */
+  ibDoubling: number | null
+  /** White voltage noise density, V/√Hz. */
+  en: number
+  /** 1/f corner of en, Hz (0 = none). */
+  enCorner: number
+  /** White current noise density, A/√Hz. */
+  in: number
+  /** 1/f corner of in, Hz (0 = none). */
+  inCorner: number
+  /** Gain-bandwidth product, Hz (> 0). */
+  gbw: number
+  /** Open-loop DC gain, V/V (linear, converted from dB). */
+  aol: number
+  /** Phase margin as a unity follower, degrees, 0 < φ ≤ 90 (90 = no second pole). */
+  pmUnity: number
+  /** Common-mode rejection ratio, linear (V/V). */
+  cmrr: number
+  /** Power-supply rejection ratio, linear (V/V). */
+  psrr: number
+  /** Common-mode voltage at which vos is specified, V; null = supply midpoint. */
+  vcmRef: number | null
+  /** Differential input capacitance, F. */
+  cinDiff: number
+  /** Common-mode input capacitance, each input to ground, F. */
+  cinCm: number
+  /** Slew rate, V/s. */
+  slew: number
+  /** Output swing headroom to each rail, V. */
+  swingHeadroom: number
+}
+
+/** An inclusive range [low, high]. */
+export type Range = readonly [number, number]
+
+/** A stage, SI, defaults applied, op-amp resolved (DESIGN §3.3). */
+export interface StageInput {
+  id: string
+  title: string
+  topology: Topology
+  opamp: OpampParams
+  /** Feedback resistor; null for a follower without one (a wire). Required elsewhere. */
+  rf: Resistor | null
+  /** Gain resistor (noninverting: to ground; inverting: from the source). Null where not used. */
+  rg: Resistor | null
+  /** Source resistance; null when none (0 Ω). */
+  rs: Resistor | null
+  /** Bias-compensation resistor at the + input; null when none. */
+  rcomp: Resistor | null
+  /** Capacitor across rcomp, F (0 = none). */
+  ccomp: number
+  /** Capacitor across rf, F (0 = none). */
+  cf: number
+  /** Board capacitance from the − pin to ground, F. */
+  cstray: number
+  /** Transimpedance source shunt resistance, Ω; null = open. */
+  rshunt: number | null
+  /** Transimpedance source capacitance, F. */
+  csource: number
+  /** Transimpedance source DC current at the hot end, A. */
+  idark: number
+  /** Voltage on the + input of inverting and transimpedance stages, V. */
+  vref: number
+  /** Signal range at the stage input: V, or A for transimpedance. */
+  input: Range
+  /** Supply rails [negative, positive], V. */
+  supply: Range
+  /** Supply tolerance, fraction (default 0.05). */
+  supplyTolerance: number
+  /** Temperature range, °C (default 25 .. 25). */
+  temperature: Range
+  /** Noise band [fL, fH], Hz, fL > 0. */
+  band: Range
+  /** Noise temperature, °C (default 25). */
+  noiseTemperature: number
+  /** Requirement limits, SI (V, Hz, degrees). */
+  require: Partial<Record<RequirementKey, number>>
+}
+
+/** DC contributor keys (DESIGN §4.2). */
+export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'resistor-tolerance', 'resistor-tempco'] as const
+export type DcKey = (typeof DC_KEYS)[number]
+
+/** Noise contributor keys (DESIGN §4.3). */
+export const NOISE_KEYS = ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot'] as const
+export type NoiseKey = (typeof NOISE_KEYS)[number]
+
+export interface DcBudget {
+  /** ΔT = max(Tmax − 25, 25 − Tmin, 0), K. */
+  temperatureSpan: number
+  /** max|G · input| over the input range, V. */
+  fullScaleOutput: number
+  /** Every key that applies to the topology, zero or not; output-referred magnitude, V. */
+  contributors: {key: DcKey; output: number}[]
+  worstCaseOutput: number
+  rssOutput: number
+  worstCaseInput: number
+  rssInput: number
+}
+
+export interface NoiseBudget {
+  /** [fL, fH], Hz. */
+  band: [number, number]
+  /** Noise temperature, K. */
+  temperature: number
+  /** Output rms over the band, V. */
+  outputRms: number
+  /** 6.6 × rms, V. */
+  outputPeakToPeak: number
+  /** Output rms ÷ |G| at DC (V, or A for transimpedance). */
+  inputRms: number
+  contributors: {key: NoiseKey; outputRms: number}[]
+}
+
+export interface Stability {
+  /** Degrees; null when the loop gain never crosses 1. */
+  phaseMargin: number | null
+  /** Loop-gain crossover, Hz; null when none. */
+  crossover: number | null
+  /** Closed-loop −3 dB bandwidth, Hz; null when never reached in the analysed span. */
+  bandwidth: number | null
+  /** 20·lg(max|H|/|H(0)|), dB, ≥ 0. */
+  peaking: number
+  /** Transimpedance: smallest Cf (F) giving 60°; 0 if already; null if none ≤ 1 µF or not transimpedance. */
+  suggestedCf: number | null
+}
+
+export interface RequirementResult {
+  key: RequirementKey
+  /** SI limit. */
+  limit: number
+  /** SI value; null when it does not exist (e.g. no crossover). */
+  value: number | null
+  met: boolean
+}
+
+/** Frequency-domain curves for the report's charts (not part of the JSON contract). */
+export interface StageCurves {
+  /** Frequencies of the noise grid inside the band, Hz, ascending. */
+  noiseFrequency: number[]
+  /** Output noise density per contributor on `noiseFrequency`, V/√Hz. */
+  noiseDensity: Record<NoiseKey, number[]>
+  /** Total output noise density on `noiseFrequency`, V/√Hz. */
+  noiseTotal: number[]
+  /** Cumulative output rms from fL up to each frequency of `noiseFrequency`, V. */
+  cumulativeRms: number[]
+  /** Frequencies of the loop-gain / closed-loop grid, Hz, ascending. */
+  frequency: number[]
+  /** |T(f)|, V/V. */
+  loopGainMagnitude: number[]
+  /** ∠T(f), degrees, unwrapped from DC. */
+  loopGainPhase: number[]
+  /** |H(f)| signal gain (V/V, or Ω for transimpedance). */
+  closedLoopMagnitude: number[]
+}
+
+/** Output operating point and swing check (DESIGN §4.1). */
+export interface SwingCheck {
+  /** Output at the input range ends, [min, max], V. */
+  outputSpan: [number, number]
+  /** Allowed output [min, max] = supply less headroom, V. */
+  allowed: [number, number]
+  /** How far the span exceeds the allowed range (V, ≥ 0) at the low and high ends. */
+  excess: [number, number]
+  fits: boolean
+}
+
+/** Bias currents used by the DC budget, after the temperature rules of §4.2. */
+export interface BiasUsed {
+  ibMax: number
+  iosMax: number
+  /** How each was found. */
+  ibSource: 'ib-max' | 'doubling' | 'datasheet-25C'
+  iosSource: 'ios-max' | 'doubling' | 'datasheet-25C'
+  /** True when the range leaves 25 °C and no ib-max was entered for a bipolar/zero-drift part without ib-doubling. */
+  overTemperatureMissing: boolean
+}
+
+export interface StageResult {
+  id: string
+  topology: Topology
+  /** The op-amp block id or archetype name. */
+  opamp: string
+  /** Signed signal gain at DC: V/V, or V/A (Ω) for transimpedance. */
+  gain: number
+  /** DC noise gain, V/V. */
+  noiseGain: number
+  dc: DcBudget
+  noise: NoiseBudget
+  stability: Stability
+  requirements: RequirementResult[]
+  /** Report-only. */
+  curves: StageCurves
+  /** Report-only. */
+  swing: SwingCheck
+  /** Report-only. */
+  bias: BiasUsed
+}

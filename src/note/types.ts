@@ -1,0 +1,93 @@
+/**
+ * What `src/note` hands on: the document's metadata, the mdast tree with each `stage` and
+ * `opamp` fence replaced by a typed, positioned block node, and the blocks themselves.
+ * Diagnostics are not here: they are messages on the `VFile` (fatal = error).
+ */
+import type {Position} from 'unist'
+import type {OpampParams, StageInput} from '../engine/types.js'
+
+export const HAZARD_CONTEXTS = ['mains-connected', 'patient-connected', 'high-voltage', 'battery'] as const
+export type HazardContext = (typeof HAZARD_CONTEXTS)[number]
+
+export const DOCUMENT_STATUSES = ['draft', 'for-review', 'approved'] as const
+export type DocumentStatus = (typeof DOCUMENT_STATUSES)[number]
+
+export interface Reviewer {
+  /** Person's name; may be empty (a row to fill in by hand). */
+  name: string
+  /** Role at the review, e.g. "Reviewer" (default) or "Approver". */
+  role: string
+}
+
+/** Front matter (DESIGN §3), every key optional. */
+export interface DocumentMeta {
+  title: string | null
+  document: string | null
+  revision: string | null
+  /** As written (ISO date expected, e.g. 2026-11-30). */
+  date: string | null
+  author: string | null
+  reviewers: Reviewer[]
+  project: string | null
+  /** Default 'draft'. */
+  status: DocumentStatus
+  context: HazardContext[]
+  template: string | null
+}
+
+/** One `key: value` line of a block, as written, with its place in the Markdown file. */
+export interface BlockEntry {
+  key: string
+  /** The value text as written (for `require`, the sub-key is in `key` as `require.noise-rms`). */
+  raw: string
+  /** 1-based line and column of the key in the Markdown file. */
+  line: number
+  column: number
+}
+
+/** A value the note did not give, and what was used instead. */
+export interface DefaultedValue {
+  /** Key, e.g. `supply-tolerance` or `rf.tempco`. */
+  key: string
+  /** The value used, formatted for people, e.g. "5 %". */
+  value: string
+}
+
+export interface StageBlockNode {
+  type: 'stageBlock'
+  id: string
+  entries: BlockEntry[]
+  /** Null when the block had errors. */
+  input: StageInput | null
+  defaulted: DefaultedValue[]
+  position?: Position
+}
+
+export interface OpampBlockNode {
+  type: 'opampBlock'
+  id: string
+  entries: BlockEntry[]
+  /** Null when the block had errors. */
+  opamp: OpampParams | null
+  defaulted: DefaultedValue[]
+  position?: Position
+}
+
+export interface ParsedNote {
+  meta: DocumentMeta
+  /** The note as mdast, front matter removed, blocks replaced by the nodes above. */
+  tree: import('mdast').Root
+  stages: StageBlockNode[]
+  opamps: OpampBlockNode[]
+}
+
+declare module 'mdast' {
+  interface RootContentMap {
+    stageBlock: StageBlockNode
+    opampBlock: OpampBlockNode
+  }
+  interface BlockContentMap {
+    stageBlock: StageBlockNode
+    opampBlock: OpampBlockNode
+  }
+}

@@ -1,0 +1,81 @@
+/**
+ * The report tree that `src/report` builds and `src/render` draws: mdast for the prose and
+ * the generated tables, plus three node types of our own (figure, callout, caption) and
+ * the document furniture (cover verdicts, appendix, closing text).
+ */
+import type {BlockContent, Root} from 'mdast'
+import type {DocumentMeta} from '../note/types.js'
+import type {Severity} from '../rules/types.js'
+
+export type Verdict = 'met' | 'not-met' | 'not-evaluated'
+
+/** A chart, already rendered to SVG. */
+export interface FigureNode {
+  type: 'figure'
+  /** Figure number in the document, 1-based. */
+  number: number
+  caption: string
+  /** SVG text (fonts named as in `src/report/charts/fonts.ts`). */
+  svg: string
+  /** Natural size of the SVG, pt. */
+  width: number
+  height: number
+}
+
+/** A boxed note: a rule's practice/safety note, or a verdict line. Shown with a word and a shape. */
+export interface CalloutNode {
+  type: 'callout'
+  severity: Severity | 'met' | 'not-met' | 'not-evaluated'
+  /** The word printed in front, e.g. "CAUTION", "NOT MET". */
+  label: string
+  children: BlockContent[]
+}
+
+/** A caption kept with the table that follows it ("Table 3 — DC error budget"). */
+export interface CaptionNode {
+  type: 'caption'
+  text: string
+}
+
+/** An explicit page break. */
+export interface PageBreakNode {
+  type: 'pageBreak'
+}
+
+declare module 'mdast' {
+  interface RootContentMap {
+    figure: FigureNode
+    callout: CalloutNode
+    caption: CaptionNode
+    pageBreak: PageBreakNode
+  }
+  interface BlockContentMap {
+    figure: FigureNode
+    callout: CalloutNode
+    caption: CaptionNode
+    pageBreak: PageBreakNode
+  }
+}
+
+/** One row of the cover's verdict table. */
+export interface CoverVerdict {
+  stage: string
+  requirement: string
+  value: string
+  limit: string
+  verdict: Verdict
+}
+
+export interface ReportDocument {
+  meta: DocumentMeta
+  cover: {verdicts: CoverVerdict[]; overall: Verdict}
+  /** The note's prose in order, each block replaced by its section. */
+  body: Root
+  /** Method, assumptions, inputs. */
+  appendix: Root
+  /** Sign-off statement and closing statement (template fragments), ending the sign-off page. */
+  closing: Root
+  /** Hex SHA-256 of the note's bytes. */
+  sourceSha256: string
+  toolVersion: string
+}
