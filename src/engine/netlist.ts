@@ -1,0 +1,105 @@
+/**
+ * Small-signal netlists: what a topology file describes and what the nodal solver reads.
+ *
+ * A topology writes a `NetlistSpec` with named nodes; `buildNetlist` merges the nodes joined
+ * by wires (an absent or 0 Ω series resistor is a wire, exact rather than a tiny resistance),
+ * numbers the rest (ground = 0) and drops elements shorted by a merge. Capacitors of 0 F are
+ * dropped, except the one labelled `cf`, which stays (possibly 0 F) so that the Cf search of
+ * `suggested-cf.ts` can change it in place.
+ */
+import type {OpampPoles} from './opamp-model.js'
+
+/** Node names used by the topologies. */
+export const NODE_NAMES = ['gnd', 'src', 'x', 'p', 'm', 'o'] as const
+export type NodeName = (typeof NODE_NAMES)[number]
+
+/** Labels of the elements; resistor labels double as noise keys `r:<label>`. */
+export type ElementLabel = 'rf' | 'rg' | 'rs' | 'rcomp' | 'rshunt' | 'cf' | 'ccomp' | 'cin-cm+' | 'cin-cm-' | 'cin-diff' | 'cstray' | 'csource'
+
+/** A two-terminal element as a topology writes it. */
+export interface SpecElement {
+  label: ElementLabel
+  kind: 'r' | 'c'
+  a: NodeName
+  b: NodeName
+  /** Ω for `r` (0 = wire), F for `c`. */
+  value: number
+}
+
+/** A topology's small-signal circuit with named nodes. */
+export interface NetlistSpec {
+  elements: SpecElement[]
+  /** Node pairs joined by a wire. */
+  wires: [NodeName, NodeName][]
+  /** The signal source: a voltage at a node (to ground), or a current into a node. */
+  drive: {kind: 'voltage' | 'current'; node: NodeName}
+  opamp: OpampPoles
+}
+
+/** A compiled element: conductance (S) or capacitance (F) between node indices. */
+export interface NetElement {
+  label: ElementLabel
+  kind: 'g' | 'c'
+  a: number
+  b: number
+  value: number
+}
+
+/** A compiled netlist: node 0 is ground; + pin, − pin and output are node indices. */
+export interface Netlist {
+  nodeCount: number
+  elements: NetElement[]
+  plus: number
+  minus: number
+  out: number
+  drive: {kind: 'voltage' | 'current'; node: number}
+  opamp: OpampPoles
+}
+
+// Merge priority: ground, then the driven source node, then the op-amp output, so that a
+// merged node keeps the role that fixes its voltage.
+const PRIORITY: Record<NodeName, number> = {gnd: 0, src: 1, o: 2, p: 3, m: 4, x: 5}
+
+/** Merge wired nodes, number the rest and compile the elements. */
+export function buildNetlist(spec: NetlistSpec): Netlist {
+  const parent = new Map<NodeName, NodeName>(NODE_NAMES.map((n) => [n, n]))
+  const find = (n: NodeName): NodeName => {
+    let r = n
+    while (parent.get(r) !== r) r = parent.get(r) as NodeName
+    return r
+  }
+  const join = (a: NodeName, b: NodeName): void => {
+    const ra = find(a)
+    const rb = find(b)
+    if (ra === rb) return
+    if (PRIORITY[ra] <= PRIORITY[rb]) parent.set(rb, ra)
+    else parent.set(ra, rb)
+  }
+  for (const [a, b] of spec.wires) join(a, b)
+  for (const e of spec.elements) if (e.kind === 'r' && e.value === 0) join(e.a, e.b)
+
+  const index = new Map<NodeName, number>([['gnd', 0]])
+  const indexOf = (n: NodeName): number => {
+    const r = find(n)
+    let i = index.get(r)
+    if (i === undefined) {
+      i = index.size
+      index.set(r, i)
+    }
+    return i
+  }
+  const plus = indexOf('p')
+  const minus = indexOf('m')
+  const out = indexOf('o')
+  const drive = {kind: spec.drive.kind, node: indexOf(spec.drive.node)}
+  const elements: NetElement[] = []
+  for (const e of spec.elements) {
+    if (e.kind === 'r' && e.value === 0) continue
+    if (e.kind === 'c' && e.value === 0 && e.label !== 'cf') continue
+    const a = indexOf(e.a)
+    const b = indexOf(e.b)
+    if (a === b) continue
+    elements.push({label: e.label, kind: e.kind === 'r' ? 'g' : 'c', a, b, value: e.kind === 'r' ? 1 / e.value : e.value})
+  }
+  return {nodeCount: index.size, elements, plus, minus, out, drive, opamp: spec.opamp}
+}

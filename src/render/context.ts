@@ -1,0 +1,106 @@
+/**
+ * The state one render carries: the pdfkit document, theme, fonts, warnings, footnote and
+ * outline bookkeeping, and the frame (left edge and width) blocks draw into. Also the few
+ * helpers every block uses: setting a text style, keeping space, starting a new page.
+ */
+import type {Definition, FootnoteDefinition} from 'mdast'
+import {FONT_NAMES, type FontKey, type LoadedFonts} from './fonts.js'
+import type {GlyphChecker} from './glyphs.js'
+import {maxY, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
+import type {Theme} from './theme.js'
+import type {Warnings} from './warnings.js'
+
+export interface Frame {
+  x: number
+  width: number
+}
+
+export interface FootnoteState {
+  definitions: Map<string, FootnoteDefinition>
+  /** Identifier → number, assigned at first reference. */
+  numbers: Map<string, number>
+}
+
+export interface OutlineState {
+  /** Open outline items by heading depth. */
+  stack: {depth: number; item: OutlineItem}[]
+}
+
+export interface RenderContext {
+  doc: PdfDoc
+  theme: Theme
+  fonts: LoadedFonts
+  glyphs: GlyphChecker
+  warnings: Warnings
+  images: ReadonlyMap<string, Uint8Array>
+  footnotes: FootnoteState
+  /** Link reference definitions of the tree being drawn, by normalised identifier. */
+  definitions: Map<string, Definition>
+  outline: OutlineState | null
+  frame: Frame
+  figures: {count: number}
+}
+
+export interface TextStyle {
+  font: FontKey
+  size: number
+  color: string
+}
+
+/** Sets font, size and colour on the document. */
+export function applyStyle(ctx: RenderContext, style: TextStyle): void {
+  ctx.doc.font(FONT_NAMES[style.font]).fontSize(style.size).fillColor(style.color)
+}
+
+export function bodyStyle(ctx: RenderContext): TextStyle {
+  return {font: 'regular', size: ctx.theme.fontSizes.body, color: ctx.theme.colours.text}
+}
+
+/** Height of a one-style string at the frame width (or `width`), measured as drawn. */
+export function measureText(ctx: RenderContext, text: string, style: TextStyle, width: number, options: TextOptions = {}): number {
+  applyStyle(ctx, style)
+  return ctx.doc.heightOfString(ctx.glyphs.clean(text, style.font), {width, lineGap: ctx.theme.lineGap, ...options})
+}
+
+/** Draws a one-style string at (x, y) wrapped to `width`; leaves `doc.y` below it. */
+export function drawText(ctx: RenderContext, text: string, style: TextStyle, x: number, y: number, width: number, options: TextOptions = {}): void {
+  applyStyle(ctx, style)
+  ctx.doc.text(ctx.glyphs.clean(text, style.font), x, y, {width, lineGap: ctx.theme.lineGap, ...options})
+}
+
+/** Space left on the current page below `doc.y`, pt. */
+export function spaceLeft(ctx: RenderContext): number {
+  return maxY(ctx.doc) - ctx.doc.y
+}
+
+/** Height available on an empty page. */
+export function pageBodyHeight(ctx: RenderContext): number {
+  const {page} = ctx.doc
+  return page.height - page.margins.top - page.margins.bottom
+}
+
+export function atPageTop(ctx: RenderContext): boolean {
+  return ctx.doc.y <= ctx.doc.page.margins.top + 0.5
+}
+
+export function newPage(ctx: RenderContext): void {
+  ctx.doc.addPage()
+  ctx.doc.y = ctx.doc.page.margins.top
+  ctx.doc.x = ctx.frame.x
+}
+
+/** Starts a new page unless `height` fits below `doc.y` (or we are already at a page top). */
+export function keepSpace(ctx: RenderContext, height: number): void {
+  if (height > spaceLeft(ctx) && !atPageTop(ctx)) newPage(ctx)
+}
+
+/** Runs `fn` with the frame narrowed by `indent` on the left (and `right` on the right). */
+export function indented<T>(ctx: RenderContext, indent: number, fn: () => T, right = 0): T {
+  const saved = ctx.frame
+  ctx.frame = {x: saved.x + indent, width: saved.width - indent - right}
+  try {
+    return fn()
+  } finally {
+    ctx.frame = saved
+  }
+}

@@ -1,0 +1,73 @@
+/**
+ * The report phase: the parsed note and its evaluations in, the report tree out. Each
+ * stage block is swapped for its section and each opamp block for its datasheet tables;
+ * the cover verdicts, the appendix and the closing text are assembled around the body.
+ */
+import type {Root, RootContent} from 'mdast'
+import type {ParsedNote, StageBlockNode} from '../note/types.js'
+import type {StageEvaluation} from './evaluate.js'
+import type {ReportContext} from './context.js'
+import type {ChartFonts} from './vega.js'
+import {buildAppendix} from './appendix.js'
+import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
+import {combine, coverRows, verdictOf} from './verdicts.js'
+import type {ReportDocument} from './types.js'
+
+export interface ReportInput {
+  parsed: ParsedNote
+  evaluations: StageEvaluation[]
+  fonts: ChartFonts
+  /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
+  fragments: {method: Root; closing: Root}
+  sourceSha256: string
+  toolVersion: string
+  fileName: string
+}
+
+export interface ReportOutput {
+  document: ReportDocument
+  /** Warnings met while building (chart warnings). */
+  warnings: string[]
+}
+
+type Parent = {children: RootContent[]}
+const hasChildren = (n: RootContent): n is RootContent & Parent =>
+  'children' in n && Array.isArray((n as Partial<Parent>).children)
+
+async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>): Promise<RootContent[]> {
+  const out: RootContent[] = []
+  for (const node of nodes) {
+    if (node.type === 'stageBlock') {
+      const ev = byBlock.get(node)
+      out.push(...(ev ? await stageSection(ctx, ev) : failedStageSection(node)))
+    } else if (node.type === 'opampBlock') {
+      out.push(...opampSection(ctx, node))
+    } else if (hasChildren(node)) {
+      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock)} as RootContent)
+    } else {
+      out.push(node)
+    }
+  }
+  return out
+}
+
+export async function buildReport(input: ReportInput): Promise<ReportOutput> {
+  const ctx: ReportContext = {fonts: input.fonts, figure: 0, table: 0, warnings: []}
+  const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
+  const body: Root = {type: 'root', children: await replaceBlocks(input.parsed.tree.children, ctx, byBlock)}
+  const verdicts = coverRows(input.evaluations)
+  const overall = combine(input.evaluations.flatMap((ev) => ev.result.requirements.map(verdictOf)))
+  const document: ReportDocument = {
+    meta: input.parsed.meta,
+    cover: {verdicts, overall},
+    body,
+    appendix: buildAppendix({
+      evaluations: input.evaluations, method: input.fragments.method,
+      sourceSha256: input.sourceSha256, toolVersion: input.toolVersion, fileName: input.fileName
+    }),
+    closing: input.fragments.closing,
+    sourceSha256: input.sourceSha256,
+    toolVersion: input.toolVersion
+  }
+  return {document, warnings: ctx.warnings}
+}

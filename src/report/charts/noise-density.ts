@@ -1,0 +1,122 @@
+/**
+ * Output noise density, log-log: one line per contributor and the total as a thicker black
+ * line, V/√Hz against Hz over the noise band.
+ *
+ * A contributor is left out when it is zero everywhere or stays below `minShare` of the
+ * total at every frequency; the keys left out are returned so the caption can name them.
+ * Points that a log axis cannot show (zero, negative, non-finite) are dropped from each line.
+ * Pure: returns a spec that `src/report/vega.ts` renders.
+ */
+import type {TopLevelSpec} from 'vega-lite'
+import {NOISE_KEYS, type NoiseKey, type StageCurves} from '../../engine/types.js'
+import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} from './theme.js'
+import {SI_AXIS_FORMAT, decadeDomain, extent, logTicks, plottablePoints, type Point} from './scales.js'
+
+export interface NoiseDensityOptions {
+  /** Readable name of each contributor key (e.g. `r:rf` → "Rf thermal"); the key itself when absent. */
+  labels: Record<string, string>
+  /**
+   * Smallest share of the total density (V/√Hz ratio) a contributor must reach at some
+   * frequency to be drawn (optional; default 1e-3).
+   */
+  minShare?: number
+}
+
+export interface NoiseDensityChart {
+  spec: TopLevelSpec
+  /** Contributor keys not drawn (zero, or under `minShare` of the total everywhere), in `NOISE_KEYS` order. */
+  omitted: NoiseKey[]
+}
+
+/** Legend entry of the total line. */
+export const TOTAL_LABEL = 'Total'
+
+const DEFAULT_MIN_SHARE = 1e-3
+
+const LINE = {type: 'line', clip: true, strokeCap: 'butt', strokeJoin: 'round'} as const
+
+/** True when `density` reaches `minShare` of `total` at some frequency. */
+function significant(density: readonly number[], total: readonly number[], minShare: number): boolean {
+  return density.some((d, i) => {
+    const t = total[i] as number
+    return Number.isFinite(d) && d > 0 && (!(t > 0) || d >= minShare * t)
+  })
+}
+
+/**
+ * Spec of the noise-density chart.
+ *
+ * @param curves
+ *   The stage's curves: `noiseFrequency` (Hz), `noiseDensity` per key and `noiseTotal` (V/√Hz).
+ * @param opts
+ *   Labels of the contributor keys, and the share under which a contributor is left out.
+ */
+export function noiseDensitySpec(curves: StageCurves, opts: NoiseDensityOptions): NoiseDensityChart {
+  const minShare = opts.minShare ?? DEFAULT_MIN_SHARE
+  const f = curves.noiseFrequency
+  const omitted: NoiseKey[] = []
+  const series: {label: string; style: LineStyle; total: boolean; points: Point[]}[] = []
+  for (const key of NOISE_KEYS) {
+    const density = curves.noiseDensity[key] ?? []
+    if (!significant(density, curves.noiseTotal, minShare)) {
+      omitted.push(key)
+      continue
+    }
+    series.push({label: opts.labels[key] ?? key, style: NOISE_STYLES[key], total: false, points: plottablePoints(f, density, true)})
+  }
+  const totalPoints = plottablePoints(f, curves.noiseTotal, true)
+  series.push({label: TOTAL_LABEL, style: TOTAL_STYLE, total: true, points: totalPoints})
+
+  const all = series.flatMap((s) => s.points)
+  const xDomain = extent(totalPoints.map((p) => p.x), 'noise total')
+  const yDomain = decadeDomain(extent(all.map((p) => p.y), 'noise density'))
+  const labels = series.map((s) => s.label)
+
+  return {
+    omitted,
+    spec: {
+      $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+      config: CHART_CONFIG,
+      width: CHART_WIDTH,
+      height: CHART_HEIGHT,
+      data: {values: series.flatMap((s) => s.points.map((p) => ({series: s.label, total: s.total, f: p.x, v: p.y})))},
+      encoding: {
+        x: {
+          field: 'f',
+          type: 'quantitative',
+          scale: {type: 'log', domain: xDomain, nice: false},
+          axis: {title: 'Frequency (Hz)', format: SI_AXIS_FORMAT, values: logTicks(xDomain), grid: true}
+        },
+        y: {
+          field: 'v',
+          type: 'quantitative',
+          scale: {type: 'log', domain: yDomain, nice: false},
+          axis: {title: 'Output noise density (V/√Hz)', format: SI_AXIS_FORMAT, values: logTicks(yDomain), grid: true}
+        },
+        color: {
+          field: 'series',
+          type: 'nominal',
+          scale: {domain: labels, range: series.map((s) => s.style.colour)},
+          legend: {title: null, orient: 'bottom', direction: 'horizontal', columns: 4, symbolType: 'stroke', columnPadding: 14}
+        },
+        strokeDash: {
+          field: 'series',
+          type: 'nominal',
+          scale: {domain: labels, range: series.map((s) => s.style.dash)},
+          legend: {title: null, orient: 'bottom', direction: 'horizontal', columns: 4, symbolType: 'stroke', columnPadding: 14}
+        },
+        strokeWidth: {
+          field: 'series',
+          type: 'nominal',
+          scale: {domain: labels, range: series.map((s) => s.style.width)},
+          legend: null
+        }
+      },
+      // Two layers on shared scales so that the total is drawn last, on top of the contributors.
+      layer: [
+        {transform: [{filter: '!datum.total'}], mark: LINE},
+        {transform: [{filter: 'datum.total'}], mark: LINE}
+      ]
+    }
+  }
+}

@@ -1,0 +1,63 @@
+/**
+ * The machine-readable result of DESIGN §6: exactly the contract's fields, in the
+ * contract's order, report-only fields dropped. Numbers are plain SI; a value that does
+ * not exist is null (never NaN or Infinity).
+ */
+import type {StageEvaluation} from './evaluate.js'
+
+export interface JsonStage {
+  id: string
+  topology: string
+  opamp: string
+  gain: number
+  noiseGain: number
+  dc: StageEvaluation['result']['dc']
+  noise: StageEvaluation['result']['noise']
+  stability: StageEvaluation['result']['stability']
+  requirements: StageEvaluation['result']['requirements']
+  notes: {rule: string; severity: string; text: string}[]
+}
+
+/** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
+const finite = (n: number | null): number | null => (n === null || !Number.isFinite(n) ? null : n)
+
+export function jsonStage(ev: StageEvaluation): JsonStage {
+  const r = ev.result
+  return {
+    id: r.id,
+    topology: r.topology,
+    opamp: r.opamp,
+    gain: r.gain,
+    noiseGain: r.noiseGain,
+    dc: {
+      temperatureSpan: r.dc.temperatureSpan,
+      fullScaleOutput: r.dc.fullScaleOutput,
+      contributors: r.dc.contributors.map((c) => ({key: c.key, output: c.output})),
+      worstCaseOutput: r.dc.worstCaseOutput,
+      rssOutput: r.dc.rssOutput,
+      worstCaseInput: r.dc.worstCaseInput,
+      rssInput: r.dc.rssInput
+    },
+    noise: {
+      band: [r.noise.band[0], r.noise.band[1]],
+      temperature: r.noise.temperature,
+      outputRms: r.noise.outputRms,
+      outputPeakToPeak: r.noise.outputPeakToPeak,
+      inputRms: r.noise.inputRms,
+      contributors: r.noise.contributors.map((c) => ({key: c.key, outputRms: c.outputRms}))
+    },
+    stability: {
+      phaseMargin: finite(r.stability.phaseMargin),
+      crossover: finite(r.stability.crossover),
+      bandwidth: finite(r.stability.bandwidth),
+      peaking: r.stability.peaking,
+      suggestedCf: finite(r.stability.suggestedCf)
+    },
+    requirements: r.requirements.map((q) => ({key: q.key, limit: q.limit, value: finite(q.value), met: q.met})),
+    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
+  }
+}
+
+/** JSON text with non-finite numbers as null (JSON.stringify already writes them as null; this makes it explicit). */
+export const toJson = (value: unknown): string =>
+  JSON.stringify(value, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2)

@@ -1,0 +1,70 @@
+/**
+ * People's names for the engine's keys, as printed in tables, charts and the cover.
+ * Closed maps over the engine's key unions, so a new key without a label fails to compile.
+ */
+import type {DcKey, NoiseKey, RequirementKey, Topology} from '../engine/types.js'
+
+export const DC_LABELS: Record<DcKey, string> = {
+  vos: 'Offset voltage',
+  'vos-drift': 'Offset drift',
+  ib: 'Bias current × resistance mismatch',
+  ios: 'Offset current',
+  idark: 'Source dark current',
+  cmrr: 'Common-mode rejection',
+  psrr: 'Supply rejection',
+  'aol-gain': 'Finite open-loop gain',
+  'resistor-tolerance': 'Resistor tolerance',
+  'resistor-tempco': 'Resistor tempco'
+}
+
+export const NOISE_LABELS: Record<NoiseKey, string> = {
+  en: 'Op-amp voltage noise',
+  'in+': 'Current noise, + input',
+  'in-': 'Current noise, − input',
+  'r:rf': 'Thermal noise of rf',
+  'r:rg': 'Thermal noise of rg',
+  'r:rs': 'Thermal noise of rs',
+  'r:rcomp': 'Thermal noise of rcomp',
+  'r:rshunt': 'Thermal noise of rshunt',
+  shot: 'Shot noise of source current'
+}
+
+export const REQUIREMENT_LABELS: Record<RequirementKey, string> = {
+  'output-error': 'DC error at output, worst case',
+  'output-error-rss': 'DC error at output, RSS',
+  'input-error': 'DC error referred to input, worst case',
+  'noise-rms': 'Output noise, rms over band',
+  'noise-pp': 'Output noise, peak-to-peak',
+  'phase-margin': 'Phase margin (minimum)',
+  bandwidth: 'Closed-loop bandwidth (minimum)'
+}
+
+export const TOPOLOGY_LABELS: Record<Topology, string> = {
+  noninverting: 'Non-inverting amplifier',
+  inverting: 'Inverting amplifier',
+  follower: 'Voltage follower',
+  transimpedance: 'Transimpedance amplifier'
+}
+
+/** Unit of the stage's input quantity: A for transimpedance, V otherwise. */
+export const inputUnit = (t: Topology): 'A' | 'V' => (t === 'transimpedance' ? 'A' : 'V')
+
+/** Unit of the signal gain: Ω (V/A) for transimpedance, V/V otherwise. */
+export const gainUnit = (t: Topology): string => (t === 'transimpedance' ? 'Ω' : 'V/V')
+
+/** Unit a requirement's value is printed in. */
+export const requirementUnit = (key: RequirementKey, t: Topology): string => {
+  switch (key) {
+    case 'phase-margin':
+      return '°'
+    case 'bandwidth':
+      return 'Hz'
+    case 'input-error':
+      return inputUnit(t)
+    case 'output-error':
+    case 'output-error-rss':
+    case 'noise-rms':
+    case 'noise-pp':
+      return 'V'
+  }
+}

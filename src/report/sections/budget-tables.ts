@@ -1,0 +1,77 @@
+/**
+ * The stage's computed tables: results summary, DC error budget, noise budget, stability.
+ */
+import type {Table} from 'mdast'
+import type {StageResult} from '../../engine/types.js'
+import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../labels.js'
+import {db, deg, pct, q} from '../format.js'
+import {code, strong} from '../mdast.js'
+import {table} from '../mdast.js'
+
+/** Gain, noise gain and the headline figures of the three budgets. */
+export function summaryTable(r: StageResult): Table {
+  const iu = inputUnit(r.topology)
+  return table(['Quantity', 'Value'], [
+    ['Signal gain at DC', q(r.gain, gainUnit(r.topology), 4)],
+    ['Noise gain at DC', q(r.noiseGain, 'V/V', 4)],
+    ['DC error at output, worst case / RSS', `${q(r.dc.worstCaseOutput, 'V')} / ${q(r.dc.rssOutput, 'V')}`],
+    ['DC error referred to input, worst case / RSS', `${q(r.dc.worstCaseInput, iu)} / ${q(r.dc.rssInput, iu)}`],
+    [`Output noise over ${q(r.noise.band[0], 'Hz')} … ${q(r.noise.band[1], 'Hz')}, rms / p-p`,
+      `${q(r.noise.outputRms, 'V')} / ${q(r.noise.outputPeakToPeak, 'V')}`],
+    ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
+    ['Closed-loop −3 dB bandwidth', q(r.stability.bandwidth, 'Hz')]
+  ], ['left', 'right'])
+}
+
+/** Every DC contributor, output- and input-referred, with its share of the worst case. */
+export function dcTable(r: StageResult): Table {
+  const iu = inputUnit(r.topology)
+  const g = Math.abs(r.gain)
+  const rows = r.dc.contributors.map((c) => [
+    [DC_LABELS[c.key], ' ', code(c.key)],
+    q(c.output, 'V'),
+    q(g > 0 ? c.output / g : null, iu),
+    r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—'
+  ])
+  rows.push(
+    [[strong('Worst case (sum)')], q(r.dc.worstCaseOutput, 'V'), q(r.dc.worstCaseInput, iu), '100.0 %'],
+    [[strong('RSS')], q(r.dc.rssOutput, 'V'), q(r.dc.rssInput, iu), '—']
+  )
+  return table(['Contributor', 'At output', 'Referred to input', 'Share of worst case'], rows,
+    ['left', 'right', 'right', 'right'])
+}
+
+/** Every noise contributor's rms over the band, with its share of the total power. */
+export function noiseTable(r: StageResult): Table {
+  const iu = inputUnit(r.topology)
+  const g = Math.abs(r.gain)
+  const total2 = r.noise.outputRms ** 2
+  const rows = r.noise.contributors.map((c) => [
+    [NOISE_LABELS[c.key], ' ', code(c.key)],
+    q(c.outputRms, 'V'),
+    q(g > 0 ? c.outputRms / g : null, iu),
+    total2 > 0 ? pct(c.outputRms ** 2 / total2) : '—'
+  ])
+  rows.push(
+    [[strong('Total, rms')], q(r.noise.outputRms, 'V'), q(r.noise.inputRms, iu), '100.0 %'],
+    [[strong('Total, peak-to-peak (6.6 × rms)')], q(r.noise.outputPeakToPeak, 'V'), q(r.noise.inputRms * 6.6, iu), '—']
+  )
+  return table(['Contributor', 'Output rms', 'Referred to input', 'Share of noise power'], rows,
+    ['left', 'right', 'right', 'right'])
+}
+
+/** Loop stability and closed-loop response figures. */
+export function stabilityTable(r: StageResult): Table {
+  const s = r.stability
+  const rows: string[][] = [
+    ['Loop-gain crossover', q(s.crossover, 'Hz')],
+    ['Phase margin', s.phaseMargin === null ? 'no crossover' : deg(s.phaseMargin)],
+    ['Closed-loop −3 dB bandwidth', s.bandwidth === null ? 'beyond the analysed span' : q(s.bandwidth, 'Hz')],
+    ['Peaking of the signal response', db(s.peaking)]
+  ]
+  if (r.topology === 'transimpedance') {
+    rows.push(['Smallest Cf for 60° phase margin',
+      s.suggestedCf === null ? 'none up to 1 µF' : s.suggestedCf === 0 ? 'none needed (60° without Cf)' : q(s.suggestedCf, 'F')])
+  }
+  return table(['Quantity', 'Value'], rows, ['left', 'right'])
+}

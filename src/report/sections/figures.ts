@@ -1,0 +1,36 @@
+/**
+ * Charts of one stage: vega-lite specs from src/report/charts rendered to SVG figure nodes.
+ */
+import type {StageEvaluation} from '../evaluate.js'
+import type {ReportContext} from '../context.js'
+import type {FigureNode} from '../types.js'
+import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec} from '../charts/index.js'
+import {renderChartSvg} from '../vega.js'
+import {DC_LABELS, NOISE_LABELS} from '../labels.js'
+import type {TopLevelSpec} from 'vega-lite'
+
+async function figure(ctx: ReportContext, spec: TopLevelSpec, caption: string): Promise<FigureNode> {
+  const chart = await renderChartSvg(spec, ctx.fonts)
+  for (const w of chart.warnings) ctx.warnings.push(`chart “${caption}”: ${w}`)
+  return {type: 'figure', number: ++ctx.figure, caption, svg: chart.svg, width: chart.width, height: chart.height}
+}
+
+export const dcFigure = (ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode> =>
+  figure(ctx, dcBarsSpec(ev.result.dc, {labels: DC_LABELS}),
+    `DC error contributors of stage ${ev.input.id}, output-referred, largest first`)
+
+export async function noiseFigures(ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode[]> {
+  const density = noiseDensitySpec(ev.result.curves, {labels: NOISE_LABELS})
+  const omitted = density.omitted.length > 0
+    ? ` (not drawn, below 0.1 % of the total everywhere: ${density.omitted.map((k) => NOISE_LABELS[k as keyof typeof NOISE_LABELS] ?? k).join(', ')})`
+    : ''
+  return [
+    await figure(ctx, density.spec, `Output noise density of stage ${ev.input.id} by contributor, and total${omitted}`),
+    await figure(ctx, cumulativeRmsSpec(ev.result.curves),
+      `Cumulative output noise rms of stage ${ev.input.id} from the band's lower edge`)
+  ]
+}
+
+export const loopFigure = (ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode> =>
+  figure(ctx, loopGainSpec(ev.result.curves, ev.result.stability),
+    `Loop gain of stage ${ev.input.id}: magnitude and phase, crossover and phase margin marked`)

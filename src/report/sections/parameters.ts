@@ -1,0 +1,47 @@
+/**
+ * The parameter tables: a stage's keys as written plus every default applied, and an
+ * op-amp's datasheet values (as written for a block, as used for an archetype).
+ */
+import type {BlockContent, Table} from 'mdast'
+import {ARCHETYPE_DISCLAIMER} from '../../engine/archetypes.js'
+import type {OpampParams} from '../../engine/types.js'
+import type {BlockEntry, DefaultedValue} from '../../note/types.js'
+import {q} from '../format.js'
+import {callout, code, emphasis, paragraph, table} from '../mdast.js'
+
+/** Keys as written, then the defaults applied, marked as such. */
+export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[]): Table {
+  const rows = [
+    ...entries.map((e) => [[code(e.key)], e.raw, 'as written']),
+    ...defaulted.map((d) => [[code(d.key)], d.value, [emphasis('default applied')]])
+  ]
+  return table(['Key', 'Value', 'Source'], rows)
+}
+
+const dbOf = (linear: number): string => `${(20 * Math.log10(linear)).toFixed(1)} dB`
+
+/** An op-amp's values as the engine uses them. */
+export function opampValuesTable(op: OpampParams): Table {
+  const rows: string[][] = [
+    ['Input type', op.inputType],
+    ['Offset voltage, max at 25 °C', q(op.vos, 'V')],
+    ['Offset drift, max', q(op.vosDrift, 'V/K')],
+    ['Bias current, max at 25 °C', q(op.ib, 'A')],
+    ['Offset current, max at 25 °C', q(op.ios, 'A')],
+    ['Bias current, max over temperature', op.ibMax === null ? 'not entered' : q(op.ibMax, 'A')],
+    ['Offset current, max over temperature', op.iosMax === null ? 'not entered' : q(op.iosMax, 'A')],
+    ['Voltage noise density (white) / 1/f corner', `${q(op.en, 'V/√Hz')} / ${q(op.enCorner, 'Hz')}`],
+    ['Current noise density (white) / 1/f corner', `${q(op.in, 'A/√Hz')} / ${q(op.inCorner, 'Hz')}`],
+    ['Gain-bandwidth product', q(op.gbw, 'Hz')],
+    ['Open-loop gain', dbOf(op.aol)],
+    ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
+    ['CMRR / PSRR', `${dbOf(op.cmrr)} / ${dbOf(op.psrr)}`],
+    ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F')} / ${q(op.cinCm, 'F')}`],
+    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')]
+  ]
+  return table(['Parameter', 'Value used'], rows, ['left', 'right'])
+}
+
+/** The archetype disclaimer, wherever an archetype is used. */
+export const archetypeNotice = (op: OpampParams): BlockContent =>
+  callout('info', 'ARCHETYPE', [paragraph(`Op-amp “${op.name}” is a built-in archetype. `, ARCHETYPE_DISCLAIMER)])

@@ -1,0 +1,81 @@
+/**
+ * One stage's section, replacing its block in the document (DESIGN §5): parameters,
+ * results summary, DC budget with chart, noise budget with charts, stability with chart,
+ * requirement verdicts, then the practice and safety notes.
+ */
+import type {BlockContent} from 'mdast'
+import type {StageEvaluation} from '../evaluate.js'
+import type {StageBlockNode} from '../../note/types.js'
+import {nextTable, type ReportContext} from '../context.js'
+import {TOPOLOGY_LABELS} from '../labels.js'
+import {q} from '../format.js'
+import {callout, caption, code, heading, paragraph} from '../mdast.js'
+import {dcTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
+import {dcFigure, loopFigure, noiseFigures} from './figures.js'
+import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
+import {requirementBlocks} from './requirements.js'
+import {noteBlocks} from './notes.js'
+
+function swingBlocks(ev: StageEvaluation): BlockContent[] {
+  const s = ev.result.swing
+  const span = `${q(s.outputSpan[0], 'V')} … ${q(s.outputSpan[1], 'V')}`
+  const allowed = `${q(s.allowed[0], 'V')} … ${q(s.allowed[1], 'V')}`
+  if (s.fits) return [paragraph(`Output span over the input range: ${span}, inside the usable swing ${allowed} (supply less headroom).`)]
+  return [callout('warning', 'OUTSIDE SWING', [paragraph(
+    `Output span over the input range is ${span}, outside the usable swing ${allowed}: ` +
+    `short by ${q(s.excess[0], 'V')} at the low end and ${q(s.excess[1], 'V')} at the high end.`)])]
+}
+
+function biasBlocks(ev: StageEvaluation): BlockContent[] {
+  const b = ev.result.bias
+  const how = {'ib-max': 'as entered (ib-max)', 'ios-max': 'as entered (ios-max)', doubling: 'from the 25 °C value doubled per ib-doubling interval', 'datasheet-25C': 'the 25 °C datasheet value'} as const
+  return [paragraph(
+    `Bias current used over ${q(ev.input.temperature[0], '°C')} … ${q(ev.input.temperature[1], '°C')}: ${q(b.ibMax, 'A')}, ${how[b.ibSource]}; ` +
+    `offset current ${q(b.iosMax, 'A')}, ${how[b.iosSource]}.`)]
+}
+
+/** A section for a stage block that could not be evaluated (the build stops before the PDF). */
+export function failedStageSection(block: StageBlockNode): BlockContent[] {
+  return [heading(2, 'Stage ', code(block.id)), paragraph('This block has errors and was not evaluated.')]
+}
+
+export async function stageSection(ctx: ReportContext, ev: StageEvaluation): Promise<BlockContent[]> {
+  const {input, result} = ev
+  const op = input.opamp
+  const out: BlockContent[] = [
+    heading(2, `Stage ${input.id} — ${input.title}`),
+    paragraph(`${TOPOLOGY_LABELS[input.topology]} on op-amp `, code(op.name), op.archetype ? ' (archetype).' : '.')
+  ]
+  if (op.archetype) out.push(archetypeNotice(op))
+  out.push(heading(3, 'Parameters'), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
+    entriesTable(ev.block.entries, ev.block.defaulted))
+  if (op.archetype) out.push(caption(nextTable(ctx, `Archetype ${op.name}, values used`)), opampValuesTable(op))
+  out.push(heading(3, 'Results summary'), caption(nextTable(ctx, `Results of stage ${input.id}`)), summaryTable(result))
+  out.push(...swingBlocks(ev))
+
+  out.push(heading(3, 'DC error budget'),
+    paragraph(`Worst case over ${q(input.temperature[0], '°C')} … ${q(input.temperature[1], '°C')} ` +
+      `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')}.`),
+    ...biasBlocks(ev),
+    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), await dcFigure(ctx, ev))
+
+  out.push(heading(3, 'Noise budget'),
+    paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +
+      'all sources uncorrelated, summed in power.'),
+    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...(await noiseFigures(ctx, ev)))
+
+  out.push(heading(3, 'Stability'), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
+    await loopFigure(ctx, ev))
+
+  out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
+  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes))
+  return out
+}
+
+/** An opamp block's section: its datasheet values as written and as used. */
+export function opampSection(ctx: ReportContext, node: import('../../note/types.js').OpampBlockNode): BlockContent[] {
+  const out: BlockContent[] = [heading(3, 'Op-amp ', code(node.id)),
+    caption(nextTable(ctx, `Datasheet values of op-amp ${node.id}, as written`)), entriesTable(node.entries, node.defaulted)]
+  if (node.opamp) out.push(caption(nextTable(ctx, `Op-amp ${node.id}, values used by the engine`)), opampValuesTable(node.opamp))
+  return out
+}

@@ -1,0 +1,78 @@
+/**
+ * The practice and safety rules (DESIGN §4.5), in the order their notes are listed.
+ *
+ * Each rule lives in its own file with a header saying what it checks, when it fires and what
+ * it recommends, and returns plain findings. This module keeps them in a typed table keyed by
+ * rule id (so a listed id without a rule, or a rule under the wrong id, fails to type-check),
+ * runs them on one evaluated stage and stamps each finding with its rule id.
+ */
+import batteryStoredEnergy from './battery-stored-energy.js'
+import bandwidthMargin from './bandwidth-margin.js'
+import biasCompensationResistor from './bias-compensation-resistor.js'
+import biasOverTemperatureMissing from './bias-over-temperature-missing.js'
+import eSeriesValues from './e-series-values.js'
+import fetBiasHotEnd from './fet-bias-hot-end.js'
+import followerFeedbackResistor from './follower-feedback-resistor.js'
+import hazardousVoltage from './hazardous-voltage.js'
+import lowValueResistor from './low-value-resistor.js'
+import lowerBiasInputType from './lower-bias-input-type.js'
+import matchedDcResistance from './matched-dc-resistance.js'
+import outputSwing from './output-swing.js'
+import phaseMarginLow from './phase-margin-low.js'
+import resistorNoiseDominant from './resistor-noise-dominant.js'
+import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
+import type {Rule, RuleContext} from './rule.js'
+import type {RuleNote} from './types.js'
+
+export type {Rule, RuleContext, RuleFinding} from './rule.js'
+
+/** Rule ids, in run order: safety first, then stability, swing, DC, noise, parts. */
+export const RULE_IDS = [
+  'hazardous-voltage',
+  'battery-stored-energy',
+  'phase-margin-low',
+  'transimpedance-feedback-cap',
+  'follower-feedback-resistor',
+  'output-swing',
+  'bandwidth-margin',
+  'bias-compensation-resistor',
+  'matched-dc-resistance',
+  'lower-bias-input-type',
+  'fet-bias-hot-end',
+  'bias-over-temperature-missing',
+  'resistor-noise-dominant',
+  'low-value-resistor',
+  'e-series-values'
+] as const
+export type RuleId = (typeof RULE_IDS)[number]
+export const isRuleId = (s: string): s is RuleId => (RULE_IDS as readonly string[]).includes(s)
+
+/** Every rule under its own id. */
+export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
+  'hazardous-voltage': hazardousVoltage,
+  'battery-stored-energy': batteryStoredEnergy,
+  'phase-margin-low': phaseMarginLow,
+  'transimpedance-feedback-cap': transimpedanceFeedbackCap,
+  'follower-feedback-resistor': followerFeedbackResistor,
+  'output-swing': outputSwing,
+  'bandwidth-margin': bandwidthMargin,
+  'bias-compensation-resistor': biasCompensationResistor,
+  'matched-dc-resistance': matchedDcResistance,
+  'lower-bias-input-type': lowerBiasInputType,
+  'fet-bias-hot-end': fetBiasHotEnd,
+  'bias-over-temperature-missing': biasOverTemperatureMissing,
+  'resistor-noise-dominant': resistorNoiseDominant,
+  'low-value-resistor': lowValueResistor,
+  'e-series-values': eSeriesValues
+}
+
+/**
+ * Run every rule on one stage, in `RULE_IDS` order, and stamp each note with its rule id.
+ */
+export function runRules(ctx: RuleContext): RuleNote[] {
+  const notes: RuleNote[] = []
+  for (const id of RULE_IDS) {
+    for (const finding of RULES[id].check(ctx)) notes.push({rule: id, ...finding})
+  }
+  return notes
+}

@@ -1,0 +1,57 @@
+/**
+ * Small lookups the rules share on a stage and its result: one DC or noise contributor, the
+ * largest DC contributor, the DC resistances at each input (DESIGN §4.1), and the
+ * requirements that were not met. Plain reads; nothing here decides whether a rule fires.
+ */
+import type {DcKey, NoiseKey, RequirementKey, RequirementResult, StageInput, StageResult} from '../engine/types.js'
+
+/** Output-referred magnitude of one DC contributor, V (0 when the topology does not list it). */
+export function dcTerm(result: StageResult, key: DcKey): number {
+  return result.dc.contributors.find((c) => c.key === key)?.output ?? 0
+}
+
+/** Output rms of one noise contributor over the band, V (0 when not listed). */
+export function noiseTerm(result: StageResult, key: NoiseKey): number {
+  return result.noise.contributors.find((c) => c.key === key)?.outputRms ?? 0
+}
+
+/** The DC contributor with the largest output magnitude; null when every term is zero. */
+export function largestDcTerm(result: StageResult): {key: DcKey; output: number} | null {
+  let best: {key: DcKey; output: number} | null = null
+  for (const c of result.dc.contributors) {
+    if (c.output > 0 && (best === null || c.output > best.output)) best = c
+  }
+  return best
+}
+
+const parallel = (a: number, b: number): number => (a === 0 || b === 0 ? 0 : (a * b) / (a + b))
+const ohms = (r: {value: number} | null): number => r?.value ?? 0
+
+/**
+ * Nominal DC resistance seen by each input (DESIGN §4.1): Rn at the − input, Rp at the + input, Ω.
+ */
+export function dcResistances(input: StageInput): {rn: number; rp: number} {
+  const rf = ohms(input.rf)
+  const rg = ohms(input.rg)
+  const rs = ohms(input.rs)
+  const rcomp = ohms(input.rcomp)
+  switch (input.topology) {
+    case 'noninverting':
+      return {rn: parallel(rf, rg), rp: rs + rcomp}
+    case 'inverting':
+      return {rn: parallel(rf, rg + rs), rp: rcomp}
+    case 'follower':
+      return {rn: rf, rp: rs + rcomp}
+    case 'transimpedance':
+      // An open shunt (null) leaves Rf alone at the − input.
+      return {rn: input.rshunt === null ? rf : parallel(rf, input.rshunt), rp: rcomp}
+  }
+}
+
+/** Requirements among `keys` that the stage does not meet. */
+export function unmetRequirements(result: StageResult, keys: readonly RequirementKey[]): RequirementResult[] {
+  return result.requirements.filter((r) => !r.met && keys.includes(r.key))
+}
+
+/** A resistor's name as the note writes it, for texts. */
+export type ResistorName = 'rf' | 'rg' | 'rs' | 'rcomp'

@@ -1,0 +1,51 @@
+/**
+ * Message catalog of the quantity grammar. Every message says what was found, what was
+ * expected, and how to fix it ("Unexpected …, expected …"). `where` is an optional phrase
+ * naming the key (" for `rf`"); callers in `src/note` pass it so that the message names the
+ * key, and callers without a key pass "".
+ */
+import {DIMENSIONS, type Dimension} from './dimensions.js'
+
+const expectedOf = (dim: Dimension): string => {
+  const d = DIMENSIONS[dim]
+  return `${d.label} (${d.si}, e.g. \`${d.example}\`)`
+}
+
+export const unitsMessages = {
+  empty: (dim: Dimension, where: string) => `Unexpected empty value${where}, expected ${expectedOf(dim)}`,
+  noNumber: (found: string, dim: Dimension, where: string) =>
+    `Unexpected \`${found}\`${where}, expected a number first, as ${expectedOf(dim)}`,
+  comma: (found: string, fixed: string, where: string) =>
+    `Unexpected comma in \`${found}\`${where}, expected a decimal point: use a point (\`${fixed}\`)`,
+  nonFinite: (found: string, where: string) =>
+    `Unexpected non-finite number \`${found}\`${where}, expected a finite value`,
+  loneSign: (where: string) => `Unexpected lone \`±\`${where}, expected a number after it (\`±15 V\`)`,
+  plusMinus: (where: string) =>
+    `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply (\`supply: ±15 V\`)`,
+  unknownUnit: (unit: string, dim: Dimension, where: string) =>
+    `Unexpected unit \`${unit}\`${where}, expected ${expectedOf(dim)}`,
+  wrongDimension: (unit: string, found: Dimension, dim: Dimension, where: string) =>
+    `Unexpected unit \`${unit}\` (${DIMENSIONS[found].label})${where}, expected ${expectedOf(dim)}`,
+  wrongCase: (prefix: string, meant: string, unit: string, where: string) =>
+    `Unexpected prefix \`${prefix}\` in \`${unit}\`${where}, expected \`${meant}\`: SI prefixes are case-sensitive`,
+  prefixNotAllowed: (unit: string, dim: Dimension, where: string) =>
+    `Unexpected prefix in \`${unit}\`${where}, expected ${expectedOf(dim)} with no prefix`,
+  rangeInSingle: (where: string) => `Unexpected range${where}, expected a single value`,
+  belowAbsoluteZero: (found: string, where: string) =>
+    `Unexpected temperature \`${found}\`${where}, expected one above absolute zero (−273.15 °C)`,
+  rangeNoSpaces: (found: string, fixed: string, where: string) =>
+    `Unexpected \`..\` without spaces in \`${found}\`${where}, expected spaces around it: \`${fixed}\``,
+  rangeTooMany: (where: string) => `Unexpected second \`..\`${where}, expected one range \`low .. high\``,
+  rangeReversed: (found: string, fixed: string, where: string) =>
+    `Unexpected reversed range \`${found}\`${where}, expected low before high: \`${fixed}\``,
+  supplyEmpty: (found: string, where: string) =>
+    `Unexpected empty supply \`${found}\`${where}, expected two different rails (\`±15 V\`, \`0 .. 5 V\`)`,
+  supplyMagnitude: (found: string, where: string) =>
+    `Unexpected \`±${found}\`${where}, expected a positive magnitude after \`±\` (\`±15 V\`)`,
+  resistorExtra: (found: string, where: string) =>
+    `Unexpected \`${found}\` after the resistor value${where}, expected a tolerance (\`0.1%\`) or a tempco (\`25ppm/K\`)`,
+  resistorTwice: (part: 'tolerance' | 'tempco', found: string, where: string) =>
+    `Unexpected second ${part} \`${found}\`${where}, expected at most one`,
+  negativePart: (part: 'tolerance' | 'tempco', found: string, where: string) =>
+    `Unexpected negative ${part} \`${found}\`${where}, expected a magnitude (each resistor moves by ± its ${part})`
+} as const

@@ -1,0 +1,145 @@
+/**
+ * The quantity grammar of DESIGN §3.1 for single values: a number (decimal or RKM code), an
+ * optional SI prefix and an optional unit of the key's dimension, converted to SI.
+ *
+ * Ranges, supplies and resistor specs build on `readQuantity` in `range.ts` and
+ * `resistor.ts`. Nothing here knows about notes or positions beyond a 0-based offset.
+ */
+import {
+  DIMENSION_NAMES, WRONG_CASE_PREFIXES, dimensionSpec, prefixesOf,
+  type Dimension, type UnitSpec
+} from './dimensions.js'
+import {readNumber} from './number.js'
+import {unitsMessages} from './messages.js'
+
+/** Result of `parseQuantity`: an SI value, or a message and the 0-based offset of the problem. */
+export type QuantityResult = {ok: true; value: number} | {ok: false; message: string; offset: number}
+
+/** Result of `readQuantity`: `QuantityResult` plus how the value was written. */
+export type QuantityReading =
+  | {
+      ok: true
+      /** SI value (°C for temperatures, linear V/V for dB). */
+      value: number
+      /** The SI prefix as written (`k`, `µ`, `K` on a resistance), '' when none. */
+      prefix: string
+      /** The unit symbol as written (`kΩ` gives `Ω`), '' for a bare number. */
+      unit: string
+      /** True when written in RKM code (`4k7`). */
+      rkm: boolean
+    }
+  | {ok: false; message: string; offset: number}
+
+export interface QuantityOptions {
+  /** Key name for messages: errors then read "… for `rf`, expected …". (optional) */
+  key?: string
+  /** Unit symbol to use when the text has none (the other end of a range). (optional) */
+  borrowUnit?: string
+}
+
+interface Resolved {
+  unit: UnitSpec
+  prefix: string
+  factor: number
+  symbol: string
+}
+
+const findSymbol = (dim: Dimension, symbol: string): UnitSpec | undefined =>
+  dimensionSpec(dim).units.find((u) => u.symbols.includes(symbol))
+
+/** Resolve the text after the number (`kΩ`, `k Hz`, `m`, ``) on a dimension. */
+function lookup(rest: string, dim: Dimension): Resolved | null {
+  const natural = dimensionSpec(dim).units[0]
+  if (natural === undefined) return null
+  const prefixes = prefixesOf(dim)
+  if (rest === '') return {unit: natural, prefix: '', factor: 1, symbol: ''}
+  const parts = rest.split(/\s+/)
+  if (parts.length === 2) {
+    const [p = '', s = ''] = parts
+    const unit = findSymbol(dim, s)
+    const factor = prefixes[p]
+    return unit?.prefixed && factor !== undefined ? {unit, prefix: p, factor, symbol: s} : null
+  }
+  if (parts.length > 2) return null
+  const exact = findSymbol(dim, rest)
+  if (exact) return {unit: exact, prefix: '', factor: 1, symbol: rest}
+  for (const [p, factor] of Object.entries(prefixes)) {
+    if (!rest.startsWith(p)) continue
+    const s = rest.slice(p.length)
+    const unit = s === '' ? natural : findSymbol(dim, s)
+    if (unit?.prefixed) return {unit, prefix: p, factor, symbol: s}
+  }
+  return null
+}
+
+/** Explain why `rest` is not a unit of `dim`. */
+function unitProblem(rest: string, dim: Dimension, where: string): string {
+  const single = !/\s/.test(rest)
+  for (const p of Object.keys(prefixesOf(dim))) {
+    const s = rest.slice(p.length)
+    if (single && rest.startsWith(p) && (s === '' || findSymbol(dim, s))) {
+      return unitsMessages.prefixNotAllowed(rest, dim, where)
+    }
+  }
+  const meant = WRONG_CASE_PREFIXES[rest.charAt(0)]
+  if (meant !== undefined && lookup(meant + rest.slice(1), dim)) {
+    return unitsMessages.wrongCase(rest.charAt(0), meant, rest, where)
+  }
+  for (const other of DIMENSION_NAMES) {
+    if (other === dim) continue
+    const r = lookup(rest, other)
+    if (r && r.symbol !== '') return unitsMessages.wrongDimension(rest, other, dim, where)
+  }
+  return unitsMessages.unknownUnit(rest, dim, where)
+}
+
+const whereOf = (key: string | undefined): string => (key === undefined ? '' : ` for \`${key}\``)
+
+/** Read one value with its prefix and unit (see `QuantityReading`). */
+export function readQuantity(text: string, dim: Dimension, options: QuantityOptions = {}): QuantityReading {
+  const where = whereOf(options.key)
+  const lead = text.length - text.trimStart().length
+  const body = text.trim()
+  if (body === '') return {ok: false, message: unitsMessages.empty(dim, where), offset: 0}
+  const pm = /^(?:±|\+\/-|\+-)\s*/.exec(body)
+  if (pm) {
+    const message = pm[0].length === body.length ? unitsMessages.loneSign(where) : unitsMessages.plusMinus(where)
+    return {ok: false, message, offset: lead}
+  }
+  const dots = /\.\.|…/.exec(body)
+  if (dots) return {ok: false, message: unitsMessages.rangeInSingle(where), offset: lead + dots.index}
+
+  const num = readNumber(body, dim, where)
+  if (!num.ok) return {...num, offset: lead + num.offset}
+  const restStart = num.end + (body.slice(num.end).length - body.slice(num.end).trimStart().length)
+  let rest = body.slice(restStart)
+  const borrow = options.borrowUnit
+  if (borrow !== undefined && borrow !== '') {
+    const bare = lookup(rest, dim)
+    if (bare && bare.symbol === '') rest = `${rest}${borrow}`
+  }
+  const resolved = lookup(rest, dim)
+  if (!resolved) return {ok: false, message: unitProblem(rest, dim, where), offset: lead + restStart}
+  if (num.rkm && resolved.prefix !== '') {
+    return {ok: false, message: unitsMessages.prefixNotAllowed(rest, dim, where), offset: lead + restStart}
+  }
+  const {unit, factor, prefix, symbol} = resolved
+  const value = unit.decibel ? 10 ** (num.value / 20) : num.value * factor * unit.scale + (unit.offset ?? 0)
+  if (dim === 'temperature' && value < -273.15) {
+    return {ok: false, message: unitsMessages.belowAbsoluteZero(body, where), offset: lead}
+  }
+  return {ok: true, value, prefix, unit: symbol, rkm: num.rkm}
+}
+
+/**
+ * Parse one quantity of dimension `dim` to SI (DESIGN §3.1). A bare number is read in the
+ * dimension's natural unit (Ω, F, V, A, Hz, °C, V/√Hz, A/√Hz, V/K, dB, fraction, 1/K, °, V/s).
+ * @param text
+ *   The value as written, e.g. `49.9 kΩ`, `4k7`, `130 dB`.
+ * @returns
+ *   The SI value, or a message and the 0-based offset in `text` of the problem.
+ */
+export function parseQuantity(text: string, dim: Dimension, options: QuantityOptions = {}): QuantityResult {
+  const r = readQuantity(text, dim, options)
+  return r.ok ? {ok: true, value: r.value} : r
+}
