@@ -1,68 +1,122 @@
 /**
- * Command-line arguments: the command, its notes and its options. Unknown options are
- * errors with a hint, never ignored.
+ * Command-line arguments: the command, its operands and its options. Unknown options and
+ * options that do not go with the command are errors with a hint, never ignored.
  */
 import {parseArgs} from 'node:util'
+import {TOPOLOGIES, type Topology} from '../engine/types.js'
+import {FORMATS, type Format} from './formats.js'
 
-export const COMMANDS = ['build', 'check'] as const
+export const COMMANDS = ['build', 'check', 'compare', 'new'] as const
 export type Command = (typeof COMMANDS)[number]
 
 export interface CliArgs {
   command: Command | 'help' | 'version'
-  notes: string[]
+  /** Notes, folders or globs (build, check); the two sides (compare); the file (new). */
+  operands: string[]
   out: string | null
   json: boolean
-  debug: boolean
+  formats: Format[]
+  force: boolean
+  quiet: boolean
+  watch: boolean
+  /** Worker threads; null = one per core. */
+  jobs: number | null
+  markdown: boolean
+  topology: Topology
   strict: boolean
+  debug: boolean
 }
 
 export class UsageError extends Error {}
 
 export const USAGE = `Usage:
-  ampreview build NOTE… [--out DIR]    evaluate each note and write its PDF report
-  ampreview check NOTE… [--json]       evaluate and print diagnostics; no PDF
+  ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch]
+  ampreview check NOTE… [--json]
+  ampreview compare OLD NEW [--markdown]
+  ampreview new FILE [--topology noninverting|inverting|follower|transimpedance]
   ampreview --help | --version
 
-NOTE is a Markdown file, or a folder (every *.md directly inside it).
+NOTE is a Markdown file, a folder (every *.md inside it, sorted) or a glob ('designs/**/*.md').
+OLD and NEW are each a --json result file, a note, or REV:PATH (a note at a git revision).
 
 Options:
-  --out DIR    write PDFs into DIR instead of next to each note
-  --json       (check) print one JSON object on stdout; diagnostics also go to stderr
-  --strict     treat warnings as errors
-  --debug      print stack traces of internal errors
+  --out DIR      write outputs into DIR instead of next to each note
+  --format LIST  build outputs, comma-separated: pdf (default), json, md (Markdown + SVG charts)
+  --force        rebuild notes even when their outputs are up to date
+  --watch        keep running and rebuild a note each time it is saved
+  --jobs N       worker threads for a batch (default: one per core)
+  --json         check: print one JSON object on stdout; diagnostics also go to stderr
+  --markdown     compare: print the comparison as Markdown (for a CI comment)
+  --topology T   new: the stage topology of the starting note (default noninverting)
+  --quiet        print only diagnostics
+  --strict       treat warnings as errors
+  --debug        print stack traces of internal errors
 
-Exit codes: 0 all requirements met; 1 a requirement not met; 2 a note could not be evaluated.`
+Exit codes: 0 all requirements met; 1 a requirement not met (compare: a verdict went from
+met to not met); 2 a note could not be evaluated or the command was wrong.`
+
+const only = (cmd: Command, option: string, allowed: Command[]): void => {
+  if (!allowed.includes(cmd)) throw new UsageError(`\`${option}\` goes with ${allowed.map((c) => `\`${c}\``).join(' or ')}, not \`${cmd}\``)
+}
+
+function parseFormats(list: string): Format[] {
+  const parts = list.split(',').map((s) => s.trim()).filter((s) => s !== '')
+  for (const p of parts) {
+    if (!(FORMATS as readonly string[]).includes(p)) throw new UsageError(`Unexpected format \`${p}\`, expected ${FORMATS.join(', ')}`)
+  }
+  if (parts.length === 0) throw new UsageError('Expected at least one format after `--format`')
+  return FORMATS.filter((f) => parts.includes(f))
+}
 
 export function parseCliArgs(argv: string[]): CliArgs {
   let parsed
   try {
     parsed = parseArgs({
-      args: argv,
-      allowPositionals: true,
-      strict: true,
+      args: argv, allowPositionals: true, strict: true,
       options: {
-        out: {type: 'string'},
-        json: {type: 'boolean', default: false},
-        debug: {type: 'boolean', default: false},
-        strict: {type: 'boolean', default: false},
-        help: {type: 'boolean', short: 'h', default: false},
-        version: {type: 'boolean', short: 'v', default: false}
+        out: {type: 'string'}, format: {type: 'string'}, jobs: {type: 'string'}, topology: {type: 'string'},
+        json: {type: 'boolean'}, force: {type: 'boolean'}, quiet: {type: 'boolean', short: 'q'}, watch: {type: 'boolean'},
+        markdown: {type: 'boolean'}, strict: {type: 'boolean'}, debug: {type: 'boolean'},
+        help: {type: 'boolean', short: 'h'}, version: {type: 'boolean', short: 'v'}
       }
     })
   } catch (error) {
     throw new UsageError(error instanceof Error ? error.message : String(error))
   }
-  const {values, positionals} = parsed
-  const base = {out: values.out ?? null, json: values.json ?? false, debug: values.debug ?? false, strict: values.strict ?? false}
-  if (values.help) return {command: 'help', notes: [], ...base}
-  if (values.version) return {command: 'version', notes: [], ...base}
-  const [command, ...notes] = positionals
-  if (command === undefined) throw new UsageError('Expected a command, `build` or `check`')
-  if (!(COMMANDS as readonly string[]).includes(command)) {
-    throw new UsageError(`Unexpected command \`${command}\`, expected \`build\` or \`check\``)
+  const {values: v, positionals} = parsed
+  const [first, ...operands] = positionals
+  const command: CliArgs['command'] = v.help ? 'help' : v.version ? 'version' : (first as Command)
+  const args: CliArgs = {
+    command, operands, out: v.out ?? null, json: v.json ?? false, formats: ['pdf'], force: v.force ?? false,
+    quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false,
+    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false
   }
-  if (notes.length === 0) throw new UsageError(`Expected at least one NOTE after \`${command}\``)
-  if (command === 'check' && base.out !== null) throw new UsageError('`--out` goes with `build`, not `check`')
-  if (command === 'build' && base.json) throw new UsageError('`--json` goes with `check`, not `build`')
-  return {command: command as Command, notes, ...base}
+  if (command === 'help' || command === 'version') return args
+  if (first === undefined) throw new UsageError('Expected a command: build, check, compare or new')
+  if (!(COMMANDS as readonly string[]).includes(first)) {
+    throw new UsageError(`Unexpected command \`${first}\`, expected one of ${COMMANDS.join(', ')}`)
+  }
+  const cmd = first as Command
+  if (v.out !== undefined) only(cmd, '--out', ['build'])
+  if (v.format !== undefined) { only(cmd, '--format', ['build']); args.formats = parseFormats(v.format) }
+  if (v.force) only(cmd, '--force', ['build'])
+  if (v.watch) only(cmd, '--watch', ['build'])
+  if (v.json) only(cmd, '--json', ['check'])
+  if (v.markdown) only(cmd, '--markdown', ['compare'])
+  if (v.jobs !== undefined) {
+    only(cmd, '--jobs', ['build', 'check'])
+    if (!/^[1-9]\d*$/.test(v.jobs)) throw new UsageError(`Unexpected \`--jobs ${v.jobs}\`, expected a whole number ≥ 1`)
+    args.jobs = Number(v.jobs)
+  }
+  if (v.topology !== undefined) {
+    only(cmd, '--topology', ['new'])
+    if (!(TOPOLOGIES as readonly string[]).includes(v.topology)) {
+      throw new UsageError(`Unexpected topology \`${v.topology}\`, expected one of ${TOPOLOGIES.join(', ')}`)
+    }
+    args.topology = v.topology as Topology
+  }
+  if ((cmd === 'build' || cmd === 'check') && operands.length === 0) throw new UsageError(`Expected at least one NOTE after \`${cmd}\``)
+  if (cmd === 'compare' && operands.length !== 2) throw new UsageError('Expected two operands after `compare`: OLD NEW')
+  if (cmd === 'new' && operands.length !== 1) throw new UsageError('Expected one FILE after `new`')
+  return args
 }

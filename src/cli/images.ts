@@ -28,7 +28,7 @@ export async function readImages(tree: Root, notePath: string, file: VFile): Pro
   collect(tree.children, nodes)
   const images = new Map<string, Uint8Array>()
   const dir = await realpath(dirname(resolve(notePath)))
-  const refuse = (url: string, why: string, node: RootContent): void => {
+  const refuse = (url: string, why: string, node: Extract<RootContent, {type: 'image'}>): void => {
     file.message(`Image \`${url}\` not included: ${why}`, {place: node.position, ruleId: 'image-refused', source: 'ampreview'})
   }
   for (const node of nodes) {

@@ -1,83 +1,79 @@
 #!/usr/bin/env node
 /**
- * The `ampreview` command: arguments, the notes to process, output to stdout/stderr and
- * the exit code (the highest of the notes': 0 met, 1 not met, 2 not evaluated).
- * No stack trace unless --debug.
+ * The `ampreview` command: arguments, the notes to process, output (results on stdout,
+ * diagnostics and progress on stderr) and the exit code — the highest of the notes':
+ * 0 met, 1 not met, 2 not evaluated. No stack trace unless --debug.
  */
-import {readdir, stat} from 'node:fs/promises'
-import {join} from 'node:path'
 import {parseCliArgs, USAGE, UsageError, type CliArgs} from './args.js'
-import {formatDiagnostic} from './diagnostics.js'
-import {jsonStage, toJson} from '../report/json.js'
-import {processNote, type NoteOutcome, type Resources} from './pipeline.js'
-import {loadFonts, toolVersion} from './resources.js'
+import {runBatch} from './batch.js'
+import {CompareInputError, compareCommand} from './compare.js'
+import {expandNotes} from './inputs.js'
+import {noteJson, type Resources, type RunOptions} from './pipeline.js'
+import {Progress, useColor} from './progress.js'
+import {lazyFonts, templatesHash, toolVersion} from './resources.js'
+import {scaffoldNote} from './scaffold.js'
+import {summaryTable} from './summary.js'
+import {watchNotes} from './watch.js'
+import {toJson} from '../report/json.js'
 
-/** Files as given; a folder stands for the *.md files directly inside it, sorted. */
-async function expandNotes(args: string[]): Promise<string[]> {
-  const out: string[] = []
-  for (const a of args) {
-    const s = await stat(a).catch(() => null)
-    if (s?.isDirectory()) {
-      const names = (await readdir(a)).filter((n) => n.toLowerCase().endsWith('.md')).sort()
-      out.push(...names.map((n) => join(a, n)))
-    } else {
-      out.push(a)
-    }
-  }
-  return out
-}
+const out = (s: string): void => { process.stdout.write(s) }
+const err = (s: string): void => { process.stderr.write(s) }
 
-async function run(args: CliArgs): Promise<number> {
+async function run(args: CliArgs, abort: AbortController): Promise<number> {
   const version = await toolVersion()
-  if (args.command === 'help') { process.stdout.write(`${USAGE}\n`); return 0 }
-  if (args.command === 'version') { process.stdout.write(`ampreview ${version}\n`); return 0 }
-  const res: Resources = {fonts: await loadFonts(), version, templates: new Map()}
-  const notes = await expandNotes(args.notes)
-  if (notes.length === 0) { process.stderr.write('ampreview: no notes found (a folder needs *.md files)\n'); return 2 }
-  const outcomes: NoteOutcome[] = []
-  for (const note of notes) {
-    const o = await processNote(note, res, {
-      pdf: args.command === 'build', outDir: args.out, strict: args.strict, sourceDateEpoch: process.env['SOURCE_DATE_EPOCH']
-    }).catch((error: unknown): NoteOutcome => {
-      if (args.debug && error instanceof Error && error.stack) process.stderr.write(`${error.stack}\n`)
-      return {file: note, sourceSha256: '', evaluations: [], exitCode: 2, output: null,
-        diagnostics: [{severity: 'error', message: `internal error: ${error instanceof Error ? error.message : String(error)}`, line: 1, column: 1}]}
-    })
-    outcomes.push(o)
-    for (const d of o.diagnostics) process.stderr.write(`${formatDiagnostic(o.file, d)}\n`)
-    if (args.command === 'build') {
-      process.stdout.write(o.output !== null ? `${o.output}\n` : '')
-      if (o.output === null) process.stderr.write(`${o.file}: no PDF written (errors above)\n`)
-    }
+  if (args.command === 'help') { out(`${USAGE}\n`); return 0 }
+  if (args.command === 'version') { out(`ampreview ${version}\n`); return 0 }
+  if (args.command === 'new') {
+    out(`${await scaffoldNote(args.operands[0]!, args.topology)}\n`)
+    return 0
   }
+  const res: Resources = {fonts: lazyFonts(), version, templates: new Map()}
+  if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out)
+
+  const notes = await expandNotes(args.operands)
+  const runOpts: RunOptions = {
+    formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict,
+    sourceDateEpoch: process.env['SOURCE_DATE_EPOCH']
+  }
+  if (args.watch) {
+    await watchNotes(notes, res, runOpts, {out, err}, abort.signal)
+    return 0
+  }
+  const tty = process.stderr.isTTY === true
+  const color = useColor(tty, process.env)
+  const progress = new Progress(notes.length, {tty, color, quiet: args.quiet || args.json, write: err})
+  const items = await runBatch(notes, res, {
+    run: runOpts, force: args.force, jobs: args.jobs, templateHash: await templatesHash(), progress, writeErr: err,
+    interrupted: () => abort.signal.aborted
+  })
   if (args.json) {
-    process.stdout.write(`${toJson({
-      files: outcomes.map((o) => ({
-        file: o.file, sourceSha256: o.sourceSha256,
-        diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
-        stages: o.evaluations.map(jsonStage)
-      }))
-    })}\n`)
-  } else if (args.command === 'check') {
-    for (const o of outcomes) {
-      const verdict = o.exitCode === 2 ? 'not evaluated' : o.exitCode === 1 ? 'requirement not met' : 'all requirements met'
-      process.stdout.write(`${o.file}: ${o.evaluations.length} stage(s), ${verdict}\n`)
-    }
+    out(`${toJson({files: items.map((it) => noteJson(it.outcome))})}\n`)
+  } else if (!args.quiet) {
+    out(summaryTable(items, useColor(process.stdout.isTTY === true, process.env), process.cwd()))
   }
-  return Math.max(0, ...outcomes.map((o) => o.exitCode))
+  const code = Math.max(0, ...items.map((it) => it.outcome.exitCode))
+  return abort.signal.aborted ? Math.max(code, 130) : code
 }
 
 const argv = process.argv.slice(2)
 const debug = argv.includes('--debug')
+const abort = new AbortController()
+// First Ctrl-C: finish the notes under way (no partial files), start no more. Second: leave now.
+process.on('SIGINT', () => {
+  if (abort.signal.aborted) process.exit(130)
+  abort.abort()
+  err('\nampreview: interrupted; finishing the notes under way (Ctrl-C again to stop at once)\n')
+})
 try {
-  process.exitCode = await run(parseCliArgs(argv))
+  process.exitCode = await run(parseCliArgs(argv), abort)
 } catch (error) {
   if (error instanceof UsageError) {
-    process.stderr.write(`ampreview: ${error.message}\n\n${USAGE}\n`)
-    process.exitCode = 2
+    err(`ampreview: ${error.message}\n\n${USAGE}\n`)
+  } else if (error instanceof CompareInputError) {
+    err(`ampreview: ${error.message}\n`)
   } else {
-    process.stderr.write(`ampreview: internal error: ${error instanceof Error ? error.message : String(error)}\n`)
-    if (debug && error instanceof Error && error.stack) process.stderr.write(`${error.stack}\n`)
-    process.exitCode = 2
+    err(`ampreview: ${error instanceof Error ? error.message : String(error)}\n`)
+    if (debug && error instanceof Error && error.stack) err(`${error.stack}\n`)
   }
+  process.exitCode = 2
 }

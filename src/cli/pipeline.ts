@@ -14,8 +14,10 @@ import {basename, dirname, extname, join, resolve} from 'node:path'
 import {VFile} from 'vfile'
 import {parseNote} from '../note/index.js'
 import {evaluateNote, type StageEvaluation} from '../report/evaluate.js'
-import {buildReport} from '../report/build.js'
-import {renderPdf, type FontSet} from '../render/index.js'
+import {jsonStage, toJson, type JsonStage} from '../report/json.js'
+import type {FontSet} from '../render/index.js'
+import {REQUIREMENT_KEYS} from '../engine/types.js'
+import {requirementValue} from '../report/verdicts.js'
 import {reportDate} from './dates.js'
 import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
 import {readImages} from './images.js'
@@ -23,15 +25,19 @@ import {loadTemplate, type Template} from './resources.js'
 import {writeAtomic} from './write.js'
 
 export interface Resources {
-  fonts: FontSet
+  /** The fonts, loaded once on first use (only builds need them). */
+  fonts: () => Promise<FontSet>
   version: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
 }
 
+import type {Format} from './formats.js'
+export {FORMATS, type Format} from './formats.js'
+
 export interface RunOptions {
-  /** Write the PDF (build) or only evaluate (check). */
-  pdf: boolean
+  /** Formats to write (build); empty = only evaluate (check). */
+  formats: readonly Format[]
   /** Output folder; null = next to the note. */
   outDir: string | null
   /** Treat warnings as errors. */
@@ -44,19 +50,33 @@ export interface NoteOutcome {
   file: string
   sourceSha256: string
   diagnostics: Diagnostic[]
-  evaluations: StageEvaluation[]
+  /** The DESIGN §6 result of each evaluated stage. */
+  stages: JsonStage[]
+  /** Requirements met and not met, over all stages. */
+  met: number
+  notMet: number
   /** 0 all met, 1 a requirement not met, 2 could not be evaluated. */
   exitCode: 0 | 1 | 2
-  /** Path of the PDF written, if any. */
-  output: string | null
+  /** Paths of the files written (absolute), if any. */
+  outputs: string[]
 }
 
-const fail = (file: string, message: string, sha = ''): NoteOutcome => ({
-  file, sourceSha256: sha, diagnostics: [{severity: 'error', message, line: 1, column: 1}], evaluations: [], exitCode: 2, output: null
+export const failedOutcome = (file: string, message: string, sha = ''): NoteOutcome => ({
+  file, sourceSha256: sha, diagnostics: [{severity: 'error', message, line: 1, column: 1}], stages: [], met: 0, notMet: 0, exitCode: 2, outputs: []
 })
+const fail = failedOutcome
 
-export const outputPath = (notePath: string, outDir: string | null): string =>
-  join(outDir ?? dirname(notePath), `${basename(notePath, extname(notePath))}.pdf`)
+/** The output file of a note in one format: `<outDir or the note's folder>/<name>.<ext>`. */
+export const outputPath = (notePath: string, outDir: string | null, ext: string): string =>
+  join(outDir ?? dirname(resolve(notePath)), `${basename(notePath, extname(notePath))}.${ext}`)
+
+/** The §6 JSON object of one note. */
+export const noteJson = (o: Pick<NoteOutcome, 'file' | 'sourceSha256' | 'diagnostics' | 'stages'>): object => ({
+  file: o.file,
+  sourceSha256: o.sourceSha256,
+  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
+  stages: o.stages
+})
 
 async function templateFor(name: string, res: Resources): Promise<Template> {
   const known = res.templates.get(name)
@@ -72,7 +92,9 @@ function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
     for (const r of ev.result.requirements) {
       if (r.met) continue
       const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
-      file.message(`Requirement \`${r.key}\` of stage \`${ev.input.id}\` not met: value ${r.value ?? 'none'}, limit ${r.limit} (SI units)`,
+      const t = ev.input.topology
+      const sense = REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
+      file.message(`Requirement \`${r.key}\` of stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${sense} ${requirementValue(r, 'limit', t)}`,
         {place: entry ? {line: entry.line, column: entry.column} : ev.block.position?.start, ruleId: 'requirement-not-met', source: 'ampreview'})
     }
   }
@@ -110,28 +132,51 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
   // 3. Evaluate: engine and rules, per stage.
   const evaluations = evaluateNote(parsed, file)
   markUnmet(file, evaluations)
-  const images = opts.pdf ? await readImages(parsed.tree, path, file) : new Map<string, Uint8Array>()
+  const wantPdf = opts.formats.includes('pdf')
+  const images = wantPdf ? await readImages(parsed.tree, path, file) : new Map<string, Uint8Array>()
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') ? {...d, severity: 'error'} : d))
-  const unmet = evaluations.some((ev) => ev.result.requirements.some((r) => !r.met))
-  const exitCode = hasErrors(diagnostics) || template === null ? 2 : unmet ? 1 : 0
-  const outcome: NoteOutcome = {file: path, sourceSha256: sha, diagnostics, evaluations, exitCode, output: null}
-  if (!opts.pdf || exitCode === 2 || template === null) return outcome
+  const requirements = evaluations.flatMap((ev) => ev.result.requirements)
+  const notMet = requirements.filter((r) => !r.met).length
+  const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
+  const outcome: NoteOutcome = {
+    file: path, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
+    met: requirements.length - notMet, notMet, exitCode, outputs: []
+  }
+  if (opts.formats.length === 0 || exitCode === 2 || template === null) return outcome
 
-  // 4. Report: the tree with each block replaced by its section.
+  // 4. Report: the tree with each block replaced by its section. The report and render
+  //    modules (vega, pdfkit) load only when something is to be written, keeping `check` fast.
+  const [{buildReport}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
+    import('../report/build.js'), import('../render/index.js'), import('../report/markdown.js'), res.fonts()
+  ])
   const report = await buildReport({
-    parsed, evaluations, fonts: {regular: res.fonts.regular, bold: res.fonts.bold},
+    parsed, evaluations, fonts: {regular: fonts.regular, bold: fonts.bold},
     fragments: {method: template.method, closing: template.closing},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(path)
   })
 
-  // 5. Render and write atomically.
-  const rendered = await renderPdf(report.document, {
-    theme: template.theme, fonts: res.fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
-  })
-  const warnings = [...report.warnings, ...rendered.warnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
-  const target = outputPath(resolve(path), opts.outDir === null ? null : resolve(opts.outDir))
-  await writeAtomic(target, rendered.pdf)
-  return {...outcome, diagnostics: [...diagnostics, ...warnings], output: target}
+  // 5. Render, then write every format atomically (all rendered before any is written).
+  const outDir = opts.outDir === null ? null : resolve(opts.outDir)
+  const files: [string, Uint8Array | string][] = []
+  let renderWarnings: string[] = []
+  if (wantPdf) {
+    const rendered = await renderPdf(report.document, {
+      theme: template.theme, fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
+    })
+    renderWarnings = rendered.warnings
+    files.push([outputPath(path, outDir, 'pdf'), rendered.pdf])
+  }
+  const warnings = [...report.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
+  const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
+  if (opts.formats.includes('json')) files.push([outputPath(path, outDir, 'json'), `${toJson({files: [noteJson(final)]})}\n`])
+  if (opts.formats.includes('md')) {
+    const stem = basename(path, extname(path))
+    const md = reportToMarkdown(report.document, (n) => `${stem}.fig${n}.svg`)
+    const mdPath = outputPath(path, outDir, 'md')
+    files.push([mdPath, md.markdown], ...md.figures.map((f): [string, string] => [join(dirname(mdPath), f.name), f.svg]))
+  }
+  for (const [target, data] of files) await writeAtomic(target, data)
+  return {...final, outputs: files.map(([p]) => p)}
 }

@@ -3,7 +3,8 @@
  * (from the dejavu-fonts-ttf package, embedded in every PDF), and a template's theme and
  * text fragments. Read once per run and passed down as values.
  */
-import {readFile} from 'node:fs/promises'
+import {createHash} from 'node:crypto'
+import {readdir, readFile} from 'node:fs/promises'
 import {createRequire} from 'node:module'
 import {dirname, join} from 'node:path'
 import {fileURLToPath} from 'node:url'
@@ -11,7 +12,8 @@ import type {Root} from 'mdast'
 import {unified} from 'unified'
 import remarkParse from 'remark-parse'
 import remarkGfm from 'remark-gfm'
-import {parseTheme, type FontSet, type Theme} from '../render/index.js'
+import type {FontSet, Theme} from '../render/index.js'
+import {parseTheme} from '../render/theme.js'
 
 /** The package root: two levels above this file, in src/ and in dist/ alike. */
 export const PACKAGE_ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..')
@@ -28,6 +30,12 @@ const FONT_FILES: Record<keyof FontSet, string> = {
   boldItalic: 'DejaVuSans-BoldOblique.ttf',
   mono: 'DejaVuSansMono.ttf',
   monoBold: 'DejaVuSansMono-Bold.ttf'
+}
+
+/** A loader that reads the fonts on its first call and returns the same set afterwards. */
+export function lazyFonts(): () => Promise<FontSet> {
+  let fonts: Promise<FontSet> | null = null
+  return () => (fonts ??= loadFonts())
 }
 
 export async function loadFonts(): Promise<FontSet> {
@@ -71,4 +79,16 @@ export async function loadTemplate(name: string): Promise<Template> {
   const method = parseMarkdown(await read('method.md'))
   const closing = parseMarkdown(`${await read('signoff.md')}\n\n${await read('closing.md')}`)
   return {name, theme, method, closing}
+}
+
+/** Hash of every file under templates/ (names and bytes, sorted): part of each build's cache key. */
+export async function templatesHash(): Promise<string> {
+  const root = join(PACKAGE_ROOT, 'templates')
+  const files = (await readdir(root, {recursive: true, withFileTypes: true}))
+    .filter((d) => d.isFile())
+    .map((d) => join(d.parentPath, d.name))
+    .sort()
+  const h = createHash('sha256')
+  for (const f of files) h.update(f.slice(root.length)).update('\0').update(await readFile(f)).update('\0')
+  return h.digest('hex')
 }

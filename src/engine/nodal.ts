@@ -21,26 +21,32 @@
 import {openLoopGainInto} from './opamp-model.js'
 import type {Netlist} from './netlist.js'
 
+/** One mode's system, split as M(f) = G + jωC and b(f) = g + jωc, stamped once per netlist. */
+interface ModeSystem {
+  n: number
+  /** Node → unknown index, −1 when the node's voltage is fixed. */
+  index: Int32Array
+  g: Float64Array
+  c: Float64Array
+  rhsG: Float64Array
+  rhsC: Float64Array
+}
+
 /** Preallocated state for repeated solves of one netlist. */
 export interface NodalWorkspace {
   readonly net: Netlist
-  /** Element arrays (capacitor values may be changed in place through `setCapacitance`). */
-  readonly kind: Uint8Array
-  readonly ea: Int32Array
-  readonly eb: Int32Array
+  /** Element values (S or F), in netlist order; change capacitors through `setCapacitance`. */
   readonly value: Float64Array
-  /** Closed mode: node → unknown index, −1 when fixed (ground, voltage-driven source). */
-  readonly closedIndex: Int32Array
-  readonly closedCount: number
-  /** Loop mode: node → unknown index, −1 when fixed (ground, source, output). */
-  readonly loopIndex: Int32Array
-  readonly loopCount: number
+  /** Closed mode, stored transposed (only Mᵀ is ever solved); rhs = the signal drive. */
+  readonly closed: ModeSystem
+  /** Loop mode; rhs = the 1 V test source at the output. */
+  readonly loop: ModeSystem
   readonly mre: Float64Array
   readonly mim: Float64Array
   readonly bre: Float64Array
   readonly bim: Float64Array
   readonly scale: Float64Array
-  /** Closed mode result: adjoint vector y (length closedCount). */
+  /** Closed mode result: adjoint vector y, indexed by `closed.index`. */
   readonly yre: Float64Array
   readonly yim: Float64Array
   /** A(f) of the last solve: [re, im]. */
@@ -53,30 +59,79 @@ export interface NodalWorkspace {
   tim: number
 }
 
-/** Allocate a workspace for a netlist. */
+function emptySystem(index: Int32Array, n: number): ModeSystem {
+  return {n, index, g: new Float64Array(n * n), c: new Float64Array(n * n), rhsG: new Float64Array(n), rhsC: new Float64Array(n)}
+}
+
+/**
+ * Stamp the element admittances of one mode (nodal analysis: +Y on both diagonals, −Y off
+ * the diagonal; a neighbour at a fixed voltage moves Y·V to the right-hand side).
+ * `skipRow` is a row that is not KCL (the op-amp's source equation), `fixedNode` the node
+ * held at 1 V for the right-hand side, `transposed` stores Mᵀ.
+ */
+function stampElements(ws: NodalWorkspace, sys: ModeSystem, skipRow: number, fixedNode: number, transposed: boolean): void {
+  const {n, index, g, c, rhsG, rhsC} = sys
+  g.fill(0)
+  c.fill(0)
+  rhsG.fill(0)
+  rhsC.fill(0)
+  ws.net.elements.forEach((e, k) => {
+    const m = e.kind === 'g' ? g : c
+    const rhs = e.kind === 'g' ? rhsG : rhsC
+    const y = ws.value[k]
+    const ends: [number, number][] = [[e.a, e.b], [e.b, e.a]]
+    for (const [self, other] of ends) {
+      const i = index[self]
+      if (i < 0 || i === skipRow) continue
+      const j = index[other]
+      m[i * n + i] += y
+      if (j >= 0) m[transposed ? j * n + i : i * n + j] -= y
+      else if (other === fixedNode) rhs[i] += y
+    }
+  })
+}
+
+/** Restamp both modes after a value change. */
+function stampAll(ws: NodalWorkspace): void {
+  const net = ws.net
+  const cl = ws.closed
+  const io = cl.index[net.out]
+  const src = net.drive.kind === 'voltage' ? net.drive.node : -1
+  stampElements(ws, cl, io, src, true)
+  // Source equation row (Vo/A − V+ + V− = en): the ±1 entries are constant, 1/A is added per
+  // frequency. Stored transposed, so row io's entries go down column io.
+  const n = cl.n
+  const ip = cl.index[net.plus]
+  const im = cl.index[net.minus]
+  if (ip >= 0) cl.g[ip * n + io] -= 1
+  else if (net.plus === src) cl.rhsG[io] += 1
+  if (im >= 0) cl.g[im * n + io] += 1
+  else if (net.minus === src) cl.rhsG[io] -= 1
+  if (net.drive.kind === 'current') {
+    const id = cl.index[net.drive.node]
+    if (id >= 0 && id !== io) cl.rhsG[id] += 1
+  }
+  stampElements(ws, ws.loop, -1, net.out, false)
+}
+
+/** Allocate a workspace for a netlist and stamp its constant parts. */
 export function createWorkspace(net: Netlist): NodalWorkspace {
-  const n = net.nodeCount
-  const closedIndex = new Int32Array(n).fill(-1)
-  const loopIndex = new Int32Array(n).fill(-1)
+  const nodes = net.nodeCount
+  const closedIndex = new Int32Array(nodes).fill(-1)
+  const loopIndex = new Int32Array(nodes).fill(-1)
   let closedCount = 0
   let loopCount = 0
   const voltageNode = net.drive.kind === 'voltage' ? net.drive.node : -1
-  for (let i = 1; i < n; i++) {
+  for (let i = 1; i < nodes; i++) {
     if (i !== voltageNode) closedIndex[i] = closedCount++
     if (i !== voltageNode && i !== net.out) loopIndex[i] = loopCount++
   }
   const size = Math.max(closedCount, 1)
-  const els = net.elements
-  return {
+  const ws: NodalWorkspace = {
     net,
-    kind: Uint8Array.from(els, (e) => (e.kind === 'g' ? 0 : 1)),
-    ea: Int32Array.from(els, (e) => e.a),
-    eb: Int32Array.from(els, (e) => e.b),
-    value: Float64Array.from(els, (e) => e.value),
-    closedIndex,
-    closedCount,
-    loopIndex,
-    loopCount,
+    value: Float64Array.from(net.elements, (e) => e.value),
+    closed: emptySystem(closedIndex, closedCount),
+    loop: emptySystem(loopIndex, loopCount),
     mre: new Float64Array(size * size),
     mim: new Float64Array(size * size),
     bre: new Float64Array(size),
@@ -90,6 +145,8 @@ export function createWorkspace(net: Netlist): NodalWorkspace {
     tre: 0,
     tim: 0
   }
+  stampAll(ws)
+  return ws
 }
 
 /** Change the capacitance of every element with this label, F (used by the Cf search). */
@@ -97,6 +154,21 @@ export function setCapacitance(ws: NodalWorkspace, label: string, farads: number
   ws.net.elements.forEach((e, i) => {
     if (e.label === label && e.kind === 'c') ws.value[i] = farads
   })
+  stampAll(ws)
+}
+
+/** Fill mre/mim with G + jωC and bre/bim with g + jωc of a mode. */
+function load(ws: NodalWorkspace, sys: ModeSystem, w: number): void {
+  const {mre, mim, bre, bim} = ws
+  const {n, g, c, rhsG, rhsC} = sys
+  for (let i = 0; i < n * n; i++) {
+    mre[i] = g[i]
+    mim[i] = w * c[i]
+  }
+  for (let i = 0; i < n; i++) {
+    bre[i] = rhsG[i]
+    bim[i] = w * rhsC[i]
+  }
 }
 
 /**
@@ -105,75 +177,24 @@ export function setCapacitance(ws: NodalWorkspace, label: string, farads: number
  * the signal transfer (V/V, or V/A for a current drive).
  */
 export function solveClosed(ws: NodalWorkspace, f: number): void {
-  const n = ws.closedCount
-  const idx = ws.closedIndex
-  const {mre, mim, bre, bim} = ws
-  const net = ws.net
-  const w = 2 * Math.PI * f
-  const io = idx[net.out]
-  const src = net.drive.kind === 'voltage' ? net.drive.node : -1
-  mre.fill(0, 0, n * n)
-  mim.fill(0, 0, n * n)
-  bre.fill(0, 0, n)
-  bim.fill(0, 0, n)
-  // Stamp admittances into KCL rows (the output row is the source equation, not KCL).
-  // Signal RHS of the driven source goes into bre/bim; it is dotted with y after the solve.
-  for (let e = 0; e < ws.value.length; e++) {
-    const yr = ws.kind[e] === 0 ? ws.value[e] : 0
-    const yi = ws.kind[e] === 0 ? 0 : w * ws.value[e]
-    const a = ws.ea[e]
-    const b = ws.eb[e]
-    const ia = idx[a]
-    const ib = idx[b]
-    if (ia >= 0 && ia !== io) {
-      mre[ia * n + ia] += yr
-      mim[ia * n + ia] += yi
-      if (ib >= 0) {
-        mre[ia * n + ib] -= yr
-        mim[ia * n + ib] -= yi
-      } else if (b === src) {
-        bre[ia] += yr
-        bim[ia] += yi
-      }
-    }
-    if (ib >= 0 && ib !== io) {
-      mre[ib * n + ib] += yr
-      mim[ib * n + ib] += yi
-      if (ia >= 0) {
-        mre[ib * n + ia] -= yr
-        mim[ib * n + ia] -= yi
-      } else if (a === src) {
-        bre[ib] += yr
-        bim[ib] += yi
-      }
-    }
-  }
-  // Source equation: Vo/A − V+ + V− = en.
-  openLoopGainInto(net.opamp, f, ws.a)
+  const sys = ws.closed
+  const n = sys.n
+  const io = sys.index[ws.net.out]
+  const {mre, mim, bre, bim, yre, yim} = ws
+  load(ws, sys, 2 * Math.PI * f)
+  openLoopGainInto(ws.net.opamp, f, ws.a)
   const ar = ws.a[0]
   const ai = ws.a[1]
   const ad = ar * ar + ai * ai
   mre[io * n + io] += ar / ad
-  mim[io * n + io] += -ai / ad
-  const ip = idx[net.plus]
-  const im = idx[net.minus]
-  if (ip >= 0) mre[io * n + ip] -= 1
-  else if (net.plus === src) bre[io] += 1
-  if (im >= 0) mre[io * n + im] += 1
-  else if (net.minus === src) bre[io] -= 1
-  if (net.drive.kind === 'current') {
-    const id = idx[net.drive.node]
-    if (id >= 0 && id !== io) bre[id] += 1
-  }
-  // Keep the signal RHS in y's buffers while the matrix is transposed and solved.
-  const {yre, yim} = ws
+  mim[io * n + io] -= ai / ad
+  // Keep the signal RHS in y's buffers; solve Mᵀ·y = e_out in b's.
   for (let i = 0; i < n; i++) {
     yre[i] = bre[i]
     yim[i] = bim[i]
+    bre[i] = 0
+    bim[i] = 0
   }
-  transposeInPlace(n, mre, mim)
-  bre.fill(0, 0, n)
-  bim.fill(0, 0, n)
   bre[io] = 1
   solveInPlace(n, mre, mim, bre, bim, ws.scale)
   let hr = 0
@@ -190,51 +211,17 @@ export function solveClosed(ws: NodalWorkspace, f: number): void {
 
 /** Loop-gain solve at f: the output source replaced by a 1 V test source; fills ws.tre/ws.tim. */
 export function solveLoop(ws: NodalWorkspace, f: number): void {
-  const n = ws.loopCount
-  const idx = ws.loopIndex
-  const {mre, mim, bre, bim} = ws
+  const sys = ws.loop
+  const n = sys.n
   const net = ws.net
-  const w = 2 * Math.PI * f
+  load(ws, sys, 2 * Math.PI * f)
+  if (n > 0) solveInPlace(n, ws.mre, ws.mim, ws.bre, ws.bim, ws.scale)
+  const idx = sys.index
   const out = net.out
-  mre.fill(0, 0, n * n)
-  mim.fill(0, 0, n * n)
-  bre.fill(0, 0, n)
-  bim.fill(0, 0, n)
-  for (let e = 0; e < ws.value.length; e++) {
-    const yr = ws.kind[e] === 0 ? ws.value[e] : 0
-    const yi = ws.kind[e] === 0 ? 0 : w * ws.value[e]
-    const a = ws.ea[e]
-    const b = ws.eb[e]
-    const ia = idx[a]
-    const ib = idx[b]
-    if (ia >= 0) {
-      mre[ia * n + ia] += yr
-      mim[ia * n + ia] += yi
-      if (ib >= 0) {
-        mre[ia * n + ib] -= yr
-        mim[ia * n + ib] -= yi
-      } else if (b === out) {
-        bre[ia] += yr
-        bim[ia] += yi
-      }
-    }
-    if (ib >= 0) {
-      mre[ib * n + ib] += yr
-      mim[ib * n + ib] += yi
-      if (ia >= 0) {
-        mre[ib * n + ia] -= yr
-        mim[ib * n + ia] -= yi
-      } else if (a === out) {
-        bre[ib] += yr
-        bim[ib] += yi
-      }
-    }
-  }
-  if (n > 0) solveInPlace(n, mre, mim, bre, bim, ws.scale)
-  const vpr = voltageOf(net.plus, idx, out, bre)
-  const vpi = voltageOf(net.plus, idx, out, bim, 0)
-  const vmr = voltageOf(net.minus, idx, out, bre)
-  const vmi = voltageOf(net.minus, idx, out, bim, 0)
+  const vpr = voltageOf(net.plus, idx, out, ws.bre, 1)
+  const vpi = voltageOf(net.plus, idx, out, ws.bim, 0)
+  const vmr = voltageOf(net.minus, idx, out, ws.bre, 1)
+  const vmi = voltageOf(net.minus, idx, out, ws.bim, 0)
   openLoopGainInto(net.opamp, f, ws.a)
   const dr = vpr - vmr
   const di = vpi - vmi
@@ -243,7 +230,7 @@ export function solveLoop(ws: NodalWorkspace, f: number): void {
 }
 
 // Loop mode: a fixed node is ground or the (zeroed) source at 0 V, or the output at the test value.
-function voltageOf(node: number, idx: Int32Array, out: number, x: Float64Array, outValue = 1): number {
+function voltageOf(node: number, idx: Int32Array, out: number, x: Float64Array, outValue: number): number {
   const i = idx[node]
   if (i >= 0) return x[i]
   return node === out ? outValue : 0

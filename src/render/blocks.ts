@@ -9,15 +9,21 @@ import {drawCallout} from './callout.js'
 import {drawFigure, figureHeight} from './chart.js'
 import {drawCode} from './code.js'
 import {
-  atPageTop, bodyStyle, drawText, indented, keepSpace, measureText, newPage, spaceLeft, type RenderContext,
+  atPageTop, bodyStyle, drawText, estimateText, indented, keepSpace, measureText, newPage, spaceLeft, type RenderContext,
 } from './context.js'
 import {drawImage} from './image.js'
 import {drawRuns, runsOf, runsText} from './inline.js'
 import {drawList} from './list.js'
-import {maxY, lastPageIndex} from './pdfkit.js'
+import {lastPageIndex} from './pdfkit.js'
 import {drawBar} from './spans.js'
 import {drawTable, tableSpecOf} from './table.js'
 import {textContent} from './text-content.js'
+
+/** A paragraph up to this many lines is never split with a line or two left over. */
+const SHORT_PARAGRAPH_LINES = 8
+
+/** Gap after a paragraph in a tight list item, pt. */
+const TIGHT_GAP = 2
 
 const HEADING_SIZES = ['h1', 'h2', 'h3', 'h4'] as const
 
@@ -38,8 +44,8 @@ export function keepHeight(ctx: RenderContext, node: RootContent | undefined, re
     case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + lines(ctx, 2)
     case 'table': return lines(ctx, 2, ctx.theme.fontSizes.table) + 4 * ctx.theme.spacing.cellPadding
     case 'paragraph': {
-      const h = measureText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
-      return Math.min(h, lines(ctx, 3))
+      const h = estimateText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
+      return h <= lines(ctx, SHORT_PARAGRAPH_LINES) ? h : lines(ctx, 3)
     }
     default: return lines(ctx, 3)
   }
@@ -57,7 +63,7 @@ export function drawHeading(ctx: RenderContext, node: Heading, rest: RootContent
   const {doc, theme} = ctx
   const size = headingSize(ctx, node.depth)
   const runs = runsOf(ctx, node.children, {size, color: theme.colours.text, bold: true})
-  const height = measureText(ctx, runsText(runs), {font: 'bold', size, color: theme.colours.text}, ctx.frame.width)
+  const height = estimateText(ctx, runsText(runs), {font: 'bold', size, color: theme.colours.text}, ctx.frame.width)
   if (!atPageTop(ctx)) doc.y += theme.spacing.headingBefore
   keepSpace(ctx, height + theme.spacing.headingAfter + keepHeight(ctx, rest[0], rest.slice(1)))
   addOutline(ctx, textContent(node), node.depth)
@@ -77,10 +83,14 @@ export function drawPhrasing(ctx: RenderContext, children: PhrasingContent[]): v
   const flush = (): void => {
     const runs = runsOf(ctx, segment, {size: theme.fontSizes.body, color: theme.colours.text})
     segment = []
-    if (runsText(runs).trim() === '') return
-    keepSpace(ctx, lines(ctx, 1))
+    const text = runsText(runs)
+    if (text.trim() === '') return
+    // A short paragraph that would leave a line or two on the next page moves there whole.
+    const h = estimateText(ctx, text, bodyStyle(ctx), ctx.frame.width)
+    const spill = h - spaceLeft(ctx)
+    keepSpace(ctx, spill > 0 && spill < lines(ctx, 2.5) && h <= lines(ctx, SHORT_PARAGRAPH_LINES) ? h : lines(ctx, 1))
     drawRuns(ctx, runs, ctx.frame.x, doc.y, ctx.frame.width)
-    doc.y += theme.spacing.paragraph
+    doc.y += ctx.tight ? TIGHT_GAP : theme.spacing.paragraph
   }
   for (const child of children) {
     if (child.type === 'image') {
@@ -168,9 +178,4 @@ export function renderBlock(ctx: RenderContext, node: RootContent, rest: RootCon
 /** Draws `nodes` in order in the current frame. */
 export function renderBlocks(ctx: RenderContext, nodes: RootContent[]): void {
   nodes.forEach((node, i) => renderBlock(ctx, node, nodes.slice(i + 1)))
-}
-
-/** True when nothing more fits below `doc.y` than `height`. */
-export function fitsHere(ctx: RenderContext, height: number): boolean {
-  return height <= spaceLeft(ctx) || ctx.doc.y >= maxY(ctx.doc)
 }

@@ -38,7 +38,10 @@ export interface RenderContext {
   definitions: Map<string, Definition>
   outline: OutlineState | null
   frame: Frame
-  figures: {count: number}
+  /** Nesting depth of the list being drawn (0 outside lists). */
+  listDepth: number
+  /** Inside a tight list: paragraphs take no paragraph gap. */
+  tight: boolean
 }
 
 export interface TextStyle {
@@ -56,10 +59,16 @@ export function bodyStyle(ctx: RenderContext): TextStyle {
   return {font: 'regular', size: ctx.theme.fontSizes.body, color: ctx.theme.colours.text}
 }
 
-/** Height of a one-style string at the frame width (or `width`), measured as drawn. */
+/** Height of a one-style string `width` wide, measured as drawn. */
 export function measureText(ctx: RenderContext, text: string, style: TextStyle, width: number, options: TextOptions = {}): number {
   applyStyle(ctx, style)
   return ctx.doc.heightOfString(ctx.glyphs.clean(text, style.font), {width, lineGap: ctx.theme.lineGap, ...options})
+}
+
+/** Like `measureText`, for an estimate in a style the text is not drawn in: no glyph warnings. */
+export function estimateText(ctx: RenderContext, text: string, style: TextStyle, width: number): number {
+  applyStyle(ctx, style)
+  return ctx.doc.heightOfString(ctx.glyphs.clean(text, style.font, false), {width, lineGap: ctx.theme.lineGap})
 }
 
 /** Draws a one-style string at (x, y) wrapped to `width`; leaves `doc.y` below it. */

@@ -40,7 +40,7 @@ export const FONT_LABELS: Record<FontKey, string> = {
 const FONT_KEYS = Object.keys(FONT_NAMES) as FontKey[]
 
 /** The part of a fontkit font we use. */
-export interface GlyphFont extends object {
+export interface GlyphFont {
   hasGlyphForCodePoint(codePoint: number): boolean
 }
 

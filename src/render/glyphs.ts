@@ -7,14 +7,17 @@ import {FONT_LABELS, type FontKey, type LoadedFonts} from './fonts.js'
 import type {Warnings} from './warnings.js'
 
 export interface GlyphChecker {
-  /** The text with every character `font` lacks replaced by '?'. */
-  clean(text: string, font: FontKey): string
+  /**
+   * The text with every character `font` lacks replaced by '?'. Warns unless `report` is
+   * false (for estimates measured in a font the text is not drawn in).
+   */
+  clean(text: string, font: FontKey, report?: boolean): string
 }
 
 export function createGlyphChecker(fonts: LoadedFonts, warnings: Warnings): GlyphChecker {
   const known = new Map<string, boolean>()
   return {
-    clean(text, font) {
+    clean(text, font, report = true) {
       let out = ''
       let changed = false
       for (const ch of text) {
@@ -28,10 +31,10 @@ export function createGlyphChecker(fonts: LoadedFonts, warnings: Warnings): Glyp
         if (has === undefined) {
           has = fonts[font].hasGlyphForCodePoint(cp)
           known.set(key, has)
-          if (!has) {
-            const hex = cp.toString(16).toUpperCase().padStart(4, '0')
-            warnings.add(`U+${hex} not in ${FONT_LABELS[font]}`)
-          }
+        }
+        if (!has && report) {
+          const hex = cp.toString(16).toUpperCase().padStart(4, '0')
+          warnings.add(`U+${hex} not in ${FONT_LABELS[font]}`)
         }
         if (has) out += ch
         else {

@@ -30,6 +30,8 @@ export interface TableSpec {
   align: CellAlign[]
   /** Minimum row height, pt (sign-off rows leave room to sign). */
   minRowHeight?: number
+  /** Fixed column widths as fractions of the frame width (default: from content). */
+  fractions?: number[]
 }
 
 interface Layout {
@@ -55,9 +57,10 @@ function columnWidths(ctx: RenderContext, spec: TableSpec, pad: number, shapeSiz
   const max = new Array<number>(cols).fill(2 * pad + 8)
   all.forEach((row, r) => {
     row.forEach((cell, c) => {
-      applyStyle(ctx, cellStyle(ctx, cell, r === 0 && spec.header !== null))
+      const style = cellStyle(ctx, cell, r === 0 && spec.header !== null)
+      applyStyle(ctx, style)
       const extra = 2 * pad + (cell.shape === undefined ? 0 : shapeSize + 3)
-      const text = ctx.glyphs.clean(cell.text, cell.font ?? 'regular')
+      const text = ctx.glyphs.clean(cell.text, style.font)
       const longestWord = Math.max(0, ...text.split(/\s+/).map((w) => ctx.doc.widthOfString(w)))
       min[c] = Math.max(min[c] as number, Math.min(longestWord + extra, total * 0.45))
       max[c] = Math.max(max[c] as number, ctx.doc.widthOfString(text) + extra + 1)
@@ -113,7 +116,9 @@ export function drawTable(ctx: RenderContext, spec: TableSpec): void {
   const pad = theme.spacing.cellPadding
   const size = theme.fontSizes.table
   const layout: Layout = {widths: [], pad, shapeSize: size * 0.95, size}
-  layout.widths = columnWidths(ctx, spec, pad, layout.shapeSize)
+  layout.widths = spec.fractions === undefined
+    ? columnWidths(ctx, spec, pad, layout.shapeSize)
+    : spec.fractions.map((f) => f * ctx.frame.width)
   const minRow = spec.minRowHeight ?? 0
   const header = spec.header
   const headerH = header === null ? 0 : rowHeight(ctx, layout, header, true, 0)

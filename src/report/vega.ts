@@ -12,6 +12,11 @@
  * - every warning of vega-lite or vega is returned in `warnings` (a log scale given a zero is
  *   one of them); the caller decides whether to fail. vega errors and "Loading failed" throw.
  *
+ * The text metric is installed on the vega-scenegraph copy that `vega` exports, which is the
+ * one vega's layout uses; the SVG renderer's own copy would measure by estimate, but it only
+ * measures to truncate text at a `limit`, and the chart config sets no limits (see
+ * `charts/theme.ts`), so no text is cut.
+ *
  * vega keeps its text metric and random source in module state, so renders are run one at a
  * time through a queue and the previous metric is put back afterwards. Placing the SVG in the
  * PDF (px → pt, font mapping) is left to `src/render`.
@@ -116,6 +121,24 @@ function svgSize(svg: string, attribute: 'width' | 'height'): number {
   return value
 }
 
+/**
+ * Number the SVG's def ids (clip paths, gradients) from 1 in order of appearance. vega 6.2
+ * installs two copies of vega-scenegraph (its own 5.1 and vega-view's 5.3), and
+ * `vega.resetSVGDefIds()` only resets the first while the renderer counts with the second,
+ * so the ids would otherwise grow from one render to the next.
+ */
+function renumberDefIds(svg: string): string {
+  const ids = new Map<string, string>()
+  return svg.replace(/(id="|url\(#)((?:clip|gradient_)\d+)/g, (_, lead: string, id: string) => {
+    let next = ids.get(id)
+    if (next === undefined) {
+      next = `${id.startsWith('clip') ? 'clip' : 'gradient_'}${ids.size + 1}`
+      ids.set(id, next)
+    }
+    return lead + next
+  })
+}
+
 /** Seed of vega's random source; any constant works, it only has to be fixed. */
 const RANDOM_SEED = 1
 
@@ -135,7 +158,7 @@ async function renderNow(spec: TopLevelSpec, fonts: ChartFonts): Promise<ChartSv
   try {
     await view.runAsync()
     vega.resetSVGDefIds()
-    const svg = await view.toSVG()
+    const svg = renumberDefIds(await view.toSVG())
     const failed = warnings.filter((w) => w.startsWith('Loading failed') || w.startsWith('Data ingestion failed'))
     if (errors.length > 0 || failed.length > 0) {
       throw new Error(`Chart rendering failed: ${[...errors, ...failed].join('; ')}`)

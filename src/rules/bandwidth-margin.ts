@@ -10,7 +10,7 @@
  * What it recommends: more gain-bandwidth, less gain in this stage, or a band that matches
  * what the stage passes.
  */
-import {formatQuantity} from './quantity.js'
+import {formatFixed, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const MARGIN = 10
@@ -25,14 +25,14 @@ function check({input, result}: RuleContext): RuleFinding[] {
       severity: 'warning',
       text:
         `The band reaches ${formatQuantity(fH, 'Hz')}, past the closed-loop bandwidth of ${formatQuantity(bw, 'Hz')} ` +
-        `(${ratio.toFixed(2)} × the band's top): the signal is attenuated inside the band and the noise figures describe ` +
+        `(${formatFixed(ratio, {decimals: 2})} × the band's top): the signal is attenuated inside the band and the noise figures describe ` +
         'a response the signal does not get. Consider more gain-bandwidth, less gain in this stage, or a narrower band.'
     }]
   }
   return [{
     severity: 'caution',
     text:
-      `The closed-loop bandwidth, ${formatQuantity(bw, 'Hz')}, is only ${ratio.toFixed(1)} × the band's top of ${formatQuantity(fH, 'Hz')} ` +
+      `The closed-loop bandwidth, ${formatQuantity(bw, 'Hz')}, is only ${formatFixed(ratio)} × the band's top of ${formatQuantity(fH, 'Hz')} ` +
       `(under ${MARGIN} ×): gain error and phase shift near the top of the band are no longer negligible. Consider more ` +
       'gain-bandwidth or less gain in this stage.'
   }]

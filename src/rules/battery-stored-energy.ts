@@ -9,7 +9,7 @@
  * reverse-connection protection, and that stored energy stays when the unit is off; defers to
  * the cell maker's guidance and the applicable battery-safety standards.
  */
-import {formatQuantity} from './quantity.js'
+import {formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 function check({input, context}: RuleContext): RuleFinding[] {

@@ -20,7 +20,7 @@
 import {evaluateStage} from '../engine/index.js'
 import type {Resistor, StageInput, StageResult} from '../engine/types.js'
 import {roundUpToSeries} from './e-series.js'
-import {formatQuantity, formatRatio} from './quantity.js'
+import {formatFixed, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 /** IOS/IB above which matching the input resistances buys little (DESIGN §4.2). */
@@ -73,7 +73,7 @@ function check({input, result}: RuleContext): RuleFinding[] {
     reasons.push(`the input is ${kind}, whose bias current (${formatQuantity(result.bias.ibMax, 'A')} at worst here) makes IB·R negligible`)
   }
   if (ratio !== null && ratio > IOS_RATIO_LIMIT) {
-    reasons.push(`IOS/IB is ${formatRatio(ratio)} (${formatQuantity(result.bias.iosMax, 'A')} against ${formatQuantity(result.bias.ibMax, 'A')}), above ${formatRatio(IOS_RATIO_LIMIT)}, so matching cancels little of the bias current`)
+    reasons.push(`IOS/IB is ${formatFixed(ratio, {decimals: 2})} (${formatQuantity(result.bias.iosMax, 'A')} against ${formatQuantity(result.bias.ibMax, 'A')}), above ${formatFixed(IOS_RATIO_LIMIT, {decimals: 2})}, so matching cancels little of the bias current`)
   }
   if (dcSaving <= 0) {
     reasons.push(`it removes no DC error (the worst case is ${formatQuantity(-dcSaving, 'V')} lower without it)`)
@@ -89,32 +89,38 @@ function check({input, result}: RuleContext): RuleFinding[] {
     `${formatQuantity(without.dc.worstCaseOutput, 'V')} without it, and noise ${formatQuantity(result.noise.outputPeakToPeak, 'V')} p-p ` +
     `against ${formatQuantity(without.noise.outputPeakToPeak, 'V')} p-p (p-p = 6.6 × rms over ` +
     `${formatQuantity(fL, 'Hz')} … ${formatQuantity(input.band[1], 'Hz')}).`
+  const existing = name === 'rcomp' ? input.ccomp : input.cf
+  const corner = (cap: number): string => formatQuantity(1 / (2 * Math.PI * resistor.value * cap), 'Hz')
   const capNote = c > 1e-6
     ? ` A capacitor that large is awkward: an electrolytic's leakage would upset the very match it protects, so weigh removing ${name} instead.`
     : ''
-  const bypassText =
-    `Bypassing ${name} with ${formatQuantity(c, 'F')} (corner ${formatQuantity(1 / (2 * Math.PI * resistor.value * c), 'Hz')}, ` +
-    `at most a tenth of the band's lower edge) keeps its DC effect and brings the noise to ` +
-    `${formatQuantity(bypass.noise.outputRms, 'V')} rms (${formatQuantity(result.noise.outputRms, 'V')} rms as drawn).${capNote}`
+  const bypassText = existing >= c
+    ? `It is already bypassed by ${formatQuantity(existing, 'F')} (corner ${corner(existing)}, at most a tenth of the band's lower edge), ` +
+      `which keeps its noise out of the band: ${formatQuantity(result.noise.outputRms, 'V')} rms.`
+    : `Bypassing ${name} with ${formatQuantity(c, 'F')} (corner ${corner(c)}, at most a tenth of the band's lower edge) keeps its ` +
+      `DC effect and brings the noise to ${formatQuantity(bypass.noise.outputRms, 'V')} rms ` +
+      `(${formatQuantity(result.noise.outputRms, 'V')} rms as drawn).${capNote}`
   const table = {
     header: ['Variant', 'DC worst case', 'DC RSS', 'Noise rms over band'],
     rows: [
       row('As drawn', result),
       row(`Without ${name}`, without),
-      row(`${name} bypassed by ${formatQuantity(c, 'F')}`, bypass)
+      row(`${name} bypassed by ${formatQuantity(Math.max(existing, c), 'F')}`, bypass)
     ]
   }
 
   if (reasons.length > 0) {
     return [{
       severity: 'caution',
-      text: `${what} does not earn its place: ${reasons.join('; ')}. ${comparison} Consider removing it. If it stays, ${bypassText.charAt(0).toLowerCase()}${bypassText.slice(1)}`,
+      text:
+        `${what} does not earn its place: ${reasons.join('; ')}. ${comparison} Consider removing it. ` +
+        (existing >= c ? bypassText : `If it stays, ${bypassText.charAt(0).toLowerCase()}${bypassText.slice(1)}`),
       table
     }]
   }
   return [{
     severity: 'info',
-    text: `${what} earns its place: it cuts the worst-case DC error by ${formatQuantity(dcSaving, 'V')} and ${noiseCost >= 0 ? 'adds' : 'even removes'} ${formatQuantity(Math.abs(noiseCost), 'V')} p-p of noise${ratio === null ? '' : ` (IOS/IB = ${formatRatio(ratio)})`}. ${comparison} ${bypassText}`,
+    text: `${what} earns its place: it cuts the worst-case DC error by ${formatQuantity(dcSaving, 'V')} and ${noiseCost >= 0 ? 'adds' : 'even removes'} ${formatQuantity(Math.abs(noiseCost), 'V')} p-p of noise${ratio === null ? '' : ` (IOS/IB = ${formatFixed(ratio, {decimals: 2})})`}. ${comparison} ${bypassText}`,
     table
   }]
 }

@@ -9,7 +9,7 @@
  *
  * What it recommends: enter the datasheet's `ib-max` and `ios-max` over the stage's range.
  */
-import {formatCelsius, formatQuantity} from './quantity.js'
+import {formatQuantity, formatTemperature} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 function check({input, result}: RuleContext): RuleFinding[] {
@@ -21,7 +21,7 @@ function check({input, result}: RuleContext): RuleFinding[] {
   return [{
     severity: 'caution',
     text:
-      `The range ${formatCelsius(tMin)} … ${formatCelsius(tMax)} leaves 25 °C, but no ib-max was entered for this ` +
+      `The range ${formatTemperature(tMin)} … ${formatTemperature(tMax)} leaves 25 °C, but no ib-max was entered for this ` +
       `${input.opamp.inputType} input, so the budget uses the 25 °C values (IB ${formatQuantity(result.bias.ibMax, 'A')}, ` +
       `IOS ${formatQuantity(result.bias.iosMax, 'A')}); ${why}. Enter the datasheet's ib-max and ios-max over the range.`
   }]

@@ -10,7 +10,7 @@
  */
 import type {Resistor, StageInput} from '../engine/types.js'
 import {isOnSeries, nearestOnSeries} from './e-series.js'
-import {formatQuantity} from './quantity.js'
+import {formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const CHECKED = ['rf', 'rg', 'rcomp'] as const satisfies readonly (keyof StageInput)[]

@@ -33,6 +33,8 @@ const SERIES: Record<SeriesName, readonly number[]> = {E3, E24, E96}
 
 /** Relative tolerance for "is this value on the series": float noise only, not a near miss. */
 const SAME = 1e-6
+/** Relative slack when rounding up, for float noise in a computed value only. */
+const FLOAT_NOISE = 1e-9
 
 /** Decade exponent of a positive value, robust to 4.99e4 landing a hair under a power of ten. */
 function decade(value: number): number {
@@ -76,7 +78,7 @@ export function roundUpToSeries(value: number, series: SeriesName): number {
     for (const m of SERIES[series]) {
       const candidate = Number((m * 10 ** (k + shift)).toPrecision(12))
       // A candidate a hair under `value` passes only through float noise.
-      if (candidate >= value * (1 - SAME)) return candidate
+      if (candidate >= value * (1 - FLOAT_NOISE)) return candidate
     }
   }
   // Not reached: 1.0 × 10^(k+1) > value always; here for noImplicitReturns.

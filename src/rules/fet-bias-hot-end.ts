@@ -12,7 +12,7 @@
  * What it recommends: lower resistances at the inputs, matched Rp = Rn, keeping the part
  * cooler, guarding the input node, or an input with lower leakage.
  */
-import {formatCelsius, formatPercent, formatQuantity} from './quantity.js'
+import {formatNumber, formatPercent, formatQuantity, formatTemperature} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 import {dcTerm} from './stage-terms.js'
 
@@ -36,8 +36,8 @@ function check({input, result}: RuleContext): RuleFinding[] {
   return [{
     severity: 'caution',
     text:
-      `At ${formatCelsius(tMax)} the input bias current is ${formatQuantity(result.bias.ibMax, 'A')}` +
-      (growth === null ? '' : ` (${growth.toPrecision(3)} × its ${formatQuantity(opamp.ib, 'A')} at 25 °C)`) +
+      `At ${formatTemperature(tMax)} the input bias current is ${formatQuantity(result.bias.ibMax, 'A')}` +
+      (growth === null ? '' : ` (${formatNumber(growth)} × its ${formatQuantity(opamp.ib, 'A')} at 25 °C)`) +
       `, and the bias and offset-current terms reach ${formatQuantity(bias, 'V')} at the output, ${against}. ` +
       'Consider lower resistances at the inputs, matched DC resistances, keeping the part away from heat, a guard ring ' +
       'round the input node, or an input with lower leakage; and check the datasheet’s hot-end maximum against the doubling estimate.'

@@ -14,7 +14,7 @@
  * or removing rf.
  */
 import {roundUpToSeries} from './e-series.js'
-import {formatDegrees, formatQuantity} from './quantity.js'
+import {formatAngle, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 /** Pole at or above this multiple of the crossover costs under ~6° and is let pass. */
@@ -36,8 +36,8 @@ function check({input, result}: RuleContext): RuleFinding[] {
       `This follower's rf = ${formatQuantity(input.rf.value, 'Ω')} and the ${formatQuantity(c, 'F')} at the − input ` +
       `(cin-diff + cin-cm + cstray) put a pole at ${formatQuantity(fp, 'Hz')} in the feedback path, ` +
       `${fp < fc ? 'below' : 'within a decade of'} the ${formatQuantity(fc, 'Hz')} crossover: it costs about ` +
-      `${formatDegrees(cost)} of phase` +
-      (pm === null ? '.' : `, leaving a phase margin of ${formatDegrees(pm)}.`) +
+      `${formatAngle(cost)} of phase` +
+      (pm === null ? '.' : `, leaving a phase margin of ${formatAngle(pm)}.`) +
       ` Consider a capacitor across rf of at least the input capacitance (e.g. ${formatQuantity(suggested, 'F')}), ` +
       'or removing rf if it is there only to match the source resistance.'
   }]

@@ -13,7 +13,7 @@
  * It is a reminder, not a safety assessment; the note says so.
  */
 import type {HazardContext} from '../note/types.js'
-import {formatQuantity} from './quantity.js'
+import {formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const SPAN_LIMIT = 60

@@ -11,7 +11,7 @@
  * full-scale output; consider scaling the network up, or a Kelvin (four-terminal) connection.
  */
 import type {StageInput} from '../engine/types.js'
-import {formatPercent, formatQuantity} from './quantity.js'
+import {formatPercent, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const LOW = 10

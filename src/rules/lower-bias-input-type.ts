@@ -15,7 +15,7 @@
  * bring more voltage noise and offset (common practice), which the text says.
  */
 import type {InputType} from '../engine/types.js'
-import {formatQuantity} from './quantity.js'
+import {formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 import {dcResistances, dcTerm, largestDcTerm, noiseTerm, unmetRequirements} from './stage-terms.js'
 

@@ -18,7 +18,7 @@
  */
 import {evaluateStage} from '../engine/index.js'
 import type {Resistor, StageInput, StageResult} from '../engine/types.js'
-import {formatPercent, formatQuantity} from './quantity.js'
+import {formatPercent, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 import {dcResistances, dcTerm, largestDcTerm} from './stage-terms.js'
 

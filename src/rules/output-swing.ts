@@ -9,7 +9,7 @@
  * What it recommends: less gain, a shifted reference, wider rails or an output that swings
  * closer to them; the excess at each end is quoted.
  */
-import {formatQuantity} from './quantity.js'
+import {formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 function check({input, result}: RuleContext): RuleFinding[] {

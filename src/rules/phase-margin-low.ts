@@ -11,7 +11,7 @@
  * or bridging it; for a transimpedance stage, more Cf (see its own note).
  */
 import type {Topology} from '../engine/types.js'
-import {formatDegrees, formatQuantity} from './quantity.js'
+import {formatAngle, formatFixed, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const LIMIT_DEG = 45
@@ -29,9 +29,9 @@ function check({input, result}: RuleContext): RuleFinding[] {
   return [{
     severity: 'warning',
     text:
-      `The phase margin is ${formatDegrees(phaseMargin)}` +
+      `The phase margin is ${formatAngle(phaseMargin)}` +
       (crossover === null ? '' : ` at the ${formatQuantity(crossover, 'Hz')} crossover`) +
-      `, under ${formatDegrees(LIMIT_DEG)}; the closed-loop response peaks by ${peaking.toFixed(1)} dB. ` +
+      `, under ${formatAngle(LIMIT_DEG)}; the closed-loop response peaks by ${formatFixed(peaking)} dB. ` +
       REMEDY[input.topology]
   }]
 }

@@ -14,7 +14,7 @@
  * falls as rf rises, so more transimpedance in rf helps.
  */
 import type {NoiseKey, StageInput} from '../engine/types.js'
-import {formatPercent, formatQuantity} from './quantity.js'
+import {formatPercent, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 import {unmetRequirements} from './stage-terms.js'
 

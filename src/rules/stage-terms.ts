@@ -53,5 +53,3 @@ export function unmetRequirements(result: StageResult, keys: readonly Requiremen
   return result.requirements.filter((r) => !r.met && keys.includes(r.key))
 }
 
-/** A resistor's name as the note writes it, for texts. */
-export type ResistorName = 'rf' | 'rg' | 'rs' | 'rcomp'

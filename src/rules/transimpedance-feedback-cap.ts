@@ -11,7 +11,7 @@
  * (flagged when the corner is below ten times the band's top); when none suffices, less source
  * capacitance or a different amplifier.
  */
-import {formatDegrees, formatQuantity} from './quantity.js'
+import {formatAngle, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const TARGET_DEG = 60
@@ -20,12 +20,12 @@ function check({input, result}: RuleContext): RuleFinding[] {
   if (input.topology !== 'transimpedance' || input.rf === null) return []
   const {phaseMargin, suggestedCf} = result.stability
   if (phaseMargin === null || phaseMargin >= TARGET_DEG) return []
-  const stated = `This transimpedance stage has ${formatDegrees(phaseMargin)} of phase margin with Cf = ${formatQuantity(input.cf, 'F')}`
+  const stated = `This transimpedance stage has ${formatAngle(phaseMargin)} of phase margin with Cf = ${formatQuantity(input.cf, 'F')}`
   if (suggestedCf === null) {
     return [{
       severity: 'caution',
       text:
-        `${stated}, and no Cf up to 1 µF reaches ${formatDegrees(TARGET_DEG)}. Consider less capacitance at the − input ` +
+        `${stated}, and no Cf up to 1 µF reaches ${formatAngle(TARGET_DEG)}. Consider less capacitance at the − input ` +
         `(source ${formatQuantity(input.csource, 'F')}, stray ${formatQuantity(input.cstray, 'F')}), a lower rf, or an amplifier with a different gain-bandwidth.`
     }]
   }
@@ -36,7 +36,7 @@ function check({input, result}: RuleContext): RuleFinding[] {
   return [{
     severity: 'caution',
     text:
-      `${stated}, below the ${formatQuantity(suggestedCf, 'F')} that gives ${formatDegrees(TARGET_DEG)}. Consider Cf ≥ ${formatQuantity(suggestedCf, 'F')}; ` +
+      `${stated}, below the ${formatQuantity(suggestedCf, 'F')} that gives ${formatAngle(TARGET_DEG)}. Consider Cf ≥ ${formatQuantity(suggestedCf, 'F')}; ` +
       `with rf = ${formatQuantity(input.rf.value, 'Ω')} it sets a corner at ${formatQuantity(corner, 'Hz')}` +
       (corner < 10 * fH
         ? `, less than ten times the band's top (${formatQuantity(fH, 'Hz')}): check the signal bandwidth still serves.`

@@ -1,6 +1,6 @@
 /**
  * The dimension table of the quantity grammar (DESIGN §3.1): for each dimension a note key
- * can have, the unit symbols it accepts, their scale to SI, and whether SI prefixes apply.
+ * can have, the unit symbols it accepts, their power of ten to SI, and whether prefixes apply.
  *
  * The first unit of each dimension is its natural unit: a bare number is read in it, and a
  * bare prefix (`49.9k`, `2p`) is allowed only when that unit takes prefixes. Parsing is in
@@ -11,8 +11,8 @@
 export interface UnitSpec {
   /** Spellings, all equivalent; the first is the canonical one. */
   readonly symbols: readonly string[]
-  /** Multiply the number by this to get SI (ignored when `decibel`). */
-  readonly scale: number
+  /** Power of ten to SI: the SI value is number × 10^exp (ignored when `decibel`). */
+  readonly exp: number
   /** Added after scaling (kelvin to °C: −273.15). Default 0. */
   readonly offset?: number
   /** True when SI prefixes may stand in front of the symbol. */
@@ -34,15 +34,18 @@ export interface DimensionSpec {
   readonly rkm: string
 }
 
-/** SI prefixes, case-sensitive (DESIGN §3.1). Both micro signs and `u` are accepted. */
+/**
+ * SI prefixes as powers of ten, case-sensitive (DESIGN §3.1). Both micro signs and `u` are
+ * accepted. Powers rather than factors, so that `60 uV` is 60 / 10^6, correctly rounded.
+ */
 export const PREFIXES = {
-  f: 1e-15, p: 1e-12, n: 1e-9, u: 1e-6, 'µ': 1e-6, 'μ': 1e-6, m: 1e-3,
-  k: 1e3, M: 1e6, G: 1e9, T: 1e12
+  f: -15, p: -12, n: -9, u: -6, 'µ': -6, 'μ': -6, m: -3,
+  k: 3, M: 6, G: 9, T: 12
 } as const
 export type Prefix = keyof typeof PREFIXES
 
 /** The one trade exception: on a resistance a bare `K` means kilo (`10K`, `4K7`). */
-export const RESISTANCE_EXTRA_PREFIXES = {K: 1e3} as const
+export const RESISTANCE_EXTRA_PREFIXES = {K: 3} as const
 
 /** Prefix letters written in the wrong case, and the one that was probably meant. */
 export const WRONG_CASE_PREFIXES: Readonly<Record<string, Prefix>> = {K: 'k', g: 'G', t: 'T', P: 'p', N: 'n', U: 'u', F: 'f'}
@@ -56,68 +59,68 @@ export const DIMENSIONS = {
   resistance: {
     label: 'a resistance', si: 'Ω', example: '4.7 kΩ', rkm: 'RkKMG',
     units: [
-      {symbols: ['Ω', 'Ω', 'ohm', 'ohms'], scale: 1, prefixed: true},
-      {symbols: ['R'], scale: 1, prefixed: false}
+      {symbols: ['Ω', 'Ω', 'ohm', 'ohms'], exp: 0, prefixed: true},
+      {symbols: ['R'], exp: 0, prefixed: false}
     ]
   },
   capacitance: {
     label: 'a capacitance', si: 'F', example: '2.2 pF', rkm: 'pnuµμm',
-    units: [{symbols: ['F'], scale: 1, prefixed: true}]
+    units: [{symbols: ['F'], exp: 0, prefixed: true}]
   },
-  voltage: {label: 'a voltage', si: 'V', example: '2.5 mV', rkm: '', units: [{symbols: ['V'], scale: 1, prefixed: true}]},
-  current: {label: 'a current', si: 'A', example: '2 nA', rkm: '', units: [{symbols: ['A'], scale: 1, prefixed: true}]},
-  frequency: {label: 'a frequency', si: 'Hz', example: '1 kHz', rkm: '', units: [{symbols: ['Hz'], scale: 1, prefixed: true}]},
+  voltage: {label: 'a voltage', si: 'V', example: '2.5 mV', rkm: '', units: [{symbols: ['V'], exp: 0, prefixed: true}]},
+  current: {label: 'a current', si: 'A', example: '2 nA', rkm: '', units: [{symbols: ['A'], exp: 0, prefixed: true}]},
+  frequency: {label: 'a frequency', si: 'Hz', example: '1 kHz', rkm: '', units: [{symbols: ['Hz'], exp: 0, prefixed: true}]},
   temperature: {
     label: 'a temperature', si: '°C', example: '25 °C', rkm: '',
     units: [
-      {symbols: TEMP, scale: 1, prefixed: false},
-      {symbols: ['K'], scale: 1, offset: -273.15, prefixed: false}
+      {symbols: TEMP, exp: 0, prefixed: false},
+      {symbols: ['K'], exp: 0, offset: -273.15, prefixed: false}
     ]
   },
   'temperature-interval': {
     label: 'a temperature interval', si: 'K', example: '10 K', rkm: '',
-    units: [{symbols: ['K', ...TEMP], scale: 1, prefixed: false}]
+    units: [{symbols: ['K', ...TEMP], exp: 0, prefixed: false}]
   },
   'voltage-density': {
     label: 'a voltage noise density', si: 'V/√Hz', example: '8 nV/√Hz', rkm: '',
-    units: [{symbols: perRootHz('V'), scale: 1, prefixed: true}]
+    units: [{symbols: perRootHz('V'), exp: 0, prefixed: true}]
   },
   'current-density': {
     label: 'a current noise density', si: 'A/√Hz', example: '0.2 pA/√Hz', rkm: '',
-    units: [{symbols: perRootHz('A'), scale: 1, prefixed: true}]
+    units: [{symbols: perRootHz('A'), exp: 0, prefixed: true}]
   },
-  drift: {label: 'a voltage drift', si: 'V/K', example: '0.6 µV/K', rkm: '', units: [{symbols: perKelvin('V'), scale: 1, prefixed: true}]},
+  drift: {label: 'a voltage drift', si: 'V/K', example: '0.6 µV/K', rkm: '', units: [{symbols: perKelvin('V'), exp: 0, prefixed: true}]},
   'ratio-db': {
     label: 'a ratio in dB', si: 'dB', example: '120 dB', rkm: '',
     units: [
-      {symbols: ['dB'], scale: 1, prefixed: false, decibel: true},
-      {symbols: ['V/V'], scale: 1, prefixed: true}
+      {symbols: ['dB'], exp: 0, prefixed: false, decibel: true},
+      {symbols: ['V/V'], exp: 0, prefixed: true}
     ]
   },
   fraction: {
     label: 'a fraction', si: '%', example: '0.1 %', rkm: '',
     units: [
-      {symbols: [''], scale: 1, prefixed: false},
-      {symbols: ['%'], scale: 1e-2, prefixed: false},
-      {symbols: ['ppm'], scale: 1e-6, prefixed: false}
+      {symbols: [''], exp: 0, prefixed: false},
+      {symbols: ['%'], exp: -2, prefixed: false},
+      {symbols: ['ppm'], exp: -6, prefixed: false}
     ]
   },
   tempco: {
     label: 'a temperature coefficient', si: '1/K', example: '25 ppm/K', rkm: '',
     units: [
-      {symbols: ['1/K', '/K'], scale: 1, prefixed: false},
-      {symbols: perKelvin('ppm'), scale: 1e-6, prefixed: false},
-      {symbols: perKelvin('%'), scale: 1e-2, prefixed: false}
+      {symbols: ['1/K', '/K'], exp: 0, prefixed: false},
+      {symbols: perKelvin('ppm'), exp: -6, prefixed: false},
+      {symbols: perKelvin('%'), exp: -2, prefixed: false}
     ]
   },
-  angle: {label: 'an angle', si: '°', example: '60 deg', rkm: '', units: [{symbols: ['deg', '°'], scale: 1, prefixed: false}]},
+  angle: {label: 'an angle', si: '°', example: '60 deg', rkm: '', units: [{symbols: ['deg', '°'], exp: 0, prefixed: false}]},
   slew: {
     label: 'a slew rate', si: 'V/s', example: '0.5 V/µs', rkm: '',
     units: [
-      {symbols: ['V/s'], scale: 1, prefixed: true},
-      {symbols: ['V/us', 'V/µs', 'V/μs'], scale: 1e6, prefixed: true},
-      {symbols: ['V/ms'], scale: 1e3, prefixed: true},
-      {symbols: ['V/ns'], scale: 1e9, prefixed: true}
+      {symbols: ['V/s'], exp: 0, prefixed: true},
+      {symbols: ['V/us', 'V/µs', 'V/μs'], exp: 6, prefixed: true},
+      {symbols: ['V/ms'], exp: 3, prefixed: true},
+      {symbols: ['V/ns'], exp: 9, prefixed: true}
     ]
   }
 } as const satisfies Record<string, DimensionSpec>
@@ -129,7 +132,10 @@ export const isDimension = (s: string): s is Dimension => s in DIMENSIONS
 /** The spec of a dimension, widened to the interface (for code that loops over units). */
 export const dimensionSpec = (dim: Dimension): DimensionSpec => DIMENSIONS[dim]
 
-/** Prefixes valid on a dimension (resistance adds `K`). */
+/** Prefixes valid on a dimension, as powers of ten (resistance adds `K`). */
 export function prefixesOf(dim: Dimension): Readonly<Record<string, number>> {
   return dim === 'resistance' ? {...PREFIXES, ...RESISTANCE_EXTRA_PREFIXES} : PREFIXES
 }
+
+/** x × 10^exp with one correctly rounded operation (division for negative powers). */
+export const timesPow10 = (x: number, exp: number): number => (exp >= 0 ? x * 10 ** exp : x / 10 ** -exp)

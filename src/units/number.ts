@@ -15,10 +15,10 @@ const DECIMAL = /^(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+\-−]?\d+)?/
 const NON_FINITE = /^(?:nan|inf(?:inity)?)(?![a-z])/i
 const escapeClass = (letters: string): string => letters.replace(/[\]\\^-]/g, '\\$&')
 
-/** The multiplier an RKM letter stands for on this dimension (`R` is 1). */
-function rkmFactor(letter: string, dim: Dimension): number {
-  if (letter === 'R') return 1
-  return prefixesOf(dim)[letter] ?? 1
+/** The power of ten an RKM letter stands for on this dimension (`R` is 0). */
+function rkmExp(letter: string, dim: Dimension): number {
+  if (letter === 'R') return 0
+  return prefixesOf(dim)[letter] ?? 0
 }
 
 /**
@@ -44,7 +44,7 @@ export function readNumber(text: string, dim: Dimension, where: string): NumberR
     const rkm = new RegExp(`^(\\d*)([${cls}])(\\d+)(?![\\d.,])`).exec(body)
     if (rkm && (rkm[1] !== '' || rkm[2] === 'R' || dim === 'capacitance')) {
       const [whole, int = '', letter = '', frac = ''] = rkm
-      const value = sign * Number(`${int === '' ? '0' : int}.${frac}`) * rkmFactor(letter, dim)
+      const value = sign * Number(`${int === '' ? '0' : int}.${frac}e${rkmExp(letter, dim)}`)
       return {ok: true, value, end: i + whole.length, rkm: true}
     }
   }

@@ -6,7 +6,7 @@
  * `resistor.ts`. Nothing here knows about notes or positions beyond a 0-based offset.
  */
 import {
-  DIMENSION_NAMES, WRONG_CASE_PREFIXES, dimensionSpec, prefixesOf,
+  DIMENSION_NAMES, WRONG_CASE_PREFIXES, dimensionSpec, prefixesOf, timesPow10,
   type Dimension, type UnitSpec
 } from './dimensions.js'
 import {readNumber} from './number.js'
@@ -40,7 +40,8 @@ export interface QuantityOptions {
 interface Resolved {
   unit: UnitSpec
   prefix: string
-  factor: number
+  /** Power of ten of the prefix. */
+  exp: number
   symbol: string
 }
 
@@ -52,22 +53,22 @@ function lookup(rest: string, dim: Dimension): Resolved | null {
   const natural = dimensionSpec(dim).units[0]
   if (natural === undefined) return null
   const prefixes = prefixesOf(dim)
-  if (rest === '') return {unit: natural, prefix: '', factor: 1, symbol: ''}
+  if (rest === '') return {unit: natural, prefix: '', exp: 0, symbol: ''}
   const parts = rest.split(/\s+/)
   if (parts.length === 2) {
     const [p = '', s = ''] = parts
     const unit = findSymbol(dim, s)
-    const factor = prefixes[p]
-    return unit?.prefixed && factor !== undefined ? {unit, prefix: p, factor, symbol: s} : null
+    const exp = prefixes[p]
+    return unit?.prefixed && exp !== undefined ? {unit, prefix: p, exp, symbol: s} : null
   }
   if (parts.length > 2) return null
   const exact = findSymbol(dim, rest)
-  if (exact) return {unit: exact, prefix: '', factor: 1, symbol: rest}
-  for (const [p, factor] of Object.entries(prefixes)) {
+  if (exact) return {unit: exact, prefix: '', exp: 0, symbol: rest}
+  for (const [p, exp] of Object.entries(prefixes)) {
     if (!rest.startsWith(p)) continue
     const s = rest.slice(p.length)
     const unit = s === '' ? natural : findSymbol(dim, s)
-    if (unit?.prefixed) return {unit, prefix: p, factor, symbol: s}
+    if (unit?.prefixed) return {unit, prefix: p, exp, symbol: s}
   }
   return null
 }
@@ -123,8 +124,8 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
   if (num.rkm && resolved.prefix !== '') {
     return {ok: false, message: unitsMessages.prefixNotAllowed(rest, dim, where), offset: lead + restStart}
   }
-  const {unit, factor, prefix, symbol} = resolved
-  const value = unit.decibel ? 10 ** (num.value / 20) : num.value * factor * unit.scale + (unit.offset ?? 0)
+  const {unit, exp, prefix, symbol} = resolved
+  const value = unit.decibel ? 10 ** (num.value / 20) : timesPow10(num.value, exp + unit.exp) + (unit.offset ?? 0)
   if (dim === 'temperature' && value < -273.15) {
     return {ok: false, message: unitsMessages.belowAbsoluteZero(body, where), offset: lead}
   }

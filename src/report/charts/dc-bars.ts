@@ -8,8 +8,8 @@
  */
 import type {TopLevelSpec} from 'vega-lite'
 import type {DcBudget} from '../../engine/types.js'
-import {CHART_CONFIG, CHART_WIDTH, FONT_SIZE, INK} from './theme.js'
-import {SI_AXIS_FORMAT, siTextExpr} from './scales.js'
+import {CHART_CONFIG, CHART_OUTER_WIDTH, FONT_SIZE, INK} from './theme.js'
+import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, siTextExpr} from './scales.js'
 
 export interface DcBarsOptions {
   /** Readable name of each contributor key (e.g. `vos` → "Offset voltage"); the key itself when absent. */
@@ -50,7 +50,9 @@ export function dcBarsSpec(dc: DcBudget, opts: DcBarsOptions): TopLevelSpec {
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     config: CHART_CONFIG,
-    width: CHART_WIDTH,
+    // The plot takes what the labels leave of the whole width (labels vary by language and key).
+    width: CHART_OUTER_WIDTH,
+    autosize: {type: 'fit-x', contains: 'padding'},
     height: Math.max(rows.length, 1) * ROW_HEIGHT,
     data: {values: rows.map(({key, label, output}) => ({key, label, output}))},
     transform: [{calculate: siTextExpr('datum.output', 'V'), as: 'valueText'}],
@@ -59,14 +61,14 @@ export function dcBarsSpec(dc: DcBudget, opts: DcBarsOptions): TopLevelSpec {
         field: 'label',
         type: 'nominal',
         sort: rows.map((r) => r.label),
-        axis: {title: null, labelLimit: 200, ticks: false, domain: false},
+        axis: {title: null, labelPadding: 5, ticks: false, domain: false},
         scale: {paddingInner: 0.3, paddingOuter: 0.15}
       },
       x: {
         field: 'output',
         type: 'quantitative',
         scale: {domain: [0, xMax], nice: false, zero: true},
-        axis: {title: 'Output-referred error (V)', format: SI_AXIS_FORMAT, grid: true, tickCount: 6}
+        axis: {title: 'Output-referred error (V)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
       }
     },
     layer: [

@@ -56,16 +56,20 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
     axis: {...axis, format: SI_AXIS_FORMAT, values: logTicks(xDomain), grid: true}
   })
   const fcRule = marked === null ? [] : [{data: {values: [{f: marked}]}, mark: MARKER_RULE, encoding: {x: {field: 'f', type: 'quantitative' as const}}}]
+  // Each layer names its own x: a layer without frequencies (the 0 dB and −180° rules) must
+  // not inherit the log x field, or its rows would be filtered out as invalid.
+  const xTop = x({title: null, labels: false})
+  const xBottom = x({title: 'Frequency (Hz)', labels: true})
 
   const magnitudePanel = {
     width: CHART_WIDTH,
     height: PANEL_HEIGHT,
-    encoding: {x: x({title: null, labels: false})},
     layer: [
       {
         data: {values: magnitude.map((p) => ({f: p.x, db: 20 * Math.log10(p.y)}))},
         mark: {type: 'line' as const, color: TOTAL_STYLE.colour, strokeWidth: 1.6, clip: true},
         encoding: {
+          x: xTop,
           y: {field: 'db', type: 'quantitative' as const, scale: {nice: true}, axis: {title: 'Loop gain |T| (dB)', grid: true, tickCount: 5}}
         }
       },
@@ -107,12 +111,12 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
   const phasePanel = {
     width: CHART_WIDTH,
     height: PANEL_HEIGHT,
-    encoding: {x: x({title: 'Frequency (Hz)', labels: true})},
     layer: [
       {
         data: {values: phase.map((p) => ({f: p.x, deg: p.y}))},
         mark: {type: 'line' as const, color: TOTAL_STYLE.colour, strokeWidth: 1.6, clip: true},
         encoding: {
+          x: xBottom,
           y: {
             field: 'deg',
             type: 'quantitative' as const,

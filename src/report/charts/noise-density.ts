@@ -9,7 +9,7 @@
  */
 import type {TopLevelSpec} from 'vega-lite'
 import {NOISE_KEYS, type NoiseKey, type StageCurves} from '../../engine/types.js'
-import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} from './theme.js'
+import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, CONTRIBUTOR_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} from './theme.js'
 import {SI_AXIS_FORMAT, decadeDomain, extent, logTicks, plottablePoints, type Point} from './scales.js'
 
 export interface NoiseDensityOptions {
@@ -34,6 +34,23 @@ export const TOTAL_LABEL = 'Total'
 const DEFAULT_MIN_SHARE = 1e-3
 
 const LINE = {type: 'line', clip: true, strokeCap: 'butt', strokeJoin: 'round'} as const
+
+/** The legend's total symbol is drawn as thick as the total line. */
+const TOTAL_SYMBOL_WIDTH = `datum.label === ${JSON.stringify(TOTAL_LABEL)} ? ${TOTAL_STYLE.width} : ${CONTRIBUTOR_WIDTH}`
+
+/** One legend for colour and dash together, under the plot. */
+const legend = {
+  title: null,
+  orient: 'bottom',
+  direction: 'horizontal',
+  columns: 3,
+  symbolType: 'stroke',
+  symbolSize: 400,
+  columnPadding: 16,
+  rowPadding: 4,
+  labelOffset: 7,
+  encode: {symbols: {update: {strokeWidth: {signal: TOTAL_SYMBOL_WIDTH}}}}
+} as const
 
 /** True when `density` reaches `minShare` of `total` at some frequency. */
 function significant(density: readonly number[], total: readonly number[], minShare: number): boolean {
@@ -93,29 +110,13 @@ export function noiseDensitySpec(curves: StageCurves, opts: NoiseDensityOptions)
           scale: {type: 'log', domain: yDomain, nice: false},
           axis: {title: 'Output noise density (V/√Hz)', format: SI_AXIS_FORMAT, values: logTicks(yDomain), grid: true}
         },
-        color: {
-          field: 'series',
-          type: 'nominal',
-          scale: {domain: labels, range: series.map((s) => s.style.colour)},
-          legend: {title: null, orient: 'bottom', direction: 'horizontal', columns: 4, symbolType: 'stroke', columnPadding: 14}
-        },
-        strokeDash: {
-          field: 'series',
-          type: 'nominal',
-          scale: {domain: labels, range: series.map((s) => s.style.dash)},
-          legend: {title: null, orient: 'bottom', direction: 'horizontal', columns: 4, symbolType: 'stroke', columnPadding: 14}
-        },
-        strokeWidth: {
-          field: 'series',
-          type: 'nominal',
-          scale: {domain: labels, range: series.map((s) => s.style.width)},
-          legend: null
-        }
+        color: {field: 'series', type: 'nominal', scale: {domain: labels, range: series.map((s) => s.style.colour)}, legend},
+        strokeDash: {field: 'series', type: 'nominal', scale: {domain: labels, range: series.map((s) => s.style.dash)}, legend}
       },
       // Two layers on shared scales so that the total is drawn last, on top of the contributors.
       layer: [
-        {transform: [{filter: '!datum.total'}], mark: LINE},
-        {transform: [{filter: 'datum.total'}], mark: LINE}
+        {transform: [{filter: '!datum.total'}], mark: {...LINE, strokeWidth: CONTRIBUTOR_WIDTH}},
+        {transform: [{filter: 'datum.total'}], mark: {...LINE, strokeWidth: TOTAL_STYLE.width}}
       ]
     }
   }

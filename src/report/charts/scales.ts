@@ -42,8 +42,16 @@ export function extent(values: readonly number[], what: string): [number, number
   return [lo, hi]
 }
 
+/** A log axis needs 0 < lo ≤ hi, both finite: anything else is a bug in a builder, not a chart. */
+function assertLogRange(lo: number, hi: number): void {
+  if (!(Number.isFinite(lo) && Number.isFinite(hi) && lo > 0 && hi >= lo)) {
+    throw new RangeError(`Unexpected log-axis range [${lo}, ${hi}], expected 0 < low ≤ high, both finite`)
+  }
+}
+
 /** The decade-aligned range around [lo, hi] (both > 0), for a log axis that starts and ends on a decade. */
 export function decadeDomain([lo, hi]: [number, number]): [number, number] {
+  assertLogRange(lo, hi)
   const a = 10 ** Math.floor(Math.log10(lo) + 1e-9)
   let b = 10 ** Math.ceil(Math.log10(hi) - 1e-9)
   if (b <= a) b = a * 10
@@ -56,6 +64,7 @@ export function decadeDomain([lo, hi]: [number, number]): [number, number] {
  * labels print as "1k", not "999.9999999999999".
  */
 export function logTicks([lo, hi]: [number, number]): number[] {
+  assertLogRange(lo, hi)
   const ticks = (mantissas: number[]) => {
     const out: number[] = []
     for (let e = Math.floor(Math.log10(lo)) - 1; e <= Math.ceil(Math.log10(hi)) + 1; e++) {
@@ -72,6 +81,12 @@ export function logTicks([lo, hi]: [number, number]): number[] {
 
 /** d3-format specifier of axis labels: SI prefix, trailing zeros trimmed ("1k", "100µ", "2.5n"). */
 export const SI_AXIS_FORMAT = '~s'
+
+/**
+ * Axis `labelExpr` printing zero as "0": d3 gives every tick of a linear axis the same
+ * prefix, so zero would otherwise print as "0µ".
+ */
+export const ZERO_AS_PLAIN_LABEL = "datum.value === 0 ? '0' : datum.label"
 
 /** The SI prefix letters d3-format's `s` type can end a number with. */
 const SI_PREFIXES = 'yzafpnµmkMGTPEZY'

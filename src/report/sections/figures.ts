@@ -9,10 +9,13 @@ import {renderChartSvg} from '../vega.js'
 import {DC_LABELS, NOISE_LABELS} from '../labels.js'
 import type {TopLevelSpec} from 'vega-lite'
 
+/** SVG user units (px, 96 per inch) to PDF points (72 per inch). */
+const PX_TO_PT = 0.75
+
 async function figure(ctx: ReportContext, spec: TopLevelSpec, caption: string): Promise<FigureNode> {
   const chart = await renderChartSvg(spec, ctx.fonts)
   for (const w of chart.warnings) ctx.warnings.push(`chart “${caption}”: ${w}`)
-  return {type: 'figure', number: ++ctx.figure, caption, svg: chart.svg, width: chart.width, height: chart.height}
+  return {type: 'figure', number: ++ctx.figure, caption, svg: chart.svg, width: chart.width * PX_TO_PT, height: chart.height * PX_TO_PT}
 }
 
 export const dcFigure = (ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode> =>

@@ -23,8 +23,8 @@ export function logGrid(lo: number, hi: number, perDecade: number): number[] {
 const NOISE_GAIN = 11
 const KT4 = 4 * 1.380649e-23 * 300
 
-/** Loop: A0 = 2·10⁵, first pole 15 Hz, second pole 3 MHz, β = 1/11. */
-const LOOP = {a0: 2e5, p1: 15, p2: 3e6, beta: 1 / NOISE_GAIN}
+/** Loop: A0 = 2·10⁵, first pole 15 Hz, second pole 500 kHz, β = 1/11. */
+const LOOP = {a0: 2e5, p1: 15, p2: 500e3, beta: 1 / NOISE_GAIN}
 
 export function loopGainAt(f: number): {magnitude: number; phase: number} {
   const magnitude = (LOOP.a0 * LOOP.beta) / Math.hypot(1, f / LOOP.p1) / Math.hypot(1, f / LOOP.p2)

@@ -1,0 +1,61 @@
+/**
+ * `build --watch`: build once, then rebuild a note each time it is saved and print its
+ * verdicts. Watches each note's folder (editors often save by rename), debounces bursts of
+ * events, and keeps fonts and templates loaded between builds.
+ */
+import {watch, type FSWatcher} from 'node:fs'
+import {basename, dirname, resolve} from 'node:path'
+import {formatDiagnostic} from './diagnostics.js'
+import {processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
+
+export interface WatchIo {
+  out: (s: string) => void
+  err: (s: string) => void
+}
+
+const verdictLine = (o: NoteOutcome, seconds: number): string => {
+  const result = o.exitCode === 2 ? 'error, no output written' : `${o.met} met, ${o.notMet} not met`
+  return `${o.file}: ${result} (${seconds.toFixed(2)} s)${o.outputs.length > 0 ? ` → ${o.outputs.join(', ')}` : ''}\n`
+}
+
+/** Resolves when `signal` aborts; every watcher is closed then. */
+export async function watchNotes(notes: string[], res: Resources, opts: RunOptions, io: WatchIo, signal: AbortSignal): Promise<void> {
+  const building = new Map<string, Promise<void>>()
+  const again = new Set<string>()
+  const build = async (note: string): Promise<void> => {
+    const t0 = performance.now()
+    const o = await processNote(note, res, opts).catch((e: unknown) => {
+      io.err(`${note}: internal error: ${e instanceof Error ? e.message : String(e)}\n`)
+      return null
+    })
+    if (o === null) return
+    for (const d of o.diagnostics) io.err(`${formatDiagnostic(note, d)}\n`)
+    io.out(verdictLine(o, (performance.now() - t0) / 1000))
+  }
+  const schedule = (note: string): void => {
+    if (building.has(note)) { again.add(note); return }
+    const p = new Promise<void>((r) => setTimeout(r, 30)).then(() => build(note)).finally(() => {
+      building.delete(note)
+      if (again.delete(note)) schedule(note)
+    })
+    building.set(note, p)
+  }
+  for (const note of notes) await build(note)
+  const watchers: FSWatcher[] = []
+  const byDir = new Map<string, Map<string, string>>()
+  for (const note of notes) {
+    const dir = dirname(resolve(note))
+    if (!byDir.has(dir)) byDir.set(dir, new Map())
+    byDir.get(dir)!.set(basename(note), note)
+  }
+  for (const [dir, names] of byDir) {
+    watchers.push(watch(dir, (_event, name) => {
+      const note = name === null ? undefined : names.get(name.toString())
+      if (note !== undefined) schedule(note)
+    }))
+  }
+  io.err(`watching ${notes.length} note(s); press Ctrl-C to stop\n`)
+  await new Promise<void>((r) => signal.addEventListener('abort', () => r(), {once: true}))
+  for (const w of watchers) w.close()
+  await Promise.all(building.values())
+}

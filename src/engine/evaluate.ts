@@ -1,0 +1,52 @@
+/**
+ * `evaluateStage`: the whole engine for one stage, StageInput → StageResult (DESIGN §4).
+ *
+ *   1. topology terms (§4.1)   2. DC budget (§4.2)   3. noise (§4.3)
+ *   4. stability (§4.4)        5. swing (§4.1)       6. requirements (§3.3)
+ *
+ * Pure: no I/O, clock or randomness; the same input gives the same result.
+ */
+import {dcAnalysis} from './dc/budget.js'
+import {noiseAnalysis} from './noise/budget.js'
+import {checkRequirements} from './requirements.js'
+import {stabilityAnalysis} from './stability.js'
+import {swingCheck} from './swing.js'
+import {topologyTerms} from './topology/index.js'
+import type {StageInput, StageResult} from './types.js'
+
+/**
+ * Reject inputs the engine cannot evaluate (the note layer reports these with positions;
+ * this guards library callers).
+ */
+export function assertEvaluable(input: StageInput): void {
+  const needs = (key: 'rf' | 'rg', ok: boolean): void => {
+    if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a resistor for a ${input.topology} stage`)
+  }
+  if (input.topology !== 'follower') needs('rf', input.rf !== null && input.rf.value > 0)
+  if (input.topology === 'noninverting' || input.topology === 'inverting') needs('rg', input.rg !== null && input.rg.value > 0)
+  const [fL, fH] = input.band
+  if (!(fL > 0 && fH > fL)) throw new RangeError(`Unexpected band ${fL} .. ${fH} Hz in stage \`${input.id}\`, expected 0 < fL < fH`)
+  if (!(input.opamp.gbw > 0 && input.opamp.aol > 0)) throw new RangeError(`Unexpected gbw or aol in stage \`${input.id}\`, expected positive values`)
+}
+
+/** Evaluate a stage: DC budget, noise, stability, swing and requirement verdicts. */
+export function evaluateStage(input: StageInput): StageResult {
+  assertEvaluable(input)
+  const terms = topologyTerms(input)
+  const dc = dcAnalysis(input)
+  const noise = noiseAnalysis(input)
+  const loop = stabilityAnalysis(input)
+  const figures = {dc: dc.budget, noise: noise.budget, stability: loop.stability}
+  return {
+    id: input.id,
+    topology: input.topology,
+    opamp: input.opamp.name,
+    gain: terms.gain,
+    noiseGain: terms.noiseGain,
+    ...figures,
+    requirements: checkRequirements(input, figures),
+    curves: {...noise.curves, ...loop.curves},
+    swing: swingCheck(input),
+    bias: dc.bias
+  }
+}

@@ -1,0 +1,42 @@
+/**
+ * The engine's public API (`ampreview/engine`): re-exports only.
+ */
+export * from './types.js'
+export * from './archetypes.js'
+export * from './constants.js'
+export * from './complex.js'
+export {evaluateStage, assertEvaluable} from './evaluate.js'
+export {dcAnalysis, dcBudget, type DcAnalysis} from './dc/budget.js'
+export {biasCurrentAt, biasOverTemperature, doublingInterval} from './dc/bias.js'
+export {maxOverCorners, type Spreads} from './dc/corners.js'
+export {noiseAnalysis, noiseBudget, type NoiseAnalysis, type NoiseCurves} from './noise/budget.js'
+export {currentNoiseScale, noiseKelvin, noiseSources, thermalCurrentPsd, type NoiseSource} from './noise/sources.js'
+export {compileSources, noiseTransfers, outputPsdInto, type CompiledSources} from './noise/transfer.js'
+export {integrateBand, type BandIntegral, type DensityFunction, type IntegrateOptions} from './noise/integrate.js'
+export {stabilityAnalysis, type LoopCurves, type StabilityAnalysis} from './stability.js'
+export {findCrossover, phaseMarginOf, refineCrossover, spanStart, type Crossover} from './crossover.js'
+export {suggestCf} from './suggested-cf.js'
+export {closedLoopGain, loopGain} from './response.js'
+export {swingCheck} from './swing.js'
+export {checkRequirements} from './requirements.js'
+export {opampPoles, openLoopGainInto, type OpampPoles} from './opamp-model.js'
+export {buildNetlist, NODE_NAMES, type ElementLabel, type NetElement, type Netlist, type NetlistSpec, type NodeName, type SpecElement} from './netlist.js'
+export {createWorkspace, setCapacitance, solveClosed, solveInPlace, solveLoop, transposeInPlace, type NodalWorkspace} from './nodal.js'
+export {illinois, goldenMax} from './roots.js'
+export {
+  TOPOLOGY_MODELS,
+  RESISTOR_KEYS,
+  nominalResistors,
+  parallel,
+  stageNetlist,
+  topologyModel,
+  topologyTerms,
+  follower,
+  inverting,
+  noninverting,
+  transimpedance,
+  type ResistorKey,
+  type ResistorValues,
+  type TopologyModel,
+  type TopologyTerms
+} from './topology/index.js'

@@ -1,0 +1,74 @@
+/**
+ * The stage's noise sources, all uncorrelated (DESIGN §4.3).
+ *
+ * - en(f) = en·√(1 + fce/f), in series with the + input inside the pin capacitances;
+ * - in(f) = in·√(1 + fci/f) from each input pin to ground, independently; for jfet and cmos
+ *   inputs scaled by √(IB(T)/IB(25 °C)) at the noise temperature (shot noise of the gate
+ *   leakage, i² = 2q·IB, common practice);
+ * - thermal noise of every real resistor as a Norton current, i² = 4kT/R (Johnson–Nyquist);
+ * - shot noise of the transimpedance source current, i² = 2q·idark (Schottky).
+ * Densities are one-sided power spectral densities: V²/Hz or A²/Hz.
+ */
+import {BOLTZMANN, CELSIUS_TO_KELVIN, ELEMENTARY_CHARGE} from '../constants.js'
+import {biasCurrentAt, doublingInterval} from '../dc/bias.js'
+import type {Netlist} from '../netlist.js'
+import {topologyModel} from '../topology/index.js'
+import type {NoiseKey, StageInput} from '../types.js'
+
+/** One noise source in a compiled netlist. */
+export interface NoiseSource {
+  key: NoiseKey
+  /** `voltage`: the op-amp's en; `current`: a current injected into node `into`, returning from `from`. */
+  kind: 'voltage' | 'current'
+  into: number
+  from: number
+  /** White density: V²/Hz or A²/Hz. */
+  white: number
+  /** 1/f corner, Hz (0 = none): density = white·(1 + corner/f). */
+  corner: number
+}
+
+/** Noise temperature of a stage, K. */
+export const noiseKelvin = (input: StageInput): number => input.noiseTemperature + CELSIUS_TO_KELVIN
+
+/** Johnson–Nyquist current density of a resistor, A²/Hz: 4kT/R. */
+export const thermalCurrentPsd = (resistance: number, kelvin: number): number => (4 * BOLTZMANN * kelvin) / resistance
+
+/** Current-noise scale for FET/CMOS inputs at temperature T (°C): √(IB(T)/IB(25 °C)); 1 otherwise. */
+export function currentNoiseScale(input: StageInput, t: number): number {
+  const op = input.opamp
+  if (op.inputType !== 'jfet' && op.inputType !== 'cmos') return 1
+  if (doublingInterval(op) === null || op.ib === 0) return 1
+  return Math.sqrt(biasCurrentAt(op, t) / op.ib)
+}
+
+/** The noise sources that apply to the stage's topology, one per contributor key, in key order. */
+export function noiseSources(input: StageInput, net: Netlist): NoiseSource[] {
+  const op = input.opamp
+  const kelvin = noiseKelvin(input)
+  const inScale = currentNoiseScale(input, input.noiseTemperature)
+  const inPsd = (op.in * inScale) ** 2
+  const resistor = (label: string): Pick<NoiseSource, 'into' | 'from' | 'white'> => {
+    const e = net.elements.find((x) => x.label === label && x.kind === 'g')
+    // An absent or 0 Ω resistor is a wire and makes no noise.
+    return e ? {into: e.a, from: e.b, white: thermalCurrentPsd(1 / e.value, kelvin)} : {into: 0, from: 0, white: 0}
+  }
+  return topologyModel(input).noiseKeys.map((key): NoiseSource => {
+    switch (key) {
+      case 'en':
+        return {key, kind: 'voltage', into: net.out, from: 0, white: op.en ** 2, corner: op.enCorner}
+      case 'in+':
+        return {key, kind: 'current', into: net.plus, from: 0, white: inPsd, corner: op.inCorner}
+      case 'in-':
+        return {key, kind: 'current', into: net.minus, from: 0, white: inPsd, corner: op.inCorner}
+      case 'shot':
+        return {key, kind: 'current', into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * input.idark, corner: 0}
+      case 'r:rf':
+      case 'r:rg':
+      case 'r:rs':
+      case 'r:rcomp':
+      case 'r:rshunt':
+        return {key, kind: 'current', ...resistor(key.slice(2)), corner: 0}
+    }
+  })
+}

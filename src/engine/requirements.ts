@@ -1,0 +1,31 @@
+/**
+ * Requirement verdicts (DESIGN §3.3, §6): each key of `require` against its figure; `max`
+ * limits are met when value ≤ limit, `min` limits when value ≥ limit; a figure that does not
+ * exist (null) never meets its limit.
+ */
+import {REQUIREMENT_KEYS, type RequirementKey, type RequirementResult, type StageInput, type StageResult} from './types.js'
+
+type Figures = Pick<StageResult, 'dc' | 'noise' | 'stability'>
+
+const FIGURE: Record<RequirementKey, (r: Figures) => number | null> = {
+  'output-error': (r) => r.dc.worstCaseOutput,
+  'output-error-rss': (r) => r.dc.rssOutput,
+  'input-error': (r) => r.dc.worstCaseInput,
+  'noise-rms': (r) => r.noise.outputRms,
+  'noise-pp': (r) => r.noise.outputPeakToPeak,
+  'phase-margin': (r) => r.stability.phaseMargin,
+  bandwidth: (r) => r.stability.bandwidth
+}
+
+/** Verdicts for every key the stage requires, in the order of REQUIREMENT_KEYS. */
+export function checkRequirements(input: StageInput, figures: Figures): RequirementResult[] {
+  const out: RequirementResult[] = []
+  for (const key of Object.keys(REQUIREMENT_KEYS) as RequirementKey[]) {
+    const limit = input.require[key]
+    if (limit === undefined) continue
+    const value = FIGURE[key](figures)
+    const met = value !== null && (REQUIREMENT_KEYS[key].sense === 'max' ? value <= limit : value >= limit)
+    out.push({key, limit, value, met})
+  }
+  return out
+}

@@ -1,0 +1,125 @@
+/**
+ * The key tables of the stage language: every key of a `stage` block (DESIGN §3.3) and of
+ * an `opamp` block (§3.2), with how its value is read and where it applies. One table
+ * drives parsing, unknown-key hints, keys that don't apply to a topology, and missing
+ * required keys; `stage-block.ts` and `opamp-block.ts` only walk it.
+ */
+import type {Dimension} from '../units/index.js'
+import type {OpampParams, Topology} from '../engine/types.js'
+
+/** r = required, o = optional, – = an error if given (DESIGN §3.3's table). */
+export type Use = 'r' | 'o' | '-'
+type Uses = Readonly<Record<Topology, Use>>
+
+const ALL_R: Uses = {noninverting: 'r', inverting: 'r', follower: 'r', transimpedance: 'r'}
+const ALL_O: Uses = {noninverting: 'o', inverting: 'o', follower: 'o', transimpedance: 'o'}
+const TIA_ONLY: Uses = {noninverting: '-', inverting: '-', follower: '-', transimpedance: 'o'}
+
+/** How a stage value is read. */
+export type StageKind =
+  | {kind: 'text'}
+  | {kind: 'topology'}
+  | {kind: 'opamp'}
+  /** `value [tolerance] [tempco]`. */
+  | {kind: 'resistor'}
+  /** A resistance without tolerance or tempco (rshunt). */
+  | {kind: 'shunt'}
+  | {kind: 'quantity'; dim: Dimension}
+  /** Signal range: V, or A for transimpedance; a single value is 0 .. x. */
+  | {kind: 'input'}
+  | {kind: 'supply'}
+  /** Temperature range; a single value is x .. x. */
+  | {kind: 'temperature-range'}
+  /** Frequency range; a single value is 0 .. x (and so refused: it starts at 0 Hz). */
+  | {kind: 'band'}
+  | {kind: 'require'}
+
+export interface StageKeySpec {
+  readonly read: StageKind
+  readonly use: Uses
+}
+
+export const STAGE_KEYS = {
+  title: {read: {kind: 'text'}, use: ALL_O},
+  topology: {read: {kind: 'topology'}, use: ALL_R},
+  opamp: {read: {kind: 'opamp'}, use: ALL_R},
+  rf: {read: {kind: 'resistor'}, use: {noninverting: 'r', inverting: 'r', follower: 'o', transimpedance: 'r'}},
+  rg: {read: {kind: 'resistor'}, use: {noninverting: 'r', inverting: 'r', follower: '-', transimpedance: '-'}},
+  rs: {read: {kind: 'resistor'}, use: {noninverting: 'o', inverting: 'o', follower: 'o', transimpedance: '-'}},
+  rcomp: {read: {kind: 'resistor'}, use: ALL_O},
+  ccomp: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
+  cf: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
+  cstray: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
+  rshunt: {read: {kind: 'shunt'}, use: TIA_ONLY},
+  csource: {read: {kind: 'quantity', dim: 'capacitance'}, use: TIA_ONLY},
+  idark: {read: {kind: 'quantity', dim: 'current'}, use: TIA_ONLY},
+  vref: {read: {kind: 'quantity', dim: 'voltage'}, use: {noninverting: '-', inverting: 'o', follower: '-', transimpedance: 'o'}},
+  input: {read: {kind: 'input'}, use: ALL_R},
+  supply: {read: {kind: 'supply'}, use: ALL_R},
+  'supply-tolerance': {read: {kind: 'quantity', dim: 'fraction'}, use: ALL_O},
+  temperature: {read: {kind: 'temperature-range'}, use: ALL_O},
+  band: {read: {kind: 'band'}, use: ALL_O},
+  'noise-temperature': {read: {kind: 'quantity', dim: 'temperature'}, use: ALL_O},
+  require: {read: {kind: 'require'}, use: ALL_O}
+} as const satisfies Record<string, StageKeySpec>
+
+export type StageKey = keyof typeof STAGE_KEYS
+export const isStageKey = (s: string): s is StageKey => Object.hasOwn(STAGE_KEYS, s)
+type KindOf<K extends StageKey> = (typeof STAGE_KEYS)[K]['read']['kind']
+type KeysOfKind<T extends string> = {[K in StageKey]: KindOf<K> extends T ? K : never}[StageKey]
+/** Keys read as a resistor spec. */
+export type ResistorKey = KeysOfKind<'resistor'>
+/** Keys read as a single quantity. */
+export type QuantityKey = KeysOfKind<'quantity'>
+
+/** Resistor keys where a value under 1 Ω written with `m` is suspicious (DESIGN §3.1). */
+export const MILLI_CHECKED: readonly ResistorKey[] = ['rf', 'rg', 'rs']
+
+/** How an opamp value may be signed. */
+export type Sign = 'any' | 'nonnegative' | 'positive'
+/** Required, or the default used when not given (0, or null = "not entered"). */
+export type Need = 'required' | 'zero' | 'null'
+
+export interface OpampKeySpec {
+  readonly dim: Dimension
+  readonly need: Need
+  readonly sign: Sign
+  /** Field of `OpampParams` it fills. */
+  readonly field: Exclude<keyof OpampParams, 'name' | 'archetype' | 'inputType'>
+}
+
+/** Opamp keys with a quantity value (DESIGN §3.2); `input-type` is read separately. */
+export const OPAMP_KEYS = {
+  vos: {dim: 'voltage', need: 'required', sign: 'nonnegative', field: 'vos'},
+  'vos-drift': {dim: 'drift', need: 'zero', sign: 'nonnegative', field: 'vosDrift'},
+  ib: {dim: 'current', need: 'required', sign: 'nonnegative', field: 'ib'},
+  ios: {dim: 'current', need: 'required', sign: 'nonnegative', field: 'ios'},
+  'ib-max': {dim: 'current', need: 'null', sign: 'nonnegative', field: 'ibMax'},
+  'ios-max': {dim: 'current', need: 'null', sign: 'nonnegative', field: 'iosMax'},
+  'ib-doubling': {dim: 'temperature-interval', need: 'null', sign: 'positive', field: 'ibDoubling'},
+  en: {dim: 'voltage-density', need: 'required', sign: 'nonnegative', field: 'en'},
+  'en-corner': {dim: 'frequency', need: 'zero', sign: 'nonnegative', field: 'enCorner'},
+  in: {dim: 'current-density', need: 'required', sign: 'nonnegative', field: 'in'},
+  'in-corner': {dim: 'frequency', need: 'zero', sign: 'nonnegative', field: 'inCorner'},
+  gbw: {dim: 'frequency', need: 'required', sign: 'positive', field: 'gbw'},
+  aol: {dim: 'ratio-db', need: 'required', sign: 'positive', field: 'aol'},
+  'pm-unity': {dim: 'angle', need: 'required', sign: 'positive', field: 'pmUnity'},
+  cmrr: {dim: 'ratio-db', need: 'required', sign: 'positive', field: 'cmrr'},
+  psrr: {dim: 'ratio-db', need: 'required', sign: 'positive', field: 'psrr'},
+  'vcm-ref': {dim: 'voltage', need: 'null', sign: 'any', field: 'vcmRef'},
+  'cin-diff': {dim: 'capacitance', need: 'zero', sign: 'nonnegative', field: 'cinDiff'},
+  'cin-cm': {dim: 'capacitance', need: 'zero', sign: 'nonnegative', field: 'cinCm'},
+  slew: {dim: 'slew', need: 'zero', sign: 'nonnegative', field: 'slew'},
+  'swing-headroom': {dim: 'voltage', need: 'zero', sign: 'nonnegative', field: 'swingHeadroom'}
+} as const satisfies Record<string, OpampKeySpec>
+
+export type OpampKey = keyof typeof OPAMP_KEYS
+export const isOpampKey = (s: string): s is OpampKey => Object.hasOwn(OPAMP_KEYS, s)
+/** Every key an opamp block takes, `input-type` included. */
+export const OPAMP_BLOCK_KEYS: readonly string[] = ['input-type', ...Object.keys(OPAMP_KEYS)]
+
+/** Front-matter keys (DESIGN §3). */
+export const META_KEYS = [
+  'title', 'document', 'revision', 'date', 'author', 'reviewers', 'project', 'status', 'context', 'template'
+] as const
+export type MetaKey = (typeof META_KEYS)[number]

@@ -1,0 +1,91 @@
+/**
+ * Message catalog of `src/note`: every diagnostic it raises, worded "Unexpected …, expected
+ * …" with what was found, what was expected and how to fix it. Tests compare against these
+ * functions, so wording lives here only. Value problems from the quantity grammar arrive
+ * already worded by `src/units/messages.ts`.
+ */
+
+const q = (s: string): string => `\`${s}\``
+const hint = (suggestion: string | null): string => (suggestion === null ? '' : `; did you mean ${q(suggestion)}?`)
+
+export type BlockKind = 'stage' | 'opamp'
+
+/** "stage `bridge-amp`", "front matter". */
+export const blockName = (kind: BlockKind, id: string | null): string => (id === null ? `${kind} block` : `${kind} ${q(id)}`)
+
+export const noteMessages = {
+  binaryFile: () => 'Unexpected binary content (NUL bytes), expected a Markdown note saved as UTF-8 text',
+  frontMatterNotFirst: (line: number) =>
+    `Unexpected \`---\` on line ${line} after blank lines, expected front matter to start on line 1: remove the blank lines before it (as written it is a rule and a heading)`,
+  yamlSyntax: (where: string, detail: string) => `Unexpected YAML in ${where}: ${detail}; expected \`key: value\` lines`,
+  yamlWarning: (where: string, detail: string) => `Unexpected YAML in ${where}: ${detail}`,
+  notAMap: (where: string, found: string) => `Unexpected ${found} in ${where}, expected \`key: value\` lines`,
+  badKey: (where: string) => `Unexpected key that is not plain text in ${where}, expected a key name such as \`rf\``,
+  duplicateKey: (key: string, where: string) => `Unexpected second ${q(key)} in ${where}, expected each key once: remove one`,
+  firstKey: (key: string) => `First ${q(key)} here`,
+
+  missingId: (kind: BlockKind) =>
+    `Unexpected ${q(kind)} block without an id, expected one after ${q(kind)} (\`\`\`${kind} my-${kind}): add an id`,
+  badId: (kind: BlockKind, id: string) =>
+    `Unexpected ${kind} id ${q(id)}, expected one word of letters, digits, \`-\`, \`_\` or \`.\`: rename it`,
+  duplicateId: (kind: BlockKind, id: string) =>
+    `Unexpected second ${kind} ${q(id)}, expected each ${kind} id once: rename one`,
+  firstId: (kind: BlockKind, id: string) => `First ${kind} ${q(id)} defined here`,
+  chainUnsupported: () =>
+    'Unexpected `chain` block, expected `stage` or `opamp`: chains are not supported yet; printed as code',
+  unclosedFence: (where: string) =>
+    `Unexpected end of the document inside ${where}, expected a closing fence: add \`\`\` after the last key`,
+
+  unknownKey: (key: string, where: string, kind: string, suggestion: string | null, otherKind: string | null) =>
+    otherKind === null
+      ? `Unexpected key ${q(key)} in ${where}, expected ${kind} key${hint(suggestion)}`
+      : `Unexpected key ${q(key)} in ${where}, expected ${kind} key: ${q(key)} belongs in ${otherKind}`,
+  keyNotForTopology: (key: string, topology: string, where: string) =>
+    `Unexpected key ${q(key)} in ${topology} ${where}, expected only keys a ${topology} stage takes: remove it or change \`topology\``,
+  missingKey: (key: string, where: string, why: string) =>
+    `Missing ${q(key)} in ${where}, expected it ${why}: add \`${key}: …\``,
+  notScalar: (key: string, found: string) => `Unexpected ${found} for ${q(key)}, expected a single value`,
+  emptyValue: (key: string, expected: string) => `Unexpected empty value for ${q(key)}, expected ${expected}`,
+  unknownChoice: (key: string, value: string, choices: readonly string[], suggestion: string | null) =>
+    `Unexpected ${q(value)} for ${q(key)}, expected one of ${choices.map(q).join(', ')}${hint(suggestion)}`,
+
+  negative: (key: string, value: string, expected: string) =>
+    `Unexpected negative ${q(value)} for ${q(key)}, expected ${expected} of 0 or more`,
+  notPositive: (key: string, value: string, expected: string) =>
+    `Unexpected ${q(value)} for ${q(key)}, expected ${expected} above 0`,
+  bandFromZero: () =>
+    'Unexpected `band` starting at 0 Hz, expected a lower edge above 0 Hz (1/f noise has no finite total from 0 Hz): write e.g. `0.1 .. 10k Hz`',
+  bandEmpty: (value: string) => `Unexpected empty band ${q(value)}, expected a lower edge below the upper one`,
+  pmOutOfRange: (value: string) =>
+    `Unexpected \`pm-unity\` of ${q(value)}, expected 0° < φ ≤ 90° (90° means no second pole)`,
+  supplyTolerance: (value: string) =>
+    `Unexpected supply tolerance ${q(value)}, expected under 100 %: write e.g. \`5 %\``,
+  ccompWithoutRcomp: () =>
+    'Unexpected `ccomp` without `rcomp`, expected `rcomp` beside it (ccomp bypasses the compensation resistor): add `rcomp` or remove `ccomp`',
+  cfWithoutRf: () =>
+    'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
+  shuntParts: () =>
+    'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
+  milliOhm: (key: string, value: string) =>
+    `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
+  unknownRequirement: (key: string, suggestion: string | null) =>
+    `Unexpected requirement ${q(key)}, expected a requirement key${hint(suggestion)}`,
+  requireNotMap: () => 'Unexpected value for `require`, expected a map of requirements (`noise-rms: 30 uV` on the lines below, indented)',
+
+  unknownOpamp: (name: string, stage: string, suggestion: string | null) =>
+    `Unexpected opamp ${q(name)} in ${stage}, expected the id of an opamp block of this note or an archetype${hint(suggestion)}`,
+  opampDefinedLater: (name: string, line: number) =>
+    `Unexpected opamp ${q(name)} before its block (line ${line}), expected it defined above the stage: move the opamp block up`,
+  opampHasErrors: (stage: string, name: string) =>
+    `${stage} is not evaluated: its opamp ${q(name)} has errors`,
+  archetypeShadowed: (id: string) =>
+    `Unexpected opamp block ${q(id)} with the name of a built-in archetype, expected a name of its own: the block is used, not the archetype; rename it to avoid confusion`,
+
+  unknownMetaKey: (key: string, suggestion: string | null) =>
+    `Unexpected front-matter key ${q(key)}, expected a document key${hint(suggestion)}; it is ignored`,
+  metaNotText: (key: string, found: string) => `Unexpected ${found} for ${q(key)}, expected text`,
+  metaNotList: (key: string, found: string) => `Unexpected ${found} for ${q(key)}, expected a list (\`- item\` lines)`,
+  badReviewer: (found: string) =>
+    `Unexpected reviewer ${found}, expected "Name", "Name (Role)" or a map with \`name\` and \`role\``,
+  unknownReviewerKey: (key: string) => `Unexpected reviewer key ${q(key)}, expected \`name\` or \`role\`; it is ignored`
+} as const

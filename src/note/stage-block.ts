@@ -1,0 +1,140 @@
+/**
+ * A `stage` block from its fields to a `StageInput`: reads them (`stage-read.ts`), reports
+ * missing required keys at the block's id and checks that need several keys (ccomp without
+ * rcomp, cf on a follower without rf), resolves the op-amp through the caller, then applies
+ * the defaults and lists them. Any error in the block makes the input null.
+ */
+import type {Point} from 'unist'
+import type {OpampParams, Resistor, StageInput, Topology} from '../engine/types.js'
+import {formatPercent, formatQuantity, formatRange, formatTemperature, formatTemperatureRange, formatTempco} from '../units/index.js'
+import type {Field} from './block-yaml.js'
+import type {Reporter} from './diagnostics.js'
+import {STAGE_KEYS, type ResistorKey, type StageKey} from './keys.js'
+import {noteMessages} from './messages.js'
+import {readStage, type ReadResistor, type StageRead} from './stage-read.js'
+import type {DefaultedValue} from './types.js'
+
+/** Defaults where DESIGN §3.3 gives them, and ours where it is silent (band). */
+export const STAGE_DEFAULTS = {
+  cstray: 0,
+  supplyTolerance: 0.05,
+  temperature: [25, 25] as const,
+  /** Our decision: DESIGN is silent. 0.1 Hz .. 10 kHz covers a precision stage's usual band. */
+  band: [0.1, 10e3] as const,
+  noiseTemperature: 25,
+  vref: 0
+} as const
+
+/** How a stage's `opamp:` is resolved; null after an error or when the opamp block has errors. */
+export type OpampResolver = (name: string, at: Point) => OpampParams | null
+
+export interface StageContext {
+  id: string
+  /** Where the id is (missing-key errors point there). */
+  idAt: Point
+  /** "stage `bridge-amp`". */
+  where: string
+  /** True when the block's YAML had syntax errors: missing keys are then not reported. */
+  broken: boolean
+  report: Reporter
+  resolveOpamp: OpampResolver
+}
+
+export interface BuiltStage {
+  input: StageInput | null
+  defaulted: DefaultedValue[]
+}
+
+const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp']
+
+function reportMissing(read: StageRead, ctx: StageContext): void {
+  for (const key of Object.keys(STAGE_KEYS) as StageKey[]) {
+    if (read.given.has(key)) continue
+    const use = STAGE_KEYS[key].use
+    const everywhere = Object.values(use).every((u) => u === 'r')
+    if (everywhere) ctx.report.error(noteMessages.missingKey(key, ctx.where, 'in every stage'), ctx.idAt, 'missing-key')
+    else if (read.topology !== null && use[read.topology] === 'r') {
+      ctx.report.error(noteMessages.missingKey(key, ctx.where, `for a ${read.topology} stage`), ctx.idAt, 'missing-key')
+    }
+  }
+}
+
+function checkCombinations(read: StageRead, ctx: StageContext): void {
+  const ccomp = read.given.get('ccomp')
+  if (ccomp !== undefined && (read.quantities.ccomp ?? 0) > 0 && (read.resistors.rcomp?.value ?? 0) === 0) {
+    ctx.report.error(noteMessages.ccompWithoutRcomp(), ccomp.keyAt, 'inconsistent-keys')
+  }
+  const cf = read.given.get('cf')
+  if (read.topology === 'follower' && cf !== undefined && (read.quantities.cf ?? 0) > 0 && (read.resistors.rf?.value ?? 0) === 0) {
+    ctx.report.error(noteMessages.cfWithoutRf(), cf.keyAt, 'inconsistent-keys')
+  }
+}
+
+const toResistor = (r: ReadResistor | undefined): Resistor | null =>
+  r === undefined || r.value === 0 ? null : {value: r.value, tolerance: r.tolerance, tempco: r.tempco}
+
+function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedValue[] {
+  const out: DefaultedValue[] = []
+  const applies = (key: StageKey): boolean => STAGE_KEYS[key].use[topology] !== '-' && !read.given.has(key)
+  const add = (key: StageKey, value: string): void => {
+    if (applies(key)) out.push({key, value})
+  }
+  add('title', id)
+  if (topology === 'follower') add('rf', '0 Ω (a wire)')
+  add('rs', 'none (0 Ω)')
+  add('rcomp', 'none (0 Ω)')
+  for (const key of ['ccomp', 'cf', 'cstray', 'csource'] as const) add(key, formatQuantity(0, 'F'))
+  add('rshunt', 'open')
+  add('idark', formatQuantity(0, 'A'))
+  add('vref', formatQuantity(STAGE_DEFAULTS.vref, 'V'))
+  add('supply-tolerance', formatPercent(STAGE_DEFAULTS.supplyTolerance))
+  add('temperature', formatTemperatureRange(...STAGE_DEFAULTS.temperature))
+  add('band', formatRange(...STAGE_DEFAULTS.band, 'Hz'))
+  add('noise-temperature', formatTemperature(STAGE_DEFAULTS.noiseTemperature))
+  for (const key of RESISTOR_KEYS) {
+    const r = read.resistors[key]
+    if (r === undefined) continue
+    if (r.defaulted.includes('tolerance')) out.push({key: `${key}.tolerance`, value: formatPercent(0)})
+    if (r.defaulted.includes('tempco')) out.push({key: `${key}.tempco`, value: formatTempco(0)})
+  }
+  return out
+}
+
+/** Build a stage from its fields (see module header). */
+export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltStage {
+  const errorsBefore = ctx.report.errors
+  const read = readStage(fields, ctx.where, ctx.report)
+  if (!ctx.broken) reportMissing(read, ctx)
+  checkCombinations(read, ctx)
+  const opamp = read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
+  const {topology, input, supply} = read
+  if (ctx.report.errors > errorsBefore || topology === null || opamp === null || input === null || supply === null) {
+    return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id)}
+  }
+  const q = read.quantities
+  const stage: StageInput = {
+    id: ctx.id,
+    title: read.title ?? ctx.id,
+    topology,
+    opamp,
+    rf: toResistor(read.resistors.rf),
+    rg: toResistor(read.resistors.rg),
+    rs: toResistor(read.resistors.rs),
+    rcomp: toResistor(read.resistors.rcomp),
+    ccomp: q.ccomp ?? 0,
+    cf: q.cf ?? 0,
+    cstray: q.cstray ?? STAGE_DEFAULTS.cstray,
+    rshunt: read.rshunt,
+    csource: q.csource ?? 0,
+    idark: q.idark ?? 0,
+    vref: q.vref ?? STAGE_DEFAULTS.vref,
+    input,
+    supply,
+    supplyTolerance: q['supply-tolerance'] ?? STAGE_DEFAULTS.supplyTolerance,
+    temperature: read.temperature ?? [...STAGE_DEFAULTS.temperature],
+    band: read.band ?? [...STAGE_DEFAULTS.band],
+    noiseTemperature: q['noise-temperature'] ?? STAGE_DEFAULTS.noiseTemperature,
+    require: read.require
+  }
+  return {input: stage, defaulted: defaultsOf(read, topology, ctx.id)}
+}

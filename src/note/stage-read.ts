@@ -1,0 +1,194 @@
+/**
+ * First half of a stage block: walk its fields through `STAGE_KEYS`, reporting unknown keys,
+ * keys the topology does not take and bad values, and collect what was read. Checks that
+ * look at several keys, defaults and the assembly of `StageInput` are in `stage-block.ts`.
+ */
+import type {Point} from 'unist'
+import {REQUIREMENT_KEYS, TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
+import type {Dimension} from '../units/index.js'
+import type {Field} from './block-yaml.js'
+import type {Reporter} from './diagnostics.js'
+import {didYouMean} from './did-you-mean.js'
+import {
+  MILLI_CHECKED, OPAMP_BLOCK_KEYS, STAGE_KEYS, isStageKey,
+  type QuantityKey, type ResistorKey
+} from './keys.js'
+import {noteMessages} from './messages.js'
+import {choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
+import {formatQuantity} from '../units/index.js'
+
+export interface ReadResistor {
+  value: number
+  tolerance: number
+  tempco: number
+  defaulted: ('tolerance' | 'tempco')[]
+}
+
+/** What a stage block said, SI, before defaults. */
+export interface StageRead {
+  topology: Topology | null
+  title: string | null
+  opamp: {name: string; at: Point} | null
+  resistors: Partial<Record<ResistorKey, ReadResistor>>
+  quantities: Partial<Record<QuantityKey, number>>
+  rshunt: number | null
+  input: [number, number] | null
+  supply: [number, number] | null
+  temperature: [number, number] | null
+  band: [number, number] | null
+  require: Partial<Record<RequirementKey, number>>
+  /** Every key written (valid or not), with its field: for missing-key and cross-key checks. */
+  given: Map<string, Field>
+}
+
+const STAGE_KEY_NAMES = Object.keys(STAGE_KEYS)
+
+const requirementDim = (unit: string, key: RequirementKey, topology: Topology | null): Dimension =>
+  unit === 'deg' ? 'angle' : unit === 'Hz' ? 'frequency' : key === 'input-error' && topology === 'transimpedance' ? 'current' : 'voltage'
+
+function readRequire(field: Field, read: StageRead, report: Reporter): void {
+  const v = field.value
+  if (v.type === 'scalar' && v.text === null) return
+  if (v.type !== 'map') {
+    report.error(noteMessages.requireNotMap(), v.type === 'scalar' ? v.at(0) : v.at, 'bad-value')
+    return
+  }
+  for (const sub of v.fields) {
+    const name = sub.key.slice('require.'.length)
+    if (!Object.hasOwn(REQUIREMENT_KEYS, name)) {
+      const suggestion = didYouMean(name, Object.keys(REQUIREMENT_KEYS))
+      report.error(noteMessages.unknownRequirement(name, suggestion), sub.keyAt, 'unknown-key', {actual: name, ...(suggestion ? {expected: [suggestion]} : {})})
+      continue
+    }
+    const key = name as RequirementKey
+    const q = quantityOf(sub, requirementDim(REQUIREMENT_KEYS[key].unit, key, read.topology), report)
+    if (q === null) continue
+    if (q.value < 0) {
+      report.error(noteMessages.negative(sub.key, q.s.text.trim(), 'a limit'), q.s.at(0), 'bad-value')
+      continue
+    }
+    read.require[key] = q.value
+  }
+}
+
+function readResistor(field: Field, key: ResistorKey, read: StageRead, report: Reporter): void {
+  const r = resistorOf(field, report)
+  if (r === null) return
+  const {value, tolerance, tempco} = r.value.value
+  const text = r.s.text.trim()
+  const wire = read.topology === 'follower' && key === 'rf'
+  const problem = value < 0
+    ? noteMessages.negative(key, text, 'a resistance')
+    : value === 0 && (key === 'rg' || (key === 'rf' && !wire)) ? noteMessages.notPositive(key, text, 'a resistance') : null
+  if (problem !== null) {
+    report.error(problem, r.s.at(0), 'bad-value')
+    return
+  }
+  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && value < 1) {
+    report.warn(noteMessages.milliOhm(key, formatQuantity(value, 'Ω')), r.s.at(0), 'suspicious-milliohm')
+  }
+  read.resistors[key] = {value, tolerance, tempco, defaulted: r.value.defaulted}
+}
+
+function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: StageRead, report: Reporter): void {
+  const q = quantityOf(field, dim, report)
+  if (q === null) return
+  const text = q.s.text.trim()
+  // vref and noise-temperature may be negative; currents, capacitances and tolerances not.
+  const signed = dim === 'voltage' || dim === 'temperature'
+  const what = dim === 'current' ? 'a current' : dim === 'fraction' ? 'a tolerance' : 'a capacitance'
+  const problem = !signed && q.value < 0
+    ? noteMessages.negative(key, text, what)
+    : key === 'supply-tolerance' && q.value >= 1 ? noteMessages.supplyTolerance(text) : null
+  if (problem !== null) {
+    report.error(problem, q.s.at(0), 'bad-value')
+    return
+  }
+  read.quantities[key] = q.value
+}
+
+/** Walk the fields of a stage block (see module header). */
+export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
+  const read: StageRead = {
+    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null,
+    input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
+  }
+  for (const f of fields) read.given.set(f.key, f)
+  const topo = read.given.get('topology')
+  if (topo !== undefined) read.topology = choiceOf(topo, TOPOLOGIES, report)
+
+  for (const field of fields) {
+    const key = field.key
+    if (!isStageKey(key)) {
+      const inOpamp = OPAMP_BLOCK_KEYS.includes(key)
+      const suggestion = inOpamp ? null : didYouMean(key, STAGE_KEY_NAMES)
+      report.error(noteMessages.unknownKey(key, where, 'a stage', suggestion, inOpamp ? 'an opamp block' : null), field.keyAt, 'unknown-key', {
+        actual: key, ...(suggestion ? {expected: [suggestion]} : {})
+      })
+      continue
+    }
+    const spec = STAGE_KEYS[key]
+    if (read.topology !== null && spec.use[read.topology] === '-') {
+      report.error(noteMessages.keyNotForTopology(key, read.topology, where), field.keyAt, 'key-not-for-topology')
+      continue
+    }
+    const kind = spec.read
+    switch (kind.kind) {
+      case 'topology':
+        break
+      case 'text': {
+        const s = scalarOf(field, 'a title', report)
+        if (s !== null) read.title = s.text.trim()
+        break
+      }
+      case 'opamp': {
+        const s = scalarOf(field, 'an opamp block id or an archetype name', report)
+        if (s !== null) read.opamp = {name: s.text.trim(), at: s.at(0)}
+        break
+      }
+      case 'resistor':
+        readResistor(field, key as ResistorKey, read, report)
+        break
+      case 'shunt': {
+        const r = resistorOf(field, report)
+        if (r === null) break
+        const text = r.s.text.trim()
+        if (r.value.hasParts) report.error(noteMessages.shuntParts(), r.s.at(r.value.partsOffset), 'bad-value')
+        else if (r.value.value.value <= 0) report.error(noteMessages.notPositive(key, text, 'a resistance'), r.s.at(0), 'bad-value')
+        else read.rshunt = r.value.value.value
+        break
+      }
+      case 'quantity':
+        readQuantityKey(field, key as QuantityKey, kind.dim, read, report)
+        break
+      case 'input': {
+        if (read.topology === null) break
+        const r = rangeOf(field, read.topology === 'transimpedance' ? 'current' : 'voltage', report, 'from-zero')
+        if (r !== null) read.input = r.value
+        break
+      }
+      case 'supply': {
+        const r = supplyOf(field, report)
+        if (r !== null) read.supply = r.value
+        break
+      }
+      case 'temperature-range': {
+        const r = rangeOf(field, 'temperature', report, 'point')
+        if (r !== null) read.temperature = r.value
+        break
+      }
+      case 'band': {
+        const r = rangeOf(field, 'frequency', report, 'from-zero')
+        if (r === null) break
+        if (r.value[0] <= 0) report.error(noteMessages.bandFromZero(), r.s.at(0), 'bad-value')
+        else if (r.value[0] === r.value[1]) report.error(noteMessages.bandEmpty(r.s.text.trim()), r.s.at(0), 'bad-value')
+        else read.band = r.value
+        break
+      }
+      case 'require':
+        readRequire(field, read, report)
+        break
+    }
+  }
+  return read
+}

@@ -1,0 +1,89 @@
+/**
+ * Reading one field's value with the quantity grammar of `src/units`, reporting problems
+ * at the value's place (the offset the grammar gives, mapped into the Markdown file).
+ * Each reader returns null after reporting; the caller goes on with the next key.
+ */
+import type {Point} from 'unist'
+import {
+  DIMENSIONS, parseQuantity, parseRange, parseResistor, parseSupply,
+  type Dimension, type RangeOptions, type ResistorResult
+} from '../units/index.js'
+import type {Field} from './block-yaml.js'
+import {describeValue} from './block-yaml.js'
+import type {Reporter} from './diagnostics.js'
+import {noteMessages} from './messages.js'
+import {didYouMean} from './did-you-mean.js'
+
+/** A scalar's text with its place mapper. */
+export interface ScalarText {
+  text: string
+  at: (offset: number) => Point
+}
+
+/** The field's text, or null after reporting a list, map or empty value. */
+export function scalarOf(field: Field, expected: string, report: Reporter): ScalarText | null {
+  const v = field.value
+  if (v.type !== 'scalar') {
+    report.error(noteMessages.notScalar(field.key, describeValue(v)), v.at, 'bad-value')
+    return null
+  }
+  if (v.text === null || v.text.trim() === '') {
+    report.error(noteMessages.emptyValue(field.key, expected), v.at(0), 'bad-value')
+    return null
+  }
+  return {text: v.text, at: v.at}
+}
+
+const expectedOf = (dim: Dimension): string => DIMENSIONS[dim].label
+
+type Parsed<T> = {ok: true; value: T} | {ok: false; message: string; offset: number}
+
+function read<T>(field: Field, expected: string, report: Reporter, parse: (text: string) => Parsed<T>): {value: T; s: ScalarText} | null {
+  const s = scalarOf(field, expected, report)
+  if (s === null) return null
+  const r = parse(s.text)
+  if (!r.ok) {
+    report.error(r.message, s.at(r.offset), 'bad-value')
+    return null
+  }
+  return {value: r.value, s}
+}
+
+/** A single quantity in SI. */
+export function quantityOf(field: Field, dim: Dimension, report: Reporter): {value: number; s: ScalarText} | null {
+  return read(field, expectedOf(dim), report, (t) => parseQuantity(t, dim, {key: field.key}))
+}
+
+/** A range `[low, high]` in SI. */
+export function rangeOf(field: Field, dim: Dimension, report: Reporter, single: RangeOptions['single']): {value: [number, number]; s: ScalarText} | null {
+  const options: RangeOptions = single === undefined ? {key: field.key} : {key: field.key, single}
+  return read(field, `a range of ${expectedOf(dim).replace(/^an? /, '')}`, report, (t) => parseRange(t, dim, options))
+}
+
+/** A supply `[negative, positive]`, V. */
+export function supplyOf(field: Field, report: Reporter): {value: [number, number]; s: ScalarText} | null {
+  return read(field, 'a supply (`±15 V`, `0 .. 5 V`)', report, (t) => parseSupply(t, {key: field.key}))
+}
+
+/** A resistor spec, with how it was written. */
+export function resistorOf(field: Field, report: Reporter): {value: Extract<ResistorResult, {ok: true}>; s: ScalarText} | null {
+  return read(field, 'a resistor (`49.9k 0.1% 25ppm/K`)', report, (t) => {
+    const r = parseResistor(t, {key: field.key})
+    return r.ok ? {ok: true, value: r} : r
+  })
+}
+
+/** One of a closed set of words, with a did-you-mean hint. */
+export function choiceOf<T extends string>(field: Field, choices: readonly T[], report: Reporter): T | null {
+  const s = scalarOf(field, `one of ${choices.join(', ')}`, report)
+  if (s === null) return null
+  const word = s.text.trim()
+  const found = choices.find((c) => c === word)
+  if (found !== undefined) return found
+  const suggestion = didYouMean(word, choices)
+  report.error(noteMessages.unknownChoice(field.key, word, choices, suggestion), s.at(0), 'bad-value', {
+    actual: word,
+    expected: suggestion === null ? [...choices] : [suggestion]
+  })
+  return null
+}

@@ -1,0 +1,147 @@
+/**
+ * Comparing two runs (DESIGN §6 objects): every value of every stage that changed, old →
+ * new and by how much, and every requirement verdict that flipped. Pure; the CLI loads
+ * the two sides and prints the result as text or Markdown.
+ */
+import {formatQuantity} from '../units/format.js'
+
+/** The parts of the §6 object that a comparison reads. */
+export interface RunJson {
+  files: {file: string; stages: StageJson[]}[]
+}
+interface StageJson {
+  id: string
+  gain: number
+  noiseGain: number
+  dc: {contributors: {key: string; output: number}[]; worstCaseOutput: number; rssOutput: number; worstCaseInput: number; rssInput: number}
+  noise: {outputRms: number; outputPeakToPeak: number; inputRms: number; contributors: {key: string; outputRms: number}[]}
+  stability: {phaseMargin: number | null; crossover: number | null; bandwidth: number | null; peaking: number; suggestedCf: number | null}
+  requirements: {key: string; limit: number; value: number | null; met: boolean}[]
+}
+
+export interface ValueChange {
+  stage: string
+  /** Dotted name, e.g. `dc.worstCaseOutput` or `noise.en`. */
+  name: string
+  unit: string
+  old: number | null
+  new: number | null
+}
+
+export interface VerdictFlip {
+  stage: string
+  requirement: string
+  old: boolean | null
+  new: boolean | null
+}
+
+export interface Comparison {
+  changes: ValueChange[]
+  flips: VerdictFlip[]
+  addedStages: string[]
+  removedStages: string[]
+  /** True when some requirement went from met to not met (or a met requirement disappeared with its stage). */
+  regressed: boolean
+}
+
+const REL = 1e-9
+
+function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
+  const m = new Map<string, {unit: string; v: number | null}>()
+  m.set('gain', {unit: 'V/V', v: s.gain})
+  m.set('noiseGain', {unit: 'V/V', v: s.noiseGain})
+  for (const k of ['worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'] as const) m.set(`dc.${k}`, {unit: 'V', v: s.dc[k]})
+  for (const c of s.dc.contributors) m.set(`dc.${c.key}`, {unit: 'V', v: c.output})
+  for (const k of ['outputRms', 'outputPeakToPeak', 'inputRms'] as const) m.set(`noise.${k}`, {unit: 'V', v: s.noise[k]})
+  for (const c of s.noise.contributors) m.set(`noise.${c.key}`, {unit: 'V', v: c.outputRms})
+  m.set('stability.phaseMargin', {unit: '°', v: s.stability.phaseMargin})
+  m.set('stability.crossover', {unit: 'Hz', v: s.stability.crossover})
+  m.set('stability.bandwidth', {unit: 'Hz', v: s.stability.bandwidth})
+  m.set('stability.peaking', {unit: 'dB', v: s.stability.peaking})
+  m.set('stability.suggestedCf', {unit: 'F', v: s.stability.suggestedCf})
+  for (const r of s.requirements) {
+    m.set(`require.${r.key}`, {unit: r.key === 'phase-margin' ? '°' : r.key === 'bandwidth' ? 'Hz' : 'V', v: r.value})
+  }
+  return m
+}
+
+const differs = (a: number | null, b: number | null): boolean =>
+  a === null || b === null ? a !== b : Math.abs(a - b) > REL * Math.max(Math.abs(a), Math.abs(b), 1e-30)
+
+function stagesOf(run: RunJson): Map<string, StageJson> {
+  const multi = run.files.length > 1
+  const out = new Map<string, StageJson>()
+  for (const f of run.files) for (const s of f.stages) out.set(multi ? `${f.file.split('/').pop()}/${s.id}` : s.id, s)
+  return out
+}
+
+export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
+  const a = stagesOf(oldRun)
+  const b = stagesOf(newRun)
+  const changes: ValueChange[] = []
+  const flips: VerdictFlip[] = []
+  for (const [id, so] of a) {
+    const sn = b.get(id)
+    if (!sn) continue
+    const vo = values(so)
+    const vn = values(sn)
+    for (const name of new Set([...vo.keys(), ...vn.keys()])) {
+      const o = vo.get(name)?.v ?? null
+      const n = vn.get(name)?.v ?? null
+      if (differs(o, n)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+    }
+    const ro = new Map(so.requirements.map((r) => [r.key, r.met]))
+    const rn = new Map(sn.requirements.map((r) => [r.key, r.met]))
+    for (const key of new Set([...ro.keys(), ...rn.keys()])) {
+      const o = ro.get(key) ?? null
+      const n = rn.get(key) ?? null
+      if (o !== n) flips.push({stage: id, requirement: key, old: o, new: n})
+    }
+  }
+  const removedStages = [...a.keys()].filter((k) => !b.has(k))
+  const addedStages = [...b.keys()].filter((k) => !a.has(k))
+  const regressed = flips.some((f) => f.old === true && f.new === false) ||
+    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met))
+  return {changes, flips, addedStages, removedStages, regressed}
+}
+
+const show = (v: number | null, unit: string): string =>
+  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB` : formatQuantity(v, unit, {digits: 4})
+
+const delta = (c: ValueChange): string => {
+  if (c.old === null || c.new === null) return ''
+  const d = c.new - c.old
+  const sign = d > 0 ? '+' : '−'
+  const rel = c.old !== 0 ? ` (${sign}${Math.abs((d / c.old) * 100).toFixed(2)} %)` : ''
+  return `${sign}${show(Math.abs(d), c.unit)}${rel}`
+}
+
+const verdictWord = (m: boolean | null): string => (m === null ? 'absent' : m ? 'met' : 'NOT MET')
+
+export function comparisonText(c: Comparison, markdown: boolean): string {
+  const lines: string[] = []
+  if (markdown) lines.push('## ampreview comparison', '')
+  if (c.changes.length === 0 && c.flips.length === 0 && c.addedStages.length === 0 && c.removedStages.length === 0) {
+    lines.push('No value or verdict changed.')
+    return `${lines.join('\n')}\n`
+  }
+  if (c.flips.length > 0) {
+    if (markdown) lines.push('| Stage | Requirement | Old | New |', '| --- | --- | --- | --- |')
+    for (const f of c.flips) {
+      lines.push(markdown ? `| ${f.stage} | \`${f.requirement}\` | ${verdictWord(f.old)} | ${verdictWord(f.new)} |`
+        : `verdict ${f.stage} ${f.requirement}: ${verdictWord(f.old)} → ${verdictWord(f.new)}`)
+    }
+    if (markdown) lines.push('')
+  }
+  for (const s of c.addedStages) lines.push(markdown ? `- stage **${s}** added` : `stage ${s}: added`)
+  for (const s of c.removedStages) lines.push(markdown ? `- stage **${s}** removed` : `stage ${s}: removed`)
+  if (c.changes.length > 0) {
+    if (markdown) lines.push('', '| Stage | Value | Old | New | Change |', '| --- | --- | --- | ---: | ---: |')
+    for (const ch of c.changes) {
+      lines.push(markdown ? `| ${ch.stage} | \`${ch.name}\` | ${show(ch.old, ch.unit)} | ${show(ch.new, ch.unit)} | ${delta(ch)} |`
+        : `${ch.stage} ${ch.name}: ${show(ch.old, ch.unit)} → ${show(ch.new, ch.unit)} ${delta(ch)}`.trimEnd())
+    }
+  }
+  if (c.regressed) lines.push('', markdown ? '**A requirement went from met to not met.**' : 'A requirement went from met to not met.')
+  return `${lines.join('\n')}\n`
+}

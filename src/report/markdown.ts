@@ -1,0 +1,76 @@
+/**
+ * The report as GFM Markdown, for code review: the note's prose with every stage block
+ * replaced by its tables, verdicts and notes; charts become references to SVG files that
+ * the caller writes beside the Markdown. Deterministic, byte for byte.
+ */
+import type {BlockContent, Root, RootContent} from 'mdast'
+import {gfmToMarkdown} from 'mdast-util-gfm'
+import {toMarkdown} from 'mdast-util-to-markdown'
+import {verdictText} from './format.js'
+import {heading, paragraph, strong, table, text} from './mdast.js'
+import type {ReportDocument} from './types.js'
+
+export interface MarkdownReport {
+  markdown: string
+  /** SVG files the Markdown references, by file name. */
+  figures: {name: string; svg: string}[]
+}
+
+/** Our own node types mapped onto plain mdast. */
+function plain(nodes: RootContent[], figureName: (n: number) => string, figures: MarkdownReport['figures']): RootContent[] {
+  const out: RootContent[] = []
+  for (const node of nodes) {
+    switch (node.type) {
+      case 'figure': {
+        const name = figureName(node.number)
+        figures.push({name, svg: node.svg})
+        out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
+          paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
+        break
+      }
+      case 'callout':
+        out.push({type: 'blockquote', children: [paragraph(strong(`${node.label}.`)),
+          ...(plain(node.children, figureName, figures) as BlockContent[])]})
+        break
+      case 'caption':
+        out.push(paragraph({type: 'emphasis', children: [text(node.text)]}))
+        break
+      case 'pageBreak':
+        break
+      case 'stageBlock':
+      case 'opampBlock':
+        out.push(paragraph(`(block ${node.id} not evaluated)`))
+        break
+      default:
+        if ('children' in node && Array.isArray(node.children)) {
+          out.push({...node, children: plain(node.children as RootContent[], figureName, figures)} as RootContent)
+        } else {
+          out.push(node)
+        }
+    }
+  }
+  return out
+}
+
+export function reportToMarkdown(doc: ReportDocument, figureName: (n: number) => string): MarkdownReport {
+  const figures: MarkdownReport['figures'] = []
+  const m = doc.meta
+  const meta: [string, string | null][] = [['Project', m.project], ['Document', m.document], ['Revision', m.revision],
+    ['Date', m.date], ['Author', m.author], ['Status', m.status]]
+  const metaRows = meta.flatMap(([k, v]) => (v === null ? [] : [[k, v]]))
+  const cover: RootContent[] = [heading(1, m.title ?? 'Design review'), table(['Item', 'Value'], metaRows)]
+  cover.push(heading(2, 'Requirement verdicts'),
+    doc.cover.verdicts.length === 0
+      ? paragraph('No requirements stated.')
+      : table(['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'],
+        doc.cover.verdicts.map((v) => [v.stage, v.requirement, v.value, v.limit, verdictText(v.verdict)])),
+    paragraph(strong('Overall: '), verdictText(doc.cover.overall)))
+  const tree: Root = {type: 'root', children: [
+    ...cover,
+    ...plain(doc.body.children, figureName, figures),
+    ...plain(doc.appendix.children, figureName, figures),
+    ...doc.closing.children
+  ]}
+  const markdown = toMarkdown(tree, {extensions: [gfmToMarkdown()], bullet: '-', rule: '-', fences: true})
+  return {markdown, figures}
+}

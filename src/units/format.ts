@@ -1,0 +1,117 @@
+/**
+ * Formatting quantities for people: SI-prefix engineering notation (`49.9 kΩ`, `2.5 mV`),
+ * percent, dB, degrees, tempco and ranges (`−40 … 85 °C`). The report prints every number
+ * through these, so the look of numbers is decided here once.
+ *
+ * Conventions (our decisions): 3 significant digits by default with trailing zeros dropped
+ * (`2.5 mV`, not `2.50 mV`); the minus sign is U+2212; micro is U+00B5; a normal space
+ * separates number and unit, except the degree sign of an angle (`60°`; the SI Brochure,
+ * 9th ed., writes plane-angle degrees without a space — from memory); zero prints as `0 V`; NaN prints as `—`, ±∞ as `∞ V`.
+ */
+
+export interface FormatOptions {
+  /** Significant digits (default 3). */
+  digits?: number
+}
+
+export interface FixedOptions {
+  /** Digits after the decimal point, trailing zeros dropped (default 1). */
+  decimals?: number
+}
+
+const STEPS = [
+  [-15, 'f'], [-12, 'p'], [-9, 'n'], [-6, 'µ'], [-3, 'm'], [0, ''], [3, 'k'], [6, 'M'], [9, 'G'], [12, 'T']
+] as const
+
+const MINUS = '−'
+const sign = (text: string): string => text.replace(/^-/, MINUS)
+const join = (num: string, unit: string): string => (unit === '' ? num : unit === '°' ? `${num}°` : `${num} ${unit}`)
+const scaleBy = (value: number, exp: number): number => (exp >= 0 ? value / 10 ** exp : value * 10 ** -exp)
+const roundSig = (x: number, digits: number): number => Number(x.toPrecision(Math.max(1, Math.min(21, digits))))
+
+function special(value: number, unit: string): string | null {
+  if (Number.isNaN(value)) return '—'
+  if (!Number.isFinite(value)) return join(value < 0 ? `${MINUS}∞` : '∞', unit)
+  return null
+}
+
+/** A plain number to `digits` significant digits, no exponent for everyday sizes, U+2212 minus. */
+export function formatNumber(value: number, opts: FormatOptions = {}): string {
+  const s = special(value, '')
+  if (s !== null) return s
+  if (value === 0) return '0'
+  return sign(String(roundSig(value, opts.digits ?? 3)))
+}
+
+/** A number rounded to a fixed count of decimals with trailing zeros dropped. */
+export function formatFixed(value: number, opts: FixedOptions = {}): string {
+  const s = special(value, '')
+  if (s !== null) return s
+  const d = Math.max(0, Math.min(20, opts.decimals ?? 1))
+  const text = String(Number(value.toFixed(d)))
+  return text === '-0' ? '0' : sign(text)
+}
+
+/**
+ * A value in engineering notation with an SI prefix: `formatQuantity(49900, 'Ω')` is
+ * `49.9 kΩ`, `formatQuantity(-0.0025, 'V')` is `−2.5 mV`.
+ * @param unit
+ *   Unit symbol without prefix (`Ω`, `V`, `Hz`, `V/√Hz`); '' for none.
+ */
+export function formatQuantity(value: number, unit: string, opts: FormatOptions = {}): string {
+  const s = special(value, unit)
+  if (s !== null) return s
+  if (value === 0) return join('0', unit)
+  const digits = opts.digits ?? 3
+  let exp = Math.max(-15, Math.min(12, Math.floor(Math.log10(Math.abs(value)) / 3) * 3))
+  let mantissa = roundSig(scaleBy(value, exp), digits)
+  if (Math.abs(mantissa) >= 1000 && exp < 12) {
+    exp += 3
+    mantissa = roundSig(scaleBy(value, exp), digits)
+  }
+  const prefix = STEPS.find(([e]) => e === exp)?.[1] ?? ''
+  return join(sign(String(mantissa)), `${prefix}${unit}`)
+}
+
+/** A fraction as percent: `formatPercent(0.001)` is `0.1 %`. */
+export function formatPercent(fraction: number, opts: FormatOptions = {}): string {
+  return join(formatNumber(fraction * 100, opts), '%')
+}
+
+/** A linear ratio in dB, 20·lg: `formatDb(1e6)` is `120 dB`. */
+export function formatDb(linear: number, opts: FixedOptions = {}): string {
+  return join(formatFixed(20 * Math.log10(linear), opts), 'dB')
+}
+
+/** An angle in degrees: `formatAngle(59.84)` is `59.8°`. */
+export function formatAngle(degrees: number, opts: FixedOptions = {}): string {
+  return join(formatFixed(degrees, opts), '°')
+}
+
+/** A temperature in °C: `formatTemperature(-40)` is `−40 °C`. */
+export function formatTemperature(celsius: number, opts: FixedOptions = {}): string {
+  return join(formatFixed(celsius, opts), '°C')
+}
+
+/** A temperature coefficient, 1/K, in ppm/K: `formatTempco(25e-6)` is `25 ppm/K`. */
+export function formatTempco(perKelvin: number, opts: FormatOptions = {}): string {
+  return join(formatNumber(perKelvin * 1e6, opts), 'ppm/K')
+}
+
+/**
+ * A range with the unit once where both ends share it: `−10 … 10 mV`, `0 … 10 kHz`,
+ * `100 mHz … 10 kHz`.
+ */
+export function formatRange(low: number, high: number, unit: string, opts: FormatOptions = {}): string {
+  const hi = formatQuantity(high, unit, opts)
+  if (low === 0 && unit !== '') return `0 … ${hi}`
+  const lo = formatQuantity(low, unit, opts)
+  const suffix = (t: string): string => t.slice(t.indexOf(' '))
+  if (lo.includes(' ') && suffix(lo) === suffix(hi)) return `${lo.slice(0, lo.indexOf(' '))} … ${hi}`
+  return `${lo} … ${hi}`
+}
+
+/** A temperature range in °C: `formatTemperatureRange(-40, 85)` is `−40 … 85 °C`. */
+export function formatTemperatureRange(low: number, high: number, opts: FixedOptions = {}): string {
+  return `${formatFixed(low, opts)} … ${formatTemperature(high, opts)}`
+}

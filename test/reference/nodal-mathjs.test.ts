@@ -1,0 +1,78 @@
+/**
+ * The engine's nodal solver against an independent modified-nodal solve written with mathjs
+ * (complex matrices, `lusolve`): signal gains, every noise source's transfer, and the DC
+ * bias-current offsets, for all four topologies (DESIGN §4.2, §4.3, §7).
+ */
+import {describe, expect, it} from 'vitest'
+import {closedLoopGain, dcBudget, noiseTransfers, type StageInput} from '../../src/engine/index.js'
+import {res, stageInput, testOpamp, topologyFixtures} from '../engine/helpers.js'
+import {mag, referenceCircuit, referenceOutput, type Excitation} from './mathjs-nodal.js'
+
+const FREQUENCIES = [0, 3, 1e3, 4e4, 1.5e6]
+// Tolerance: both are double-precision direct solves of the same equations; 1e-8 relative
+// leaves room for rounding in ill-conditioned low-frequency systems (Aol = 10⁶ against µS).
+const REL = 1e-8
+
+const close = (actual: number, expected: number, scale: number): void => {
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(REL * scale + 1e-300)
+}
+
+const signal = (s: StageInput): Excitation => (s.topology === 'transimpedance' ? {currents: [['m', 'gnd', 1]]} : {vsrc: 1})
+
+describe('engine nodal solve vs mathjs reference (Source: independent MNA with mathjs lusolve)', () => {
+  for (const s of topologyFixtures()) {
+    describe(s.topology, () => {
+      it.each(FREQUENCIES)('signal gain H(f) agrees at %d Hz', (f) => {
+        const h = closedLoopGain(s, f)
+        const ref = referenceOutput(s, f, signal(s))
+        close(h.re, ref.re, mag(ref))
+        close(h.im, ref.im, mag(ref))
+      })
+
+      it.each(FREQUENCIES.filter((f) => f > 0))('every noise transfer agrees at %d Hz', (f) => {
+        const circ = referenceCircuit(s)
+        for (const {key, transfer} of noiseTransfers(s, f)) {
+          let ex: Excitation
+          let complexCompare = true
+          if (key === 'en') ex = {en: 1}
+          else if (key === 'in+') ex = {currents: [['p', 'gnd', 1]]}
+          else if (key === 'in-' || key === 'shot') ex = {currents: [['m', 'gnd', 1]]}
+          else {
+            const r = circ.r.find((e) => e[3] === key.slice(2))
+            // An absent resistor has no noise: transfer 0.
+            ex = r ? {currents: [[r[0], r[1], 1]]} : {}
+            complexCompare = false // the Norton current's orientation is a convention
+          }
+          const ref = referenceOutput(s, f, ex)
+          const scale = Math.max(mag(ref), 1e-30)
+          if (complexCompare) {
+            close(transfer.re, ref.re, scale)
+            close(transfer.im, ref.im, scale)
+          } else close(Math.hypot(transfer.re, transfer.im), mag(ref), scale)
+        }
+      })
+    })
+  }
+})
+
+describe('DC bias-current offsets vs mathjs reference (Source: independent MNA at f = 0)', () => {
+  // Exact resistors, 25 °C, a very large Aol so the reference's finite-gain factor
+  // Aol/(Aol + NG) differs from 1 by < 1e-8: tolerance 1e-6 relative to IB·(Rn + Rp)·NG.
+  const exact = (s: StageInput): StageInput => {
+    const strip = (r: StageInput['rf']): StageInput['rf'] => (r ? res(r.value) : null)
+    return {...s, rf: strip(s.rf), rg: strip(s.rg), rs: strip(s.rs), rcomp: strip(s.rcomp), temperature: [25, 25], opamp: testOpamp({aol: 1e10, ib: 2e-9, ios: 0.8e-9})}
+  }
+  const cases = [...topologyFixtures(), stageInput({rs: null}), stageInput({topology: 'follower', rf: null, rg: null, rs: res(47e3)})].map(exact)
+  it.each(cases.map((s) => [s.topology, s] as const))('%s: ib and ios terms equal the solved output offsets', (_, s) => {
+    const ib = s.opamp.ib
+    const ios = s.opamp.ios
+    const dc = dcBudget(s)
+    const term = (key: string): number => dc.contributors.find((c) => c.key === key)?.output ?? NaN
+    // Bias currents flow into both pins (out of the circuit's nodes into the op-amp).
+    const vIb = referenceOutput(s, 0, {currents: [['gnd', 'p', ib], ['gnd', 'm', ib]]})
+    const vIos = referenceOutput(s, 0, {currents: [['gnd', 'p', ios / 2], ['m', 'gnd', ios / 2]]})
+    const scale = ib * 1e6 * 100
+    expect(Math.abs(term('ib') - mag(vIb))).toBeLessThanOrEqual(1e-6 * scale)
+    expect(Math.abs(term('ios') - mag(vIos))).toBeLessThanOrEqual(1e-6 * Math.max(mag(vIos), 1e-12))
+  })
+})

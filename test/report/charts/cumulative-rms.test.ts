@@ -1,0 +1,36 @@
+import {describe, expect, it} from 'vitest'
+import {cumulativeRmsSpec} from '../../../src/report/charts/cumulative-rms.js'
+import {renderChartSvg} from '../../../src/report/vega.js'
+import {FONTS, stageCurves, svgTexts} from './helpers.js'
+
+const render = (curves = stageCurves()) => renderChartSvg(cumulativeRmsSpec(curves), FONTS)
+
+describe('cumulativeRmsSpec()', () => {
+  it('renders without warnings', async () => {
+    expect((await render()).warnings).toEqual([])
+  })
+
+  it('titles both axes with units', async () => {
+    const texts = svgTexts((await render()).svg).map((t) => t.text)
+    expect(texts).toEqual(expect.arrayContaining(['Frequency (Hz)', 'Cumulative output noise (V rms)']))
+  })
+
+  it('prints SI ticks: decades on the frequency axis, µV on the rms axis with a plain 0', async () => {
+    const texts = svgTexts((await render()).svg).map((t) => t.text)
+    expect(texts).toEqual(expect.arrayContaining(['100m', '1', '1k', '10k', '0', '2µ', '10µ']))
+    expect(texts).not.toContain('0µ')
+  })
+
+  it('prints the band total at the end of the curve', async () => {
+    const curves = stageCurves()
+    const total = curves.cumulativeRms[curves.cumulativeRms.length - 1] as number
+    const expected = `${(total * 1e6).toPrecision(3)} µV rms`
+    expect(svgTexts((await render(curves)).svg).map((t) => t.text)).toContain(expected)
+  })
+
+  it('drops frequencies a log axis cannot show instead of warning', async () => {
+    const curves = stageCurves()
+    curves.noiseFrequency = [0, ...curves.noiseFrequency.slice(1)]
+    expect((await render(curves)).warnings).toEqual([])
+  })
+})

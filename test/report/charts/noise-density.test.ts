@@ -1,0 +1,61 @@
+import {describe, expect, it} from 'vitest'
+import {noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
+import {renderChartSvg} from '../../../src/report/vega.js'
+import {FONTS, attributeValues, stageCurves, svgTexts} from './helpers.js'
+
+const LABELS = {en: 'Voltage noise', 'in+': 'Current noise +', 'in-': 'Current noise −', 'r:rf': 'Rf thermal', 'r:rg': 'Rg thermal'}
+
+const chartOf = (curves = stageCurves(), minShare?: number) =>
+  noiseDensitySpec(curves, minShare === undefined ? {labels: LABELS} : {labels: LABELS, minShare})
+
+describe('noiseDensitySpec()', () => {
+  it('omits zero contributors and those under 0.1 % of the total everywhere', () => {
+    expect(chartOf().omitted).toEqual(['in+', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+  })
+
+  it('keeps a small contributor when the share is lowered', () => {
+    expect(chartOf(stageCurves(), 1e-9).omitted).toEqual(['r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+  })
+
+  it('renders without warnings', async () => {
+    expect((await renderChartSvg(chartOf().spec, FONTS)).warnings).toEqual([])
+  })
+
+  it('titles both axes with units', async () => {
+    const texts = svgTexts((await renderChartSvg(chartOf().spec, FONTS)).svg).map((t) => t.text)
+    expect(texts).toEqual(expect.arrayContaining(['Frequency (Hz)', 'Output noise density (V/√Hz)']))
+  })
+
+  it('prints decade ticks with SI prefixes on both axes', async () => {
+    const texts = svgTexts((await renderChartSvg(chartOf().spec, FONTS)).svg).map((t) => t.text)
+    expect(texts).toEqual(expect.arrayContaining(['100m', '1', '10', '100', '1k', '10k']))
+    expect(texts).toEqual(expect.arrayContaining(['1n', '10n', '100n', '1µ']))
+  })
+
+  it('names the kept contributors and the total in the legend, not the omitted ones', async () => {
+    const texts = svgTexts((await renderChartSvg(chartOf().spec, FONTS)).svg).map((t) => t.text)
+    expect(texts).toEqual(expect.arrayContaining(['Voltage noise', 'Current noise −', 'Rf thermal', 'Rg thermal', TOTAL_LABEL]))
+    expect(texts).not.toContain('Current noise +')
+  })
+
+  it('tells lines apart by dash as well as colour', async () => {
+    const svg = (await renderChartSvg(chartOf().spec, FONTS)).svg
+    const dashes = attributeValues(svg, 'stroke-dasharray')
+    for (const key of ['en', 'in-', 'r:rf', 'r:rg'] as const) expect(dashes).toContain(NOISE_STYLES[key].dash.join(','))
+    expect(svg).toContain(`stroke="${TOTAL_STYLE.colour}" stroke-width="${TOTAL_STYLE.width}"`)
+  })
+
+  it('drops points a log axis cannot show instead of warning', async () => {
+    const curves = stageCurves()
+    curves.noiseDensity.en = curves.noiseDensity.en.map((v, i) => (i === 3 ? 0 : i === 5 ? -v : v))
+    const chart = await renderChartSvg(noiseDensitySpec(curves, {labels: LABELS}).spec, FONTS)
+    expect(chart.warnings).toEqual([])
+  })
+
+  it('refuses a total with no positive value', () => {
+    const curves = stageCurves()
+    curves.noiseTotal = curves.noiseTotal.map(() => 0)
+    expect(() => noiseDensitySpec(curves, {labels: LABELS})).toThrow(RangeError)
+  })
+})
