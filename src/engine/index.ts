@@ -21,7 +21,8 @@ export {swingCheck} from './swing.js'
 export {checkRequirements} from './requirements.js'
 export {opampPoles, openLoopGainInto, type OpampPoles} from './opamp-model.js'
 export {buildNetlist, NODE_NAMES, type ElementLabel, type NetElement, type Netlist, type NetlistSpec, type NodeName, type SpecElement} from './netlist.js'
-export {createWorkspace, setCapacitance, solveClosed, solveInPlace, solveLoop, transposeInPlace, type NodalWorkspace} from './nodal.js'
+export {createWorkspace, setCapacitance, solveClosed, solveLoop, type NodalWorkspace} from './nodal.js'
+export {solveInPlace, transposeInPlace} from './complex-solve.js'
 export {illinois, goldenMax} from './roots.js'
 export {
   TOPOLOGY_MODELS,

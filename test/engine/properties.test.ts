@@ -84,9 +84,10 @@ describe('gain signs by topology', () => {
       expect(Math.sign(h.re)).toBe(sign)
       expect(Math.abs(h.im)).toBe(0)
       if (s.topology === 'follower') expect(g).toBe(1)
-      // Finite Aol (10⁶) and, for transimpedance, rshunt: |H(0)| within 2 % of |G| is the
-      // ideal-gain relation (|H| = |G|·Aol/(Aol + NG)); NG here stays below ~10⁴.
-      expect(Math.abs(h.re / g - 1)).toBeLessThan(0.02)
+      // Feedback theory (common practice): H(0) = G·Aβ/(1 + Aβ) with β = 1/NG at DC, i.e.
+      // G·Aol/(Aol + NG). Tolerance 1e-9 (rounding).
+      const aol = s.opamp.aol
+      expect(Math.abs(h.re / g / (aol / (aol + topologyTerms(s).noiseGain)) - 1)).toBeLessThan(1e-9)
     }), RUNS)
   })
 })

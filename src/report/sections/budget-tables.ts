@@ -28,7 +28,7 @@ export function dcTable(r: StageResult): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const rows = r.dc.contributors.map((c) => [
-    [DC_LABELS[c.key], ' ', code(c.key)],
+    [DC_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.output, 'V'),
     q(g > 0 ? c.output / g : null, iu),
     r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—'
@@ -47,7 +47,7 @@ export function noiseTable(r: StageResult): Table {
   const g = Math.abs(r.gain)
   const total2 = r.noise.outputRms ** 2
   const rows = r.noise.contributors.map((c) => [
-    [NOISE_LABELS[c.key], ' ', code(c.key)],
+    [NOISE_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.outputRms, 'V'),
     q(g > 0 ? c.outputRms / g : null, iu),
     total2 > 0 ? pct(c.outputRms ** 2 / total2) : '—'

@@ -18,7 +18,7 @@ export function requirementBlocks(ev: StageEvaluation): BlockContent[] {
     ])]
   }
   const rows = reqs.map((r) => [
-    [REQUIREMENT_LABELS[r.key], ' ', code(r.key)],
+    [REQUIREMENT_LABELS[r.key], ' (', code(r.key), ')'],
     requirementValue(r, 'value', t),
     `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', t)}`,
     margin(r, t),
