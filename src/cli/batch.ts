@@ -5,7 +5,7 @@
  */
 import {readFile} from 'node:fs/promises'
 import {dirname, resolve} from 'node:path'
-import {BuildCache, buildKey} from './cache.js'
+import {BuildCache, buildKey, imageInputsHash} from './cache.js'
 import {formatDiagnostic} from './diagnostics.js'
 import {failedOutcome, outputPath, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 import {runnerFor} from './pool.js'
@@ -34,6 +34,28 @@ export interface BatchOptions {
 
 const statusWord = (o: NoteOutcome): string => (o.exitCode === 2 ? 'error' : o.exitCode === 1 ? 'not met' : 'ok')
 
+/**
+ * Why a note must not be built with these options, if so: one of its outputs would replace
+ * a note of the batch (`--format md` next to the note writes `<name>.md`), or would be the
+ * same file as an earlier note's output (notes of the same name built into one `--out`).
+ */
+export function outputClashes(notes: readonly string[], run: RunOptions): (string | null)[] {
+  const outDir = run.outDir === null ? null : resolve(run.outDir)
+  const sources = new Map(notes.map((n) => [resolve(n), n]))
+  const claimed = new Map<string, string>()
+  return notes.map((note) => {
+    const outputs = run.formats.map((f) => outputPath(note, outDir, f))
+    const source = outputs.map((o) => sources.get(o)).find((s) => s !== undefined)
+    if (source !== undefined) {
+      return `Not built: its ${source === note ? 'Markdown report would replace the note itself' : `output would replace the note ${source}`}; build it with \`--out DIR\` into another folder`
+    }
+    const earlier = outputs.map((o) => claimed.get(o)).find((e) => e !== undefined)
+    if (earlier !== undefined) return `Not built: its output files would be the same as those of ${earlier}; build notes of the same name into different \`--out\` folders`
+    for (const o of outputs) claimed.set(o, note)
+    return null
+  })
+}
+
 export async function runBatch(notes: string[], res: Resources, b: BatchOptions): Promise<BatchItem[]> {
   const building = b.run.formats.length > 0
   const caches = new Map<string, Promise<BuildCache>>()
@@ -43,20 +65,30 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
     if (!c) { c = BuildCache.open(dir); caches.set(dir, c) }
     return c
   }
-  const options = JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null})
+  // The path as given is part of the key: the JSON output records it.
+  const optionsOf = (note: string): string =>
+    JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null, file: note})
+  const wantPdf = b.run.formats.includes('pdf')
+  const clashes = building ? outputClashes(notes, b.run) : notes.map(() => null)
   const runner = runnerFor(notes.length, b.jobs, res, building)
   const items: (BatchItem | null)[] = notes.map(() => null)
   try {
     let nextIndex = 0
     const one = async (note: string, i: number): Promise<void> => {
       const t0 = performance.now()
-      const key = building
-        ? await readFile(note).then((source) => buildKey({source, template: b.templateHash, version: res.version, options}), () => null)
+      const clash = clashes[i] ?? null
+      const key = building && clash === null
+        ? await readFile(note).then(async (source) => buildKey({
+          source, template: b.templateHash, version: res.version, options: optionsOf(note),
+          inputs: wantPdf ? await imageInputsHash(source, note) : ''
+        }), () => null)
         : null
-      const cache = building ? await cacheFor(note) : null
+      const cache = building && clash === null ? await cacheFor(note) : null
       const hit = key !== null && cache !== null && !b.force ? await cache.hit(resolve(note), key) : null
       let item: BatchItem
-      if (hit) {
+      if (clash !== null) {
+        item = {upToDate: false, stages: 0, seconds: 0, outcome: failedOutcome(note, clash)}
+      } else if (hit) {
         item = {upToDate: true, stages: hit.stages, seconds: (performance.now() - t0) / 1000, outcome: {
           file: note, sourceSha256: '', diagnostics: [], stages: [], met: hit.met, notMet: hit.notMet, exitCode: hit.exitCode, outputs: hit.outputs
         }}

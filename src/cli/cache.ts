@@ -9,7 +9,7 @@
  */
 import {createHash} from 'node:crypto'
 import {readFile, stat} from 'node:fs/promises'
-import {join} from 'node:path'
+import {dirname, isAbsolute, join, resolve} from 'node:path'
 import {writeAtomic} from './write.js'
 
 export const CACHE_FILE = '.ampreview-cache.json'
@@ -30,18 +30,70 @@ interface CacheFile {
   entries: Record<string, CacheEntry>
 }
 
-/** The key of a build: note bytes, template files, tool version, options. */
-export function buildKey(parts: {source: Uint8Array; template: string; version: string; options: string}): string {
+export interface KeyParts {
+  /** The note's bytes. */
+  source: Uint8Array
+  /** Hash of the template folder. */
+  template: string
+  /** The tool's version. */
+  version: string
+  /** The options that change the outputs, serialised. */
+  options: string
+  /** Hash of the other files the outputs embed (the note's images); '' when none. */
+  inputs: string
+}
+
+/** The key of a build: note bytes, template files, tool version, options, embedded files. */
+export function buildKey(parts: KeyParts): string {
   const h = createHash('sha256')
-  for (const p of [parts.version, parts.options, parts.template]) h.update(p).update('\0')
-  h.update(parts.source)
+  // Each part is length-prefixed, so no two different sets of parts give the same bytes.
+  for (const p of [parts.version, parts.options, parts.template, parts.inputs]) h.update(`${Buffer.byteLength(p)}:`).update(p)
+  h.update(`${parts.source.byteLength}:`).update(parts.source)
+  return h.digest('hex')
+}
+
+/** Inline image targets `![alt](target)` (alt text may hold one level of brackets) and reference definitions `[label]: target`. */
+const IMAGE_TARGET = /!\[(?:[^\]\\]|\\.|\[[^\]]*\])*\]\(\s*(?:<([^>]*)>|([^)\s]+))/g
+const DEFINITION_TARGET = /^ {0,3}\[[^\]]+\]:\s*(?:<([^>]*)>|(\S+))/gm
+
+/**
+ * Hash of the local files a note's images may refer to (names and bytes; a missing file
+ * counts as missing), so that replacing an image rebuilds the PDF that embeds it. A cheap
+ * scan of the source rather than a parse: it may include a file the report does not use,
+ * which only costs a rebuild.
+ */
+export async function imageInputsHash(source: Uint8Array, notePath: string): Promise<string> {
+  const text = Buffer.from(source.buffer, source.byteOffset, source.byteLength).toString('utf8')
+  const targets = new Set<string>()
+  for (const re of [IMAGE_TARGET, DEFINITION_TARGET]) {
+    for (const m of text.matchAll(re)) {
+      const url = m[1] ?? m[2] ?? ''
+      if (url === '' || /^[a-z][a-z0-9+.-]*:/i.test(url) || isAbsolute(url)) continue
+      targets.add(url)
+    }
+  }
+  if (targets.size === 0) return ''
+  const dir = dirname(resolve(notePath))
+  const h = createHash('sha256')
+  for (const url of [...targets].sort()) {
+    let path: string
+    try {
+      path = resolve(dir, decodeURIComponent(url))
+    } catch {
+      continue
+    }
+    const bytes = await readFile(path).catch(() => null)
+    h.update(`${url}\0`).update(bytes === null ? 'missing' : createHash('sha256').update(bytes).digest('hex')).update('\0')
+  }
   return h.digest('hex')
 }
 
 const isEntry = (e: unknown): e is CacheEntry => {
   if (typeof e !== 'object' || e === null) return false
   const x = e as Record<string, unknown>
-  return typeof x['key'] === 'string' && Array.isArray(x['outputs']) && (x['exitCode'] === 0 || x['exitCode'] === 1)
+  const count = (v: unknown): boolean => Number.isInteger(v) && (v as number) >= 0
+  return typeof x['key'] === 'string' && Array.isArray(x['outputs']) && x['outputs'].every((o) => typeof o === 'string') &&
+    (x['exitCode'] === 0 || x['exitCode'] === 1) && count(x['stages']) && count(x['met']) && count(x['notMet'])
 }
 
 export class BuildCache {

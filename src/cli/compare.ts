@@ -6,7 +6,7 @@ import {execFileSync} from 'node:child_process'
 import {mkdtempSync, rmSync, writeFileSync} from 'node:fs'
 import {readFile} from 'node:fs/promises'
 import {tmpdir} from 'node:os'
-import {basename, join} from 'node:path'
+import {basename, isAbsolute, join, relative} from 'node:path'
 import {compareRuns, comparisonText, type RunJson} from '../report/compare.js'
 import {noteJson, processNote, type Resources} from './pipeline.js'
 
@@ -21,13 +21,37 @@ async function noteRun(path: string, shownAs: string, res: Resources): Promise<R
   return noteJson({...o, file: shownAs}) as RunJson
 }
 
+/** What is wrong with a parsed result file, if anything: the fields a comparison reads. */
+function resultProblem(x: unknown): string | null {
+  const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v)
+  if (!isObject(x) || !Array.isArray(x['files'])) return 'no `files` array'
+  for (const [i, f] of x['files'].entries()) {
+    if (!isObject(f) || typeof f['file'] !== 'string' || !Array.isArray(f['stages'])) return `files[${i}] has no \`file\` and \`stages\``
+    for (const [j, st] of f['stages'].entries()) {
+      const where = `files[${i}].stages[${j}]`
+      if (!isObject(st) || typeof st['id'] !== 'string') return `${where} has no \`id\``
+      for (const k of ['dc', 'noise', 'stability']) if (!isObject(st[k])) return `${where} has no \`${k}\` object`
+      if (!Array.isArray(st['requirements']) || !Array.isArray((st['dc'] as Record<string, unknown>)['contributors']) ||
+        !Array.isArray((st['noise'] as Record<string, unknown>)['contributors'])) return `${where} lacks its requirements or contributors`
+    }
+  }
+  return null
+}
+
+/** `PATH` of `REV:PATH` as git reads it: relative to the working folder, like every other operand. */
+const gitPath = (path: string): string => {
+  const rel = isAbsolute(path) ? relative(process.cwd(), path) : path
+  return rel.startsWith('./') || rel.startsWith('../') ? rel : `./${rel}`
+}
+
 async function load(side: string, res: Resources): Promise<RunJson> {
   const rev = /^([^:]+):(.+\.md)$/.exec(side)
   if (side.endsWith('.json')) {
     try {
-      const parsed = JSON.parse(await readFile(side, 'utf8')) as RunJson
-      if (!Array.isArray(parsed.files)) throw new Error('no `files` array')
-      return parsed
+      const parsed: unknown = JSON.parse(await readFile(side, 'utf8'))
+      const problem = resultProblem(parsed)
+      if (problem !== null) throw new Error(problem)
+      return parsed as RunJson
     } catch (error) {
       throw new CompareInputError(`${side} is not an ampreview result (${error instanceof Error ? error.message : String(error)})`)
     }
@@ -35,9 +59,11 @@ async function load(side: string, res: Resources): Promise<RunJson> {
   if (rev && !(await readFile(side).then(() => true, () => false))) {
     let text: string
     try {
-      text = execFileSync('git', ['show', `${rev[1]}:${rev[2]}`], {encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe']})
-    } catch {
-      throw new CompareInputError(`git could not show ${rev[2]} at revision ${rev[1]}`)
+      text = execFileSync('git', ['show', `${rev[1]}:${gitPath(rev[2]!)}`], {encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024})
+    } catch (error) {
+      const why = (error as {stderr?: unknown}).stderr
+      const first = typeof why === 'string' ? why.trim().split('\n')[0] : ''
+      throw new CompareInputError(`git could not show ${rev[2]} at revision ${rev[1]}${first ? ` (${first})` : ''}`)
     }
     const dir = mkdtempSync(join(tmpdir(), 'ampreview-compare-'))
     try {

@@ -86,9 +86,16 @@ async function templateFor(name: string, res: Resources): Promise<Template> {
   return t
 }
 
-/** Place a message for each requirement not met at its key in the block. */
+/**
+ * Place a message for each requirement not met at its key in the block, and one for each
+ * practice note of severity `warning` at the block's fence, so that CI logs show them.
+ */
 function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
   for (const ev of evaluations) {
+    for (const n of ev.notes) {
+      if (n.severity !== 'warning') continue
+      file.message(`Stage \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place: ev.block.position?.start, ruleId: n.rule, source: 'ampreview'})
+    }
     for (const r of ev.result.requirements) {
       if (r.met) continue
       const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
@@ -177,6 +184,20 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
     const mdPath = outputPath(path, outDir, 'md')
     files.push([mdPath, md.markdown], ...md.figures.map((f): [string, string] => [join(dirname(mdPath), f.name), f.svg]))
   }
-  for (const [target, data] of files) await writeAtomic(target, data)
-  return {...final, outputs: files.map(([p]) => p)}
+  const written: string[] = []
+  for (const [target, data] of files) {
+    try {
+      await writeAtomic(target, data)
+      written.push(target)
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code
+      const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
+        : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
+          : error instanceof Error ? error.message : String(error)
+      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
+        message: `Cannot write ${target}: ${why}; nothing was replaced (choose another folder with --out)`}
+      return {...final, diagnostics: [...final.diagnostics, d], exitCode: 2, outputs: written}
+    }
+  }
+  return {...final, outputs: written}
 }

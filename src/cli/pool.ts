@@ -22,37 +22,54 @@ export const inThread = (res: Resources): NoteRunner => ({
   size: 1
 })
 
-/** A worker pool of `size` threads; each note goes to the next free worker. */
+/**
+ * A worker pool of up to `size` threads; each note goes to the next free worker. Threads
+ * start on the first note that needs one (a batch whose notes are all up to date starts
+ * none). A thread that dies fails its note and is replaced, so the batch goes on.
+ */
 export function workerPool(size: number): NoteRunner {
-  const workers = Array.from({length: size}, () => new Worker(new URL('./worker.js', import.meta.url)))
-  const idle = [...workers]
-  const queue: {req: WorkerRequest; resolve: (o: NoteOutcome) => void}[] = []
-  const pending = new Map<number, {worker: Worker; resolve: (o: NoteOutcome) => void; path: string}>()
+  type Job = {req: WorkerRequest; resolve: (o: NoteOutcome) => void}
+  const workers = new Set<Worker>()
+  const idle: Worker[] = []
+  const queue: Job[] = []
+  const busy = new Map<Worker, Job>()
   let next = 0
+  let closing = false
+  const finish = (w: Worker, outcome: NoteOutcome): void => {
+    const job = busy.get(w)
+    if (!job) return
+    busy.delete(w)
+    job.resolve(outcome)
+  }
+  const spawn = (): void => {
+    const w = new Worker(new URL('./worker.js', import.meta.url))
+    workers.add(w)
+    idle.push(w)
+    w.on('message', (reply: WorkerReply) => {
+      if (busy.get(w)?.req.id !== reply.id) return
+      finish(w, reply.outcome)
+      idle.push(w)
+      pump()
+    })
+    const lost = (why: string): void => {
+      if (!workers.delete(w)) return
+      const i = idle.indexOf(w)
+      if (i >= 0) idle.splice(i, 1)
+      const job = busy.get(w)
+      if (job) finish(w, failedOutcome(job.req.path, `internal error in worker: ${why}`))
+      if (!closing) pump()
+    }
+    w.on('error', (error) => lost(error.message))
+    w.on('exit', (code) => lost(`the thread stopped (exit code ${code})`))
+  }
   const pump = (): void => {
+    while (queue.length > idle.length && workers.size < size) spawn()
     while (idle.length > 0 && queue.length > 0) {
       const w = idle.pop()!
       const job = queue.shift()!
-      pending.set(job.req.id, {worker: w, resolve: job.resolve, path: job.req.path})
+      busy.set(w, job)
       w.postMessage(job.req)
     }
-  }
-  for (const w of workers) {
-    w.on('message', (reply: WorkerReply) => {
-      const p = pending.get(reply.id)
-      if (!p) return
-      pending.delete(reply.id)
-      idle.push(w)
-      p.resolve(reply.outcome)
-      pump()
-    })
-    w.on('error', (error) => {
-      for (const [id, p] of pending) {
-        if (p.worker !== w) continue
-        pending.delete(id)
-        p.resolve(failedOutcome(p.path, `internal error in worker: ${error.message}`))
-      }
-    })
   }
   return {
     run: (path, opts) => new Promise((resolve) => {
@@ -60,7 +77,9 @@ export function workerPool(size: number): NoteRunner {
       pump()
     }),
     close: async () => {
-      await Promise.all(workers.map((w) => w.terminate()))
+      closing = true
+      for (const job of queue.splice(0)) job.resolve(failedOutcome(job.req.path, 'not processed: the worker pool was closed'))
+      await Promise.all([...workers].map((w) => w.terminate()))
     },
     size
   }

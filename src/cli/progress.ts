@@ -1,6 +1,7 @@
 /**
  * Progress on stderr: on a terminal a bar of notes done of total, redrawn in place; off a
- * terminal one plain line per note. Colour only on a terminal and never under NO_COLOR.
+ * terminal one plain line per note. Colour only on a terminal and never under NO_COLOR;
+ * the bar is drawn and cleared with carriage returns and spaces only, no escape codes.
  */
 export interface ProgressOptions {
   tty: boolean
@@ -15,6 +16,8 @@ export const paint = (on: boolean, code: number, s: string): string => (on ? `\u
 
 export class Progress {
   private done = 0
+  /** Characters of the bar now on screen (0 = none). */
+  private drawn = 0
   constructor(private readonly total: number, private readonly o: ProgressOptions) {}
 
   /** One note finished. `status` is a short word: ok, not met, error, up to date. */
@@ -25,8 +28,10 @@ export class Progress {
       const width = 24
       const filled = Math.round((this.done / this.total) * width)
       const bar = '█'.repeat(filled) + '░'.repeat(width - filled)
-      this.o.write(`\r${bar} ${this.done}/${this.total} notes`)
-      if (this.done === this.total) this.o.write('\n')
+      const line = `${bar} ${this.done}/${this.total} notes`
+      this.o.write(`\r${line}`)
+      this.drawn = line.length
+      if (this.done === this.total) { this.o.write('\n'); this.drawn = 0 }
     } else {
       this.o.write(`[${this.done}/${this.total}] ${status}: ${file} (${seconds.toFixed(2)} s)\n`)
     }
@@ -34,6 +39,7 @@ export class Progress {
 
   /** Clear the bar before other output (diagnostics) is written. */
   clear(): void {
-    if (this.o.tty && !this.o.quiet && this.done < this.total) this.o.write('\r\u001b[K')
+    if (this.drawn > 0) this.o.write(`\r${' '.repeat(this.drawn)}\r`)
+    this.drawn = 0
   }
 }

@@ -5,8 +5,9 @@
  */
 import {watch, type FSWatcher} from 'node:fs'
 import {basename, dirname, resolve} from 'node:path'
+import {outputClashes} from './batch.js'
 import {formatDiagnostic} from './diagnostics.js'
-import {processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
+import {failedOutcome, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 
 export interface WatchIo {
   out: (s: string) => void
@@ -19,8 +20,20 @@ const verdictLine = (o: NoteOutcome, seconds: number): string => {
 }
 
 /** Resolves when `signal` aborts; every watcher is closed then. */
-export async function watchNotes(notes: string[], res: Resources, opts: RunOptions, io: WatchIo, signal: AbortSignal): Promise<void> {
+export async function watchNotes(all: string[], res: Resources, opts: RunOptions, io: WatchIo, signal: AbortSignal): Promise<void> {
+  // A note whose outputs would replace a note (or another's outputs) is reported, never built or watched.
+  const clashes = outputClashes(all, opts)
+  const notes = all.filter((_n, i) => clashes[i] === null)
+  all.forEach((note, i) => {
+    const why = clashes[i]
+    if (why == null) return
+    const o = failedOutcome(note, why)
+    for (const d of o.diagnostics) io.err(`${formatDiagnostic(note, d)}\n`)
+    io.out(verdictLine(o, 0))
+  })
   const building = new Map<string, Promise<void>>()
+  /** Notes whose debounce delay is running: more events for them are the same save. */
+  const waiting = new Set<string>()
   const again = new Set<string>()
   const build = async (note: string): Promise<void> => {
     const t0 = performance.now()
@@ -33,14 +46,23 @@ export async function watchNotes(notes: string[], res: Resources, opts: RunOptio
     io.out(verdictLine(o, (performance.now() - t0) / 1000))
   }
   const schedule = (note: string): void => {
+    if (signal.aborted || waiting.has(note)) return
+    // An event while the note builds: build once more afterwards, with what was saved last.
     if (building.has(note)) { again.add(note); return }
-    const p = new Promise<void>((r) => setTimeout(r, 30)).then(() => build(note)).finally(() => {
+    waiting.add(note)
+    const p = new Promise<void>((r) => setTimeout(r, 30)).then(() => {
+      waiting.delete(note)
+      return build(note)
+    }).finally(() => {
       building.delete(note)
       if (again.delete(note)) schedule(note)
     })
     building.set(note, p)
   }
-  for (const note of notes) await build(note)
+  for (const note of notes) {
+    if (signal.aborted) return
+    await build(note)
+  }
   const watchers: FSWatcher[] = []
   const byDir = new Map<string, Map<string, string>>()
   for (const note of notes) {
@@ -52,10 +74,11 @@ export async function watchNotes(notes: string[], res: Resources, opts: RunOptio
     watchers.push(watch(dir, (_event, name) => {
       const note = name === null ? undefined : names.get(name.toString())
       if (note !== undefined) schedule(note)
-    }))
+    }).on('error', (e) => io.err(`cannot watch ${dir} any longer: ${e.message}\n`)))
   }
   io.err(`watching ${notes.length} note(s); press Ctrl-C to stop\n`)
-  await new Promise<void>((r) => signal.addEventListener('abort', () => r(), {once: true}))
+  // The signal may have fired already, during the first builds.
+  if (!signal.aborted) await new Promise<void>((r) => signal.addEventListener('abort', () => r(), {once: true}))
   for (const w of watchers) w.close()
   await Promise.all(building.values())
 }

@@ -103,6 +103,8 @@ export function readYaml(text: string, map: PointMapper, where: string, report: 
         report.error(noteMessages.badKey(label), pointOf(keyStart), 'unknown-key')
         continue
       }
+      // A key that a syntax error falls in (an unclosed fence's prose) was reported already.
+      if (damaged(k.range)) continue
       const name = String(k.value)
       const key = prefix + name
       const keyAt = pointOf(keyStart)

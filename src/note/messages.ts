@@ -41,7 +41,7 @@ export const noteMessages = {
       ? `Unexpected key ${q(key)} in ${where}, expected ${kind} key${hint(suggestion)}`
       : `Unexpected key ${q(key)} in ${where}, expected ${kind} key: ${q(key)} belongs in ${otherKind}`,
   keyNotForTopology: (key: string, topology: string, where: string) =>
-    `Unexpected key ${q(key)} in ${topology} ${where}, expected only keys a ${topology} stage takes: remove it or change \`topology\``,
+    `Unexpected key ${q(key)} in ${topology} ${where}, expected only keys ${/^[aeiou]/.test(topology) ? 'an' : 'a'} ${topology} stage takes: remove it or change \`topology\``,
   missingKey: (key: string, where: string, why: string) =>
     `Missing ${q(key)} in ${where}, expected it ${why}: add \`${key}: …\``,
   notScalar: (key: string, found: string) => `Unexpected ${found} for ${q(key)}, expected a single value`,
@@ -50,14 +50,17 @@ export const noteMessages = {
     `Unexpected ${q(value)} for ${q(key)}, expected one of ${choices.map(q).join(', ')}${hint(suggestion)}`,
 
   negative: (key: string, value: string, expected: string) =>
-    `Unexpected negative ${q(value)} for ${q(key)}, expected ${expected} of 0 or more`,
+    `Unexpected negative ${q(value)} for ${q(key)}, expected ${expected} of 0 or more: drop the minus sign, or check the value`,
   notPositive: (key: string, value: string, expected: string) =>
-    `Unexpected ${q(value)} for ${q(key)}, expected ${expected} above 0`,
+    `Unexpected ${q(value)} for ${q(key)}, expected ${expected} above 0: give its real value${key === 'rf' || key === 'rg' ? ' (a follower needs no `rg`; use `topology: follower` for unity gain)' : ''}`,
+  notAboveZeroDb: (key: string, value: string) =>
+    `Unexpected ${q(value)} for ${q(key)}, expected a ratio above 0 dB (more than 1 V/V): write the datasheet figure as a positive number of dB, e.g. \`120 dB\``,
   bandFromZero: () =>
     'Unexpected `band` starting at 0 Hz, expected a lower edge above 0 Hz (1/f noise has no finite total from 0 Hz): write e.g. `0.1 .. 10k Hz`',
-  bandEmpty: (value: string) => `Unexpected empty band ${q(value)}, expected a lower edge below the upper one`,
+  bandEmpty: (value: string) =>
+    `Unexpected empty band ${q(value)}, expected a lower edge below the upper one: write e.g. \`0.1 .. 10k Hz\``,
   pmOutOfRange: (value: string) =>
-    `Unexpected \`pm-unity\` of ${q(value)}, expected 0° < φ ≤ 90° (90° means no second pole)`,
+    `Unexpected \`pm-unity\` of ${q(value)}, expected 0° < φ ≤ 90° (90° means no second pole): give the datasheet's unity-gain phase margin, e.g. \`60 deg\``,
   supplyTolerance: (value: string) =>
     `Unexpected supply tolerance ${q(value)}, expected under 100 %: write e.g. \`5 %\``,
   ccompWithoutRcomp: () =>
@@ -68,12 +71,12 @@ export const noteMessages = {
     'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
-  unknownRequirement: (key: string, suggestion: string | null) =>
-    `Unexpected requirement ${q(key)}, expected a requirement key${hint(suggestion)}`,
+  unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>
+    `Unexpected requirement ${q(key)}, expected a requirement key${suggestion === null && known.length > 0 ? ` (one of ${known.map(q).join(', ')})` : hint(suggestion)}`,
   requireNotMap: () => 'Unexpected value for `require`, expected a map of requirements (`noise-rms: 30 uV` on the lines below, indented)',
 
-  unknownOpamp: (name: string, stage: string, suggestion: string | null) =>
-    `Unexpected opamp ${q(name)} in ${stage}, expected the id of an opamp block of this note or an archetype${hint(suggestion)}`,
+  unknownOpamp: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>
+    `Unexpected opamp ${q(name)} in ${stage}, expected the id of an opamp block of this note or an archetype${suggestion === null && archetypes.length > 0 ? `: add an \`opamp ${name}\` block above the stage, or name an archetype (${archetypes.map(q).join(', ')})` : hint(suggestion)}`,
   opampDefinedLater: (name: string, line: number) =>
     `Unexpected opamp ${q(name)} before its block (line ${line}), expected it defined above the stage: move the opamp block up`,
   opampHasErrors: (stage: string, name: string) =>

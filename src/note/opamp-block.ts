@@ -48,6 +48,7 @@ function readValue(field: Field, key: OpampKey, report: Reporter): number | null
   let problem: string | null = null
   if (key === 'pm-unity' && !(q.value > 0 && q.value <= 90)) problem = noteMessages.pmOutOfRange(text)
   else if (spec.sign !== 'any' && q.value < 0) problem = noteMessages.negative(key, text, what)
+  else if (spec.sign === 'positive' && spec.dim === 'ratio-db' && !(q.value > 1)) problem = noteMessages.notAboveZeroDb(key, text)
   else if (spec.sign === 'positive' && q.value === 0) problem = noteMessages.notPositive(key, text, what)
   if (problem === null) return q.value
   report.error(problem, q.s.at(0), 'bad-value')

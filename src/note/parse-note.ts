@@ -75,7 +75,7 @@ function resolver(registry: Registry, where: string, report: Reporter) {
     }
     if (isArchetypeName(name)) return {...ARCHETYPES[name]}
     const suggestion = didYouMean(name, [...registry.all.keys(), ...ARCHETYPE_NAMES])
-    report.error(noteMessages.unknownOpamp(name, where, suggestion), at, 'unknown-opamp', {
+    report.error(noteMessages.unknownOpamp(name, where, suggestion, ARCHETYPE_NAMES), at, 'unknown-opamp', {
       actual: name, expected: suggestion === null ? [...registry.all.keys(), ...ARCHETYPE_NAMES] : [suggestion]
     })
     return null

@@ -54,7 +54,7 @@ function reportMissing(read: StageRead, ctx: StageContext): void {
     const everywhere = Object.values(use).every((u) => u === 'r')
     if (everywhere) ctx.report.error(noteMessages.missingKey(key, ctx.where, 'in every stage'), ctx.idAt, 'missing-key')
     else if (read.topology !== null && use[read.topology] === 'r') {
-      ctx.report.error(noteMessages.missingKey(key, ctx.where, `for a ${read.topology} stage`), ctx.idAt, 'missing-key')
+      ctx.report.error(noteMessages.missingKey(key, ctx.where, `for ${read.topology === 'inverting' ? 'an' : 'a'} ${read.topology} stage`), ctx.idAt, 'missing-key')
     }
   }
 }

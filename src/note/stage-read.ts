@@ -57,7 +57,7 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
     const name = sub.key.slice('require.'.length)
     if (!Object.hasOwn(REQUIREMENT_KEYS, name)) {
       const suggestion = didYouMean(name, Object.keys(REQUIREMENT_KEYS))
-      report.error(noteMessages.unknownRequirement(name, suggestion), sub.keyAt, 'unknown-key', {actual: name, ...(suggestion ? {expected: [suggestion]} : {})})
+      report.error(noteMessages.unknownRequirement(name, suggestion, Object.keys(REQUIREMENT_KEYS)), sub.keyAt, 'unknown-key', {actual: name, ...(suggestion ? {expected: [suggestion]} : {})})
       continue
     }
     const key = name as RequirementKey

@@ -3,7 +3,9 @@
  * new and by how much, and every requirement verdict that flipped. Pure; the CLI loads
  * the two sides and prints the result as text or Markdown.
  */
+import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
 import {formatQuantity} from '../units/format.js'
+import {gainUnit, inputUnit, requirementUnit} from './labels.js'
 
 /** The parts of the §6 object that a comparison reads. */
 export interface RunJson {
@@ -11,6 +13,7 @@ export interface RunJson {
 }
 interface StageJson {
   id: string
+  topology?: string
   gain: number
   noiseGain: number
   dc: {contributors: {key: string; output: number}[]; worstCaseOutput: number; rssOutput: number; worstCaseInput: number; rssInput: number}
@@ -46,13 +49,17 @@ export interface Comparison {
 
 const REL = 1e-9
 
+/** Units follow the topology: a transimpedance stage's input is a current and its gain is in Ω. */
 function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
+  const t: Topology = (TOPOLOGIES as readonly string[]).includes(s.topology ?? '') ? s.topology as Topology : 'noninverting'
   const m = new Map<string, {unit: string; v: number | null}>()
-  m.set('gain', {unit: 'V/V', v: s.gain})
+  m.set('gain', {unit: gainUnit(t), v: s.gain})
   m.set('noiseGain', {unit: 'V/V', v: s.noiseGain})
-  for (const k of ['worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'] as const) m.set(`dc.${k}`, {unit: 'V', v: s.dc[k]})
+  for (const k of ['worstCaseOutput', 'rssOutput'] as const) m.set(`dc.${k}`, {unit: 'V', v: s.dc[k]})
+  for (const k of ['worstCaseInput', 'rssInput'] as const) m.set(`dc.${k}`, {unit: inputUnit(t), v: s.dc[k]})
   for (const c of s.dc.contributors) m.set(`dc.${c.key}`, {unit: 'V', v: c.output})
-  for (const k of ['outputRms', 'outputPeakToPeak', 'inputRms'] as const) m.set(`noise.${k}`, {unit: 'V', v: s.noise[k]})
+  for (const k of ['outputRms', 'outputPeakToPeak'] as const) m.set(`noise.${k}`, {unit: 'V', v: s.noise[k]})
+  m.set('noise.inputRms', {unit: inputUnit(t), v: s.noise.inputRms})
   for (const c of s.noise.contributors) m.set(`noise.${c.key}`, {unit: 'V', v: c.outputRms})
   m.set('stability.phaseMargin', {unit: '°', v: s.stability.phaseMargin})
   m.set('stability.crossover', {unit: 'Hz', v: s.stability.crossover})
@@ -60,7 +67,7 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   m.set('stability.peaking', {unit: 'dB', v: s.stability.peaking})
   m.set('stability.suggestedCf', {unit: 'F', v: s.stability.suggestedCf})
   for (const r of s.requirements) {
-    m.set(`require.${r.key}`, {unit: r.key === 'phase-margin' ? '°' : r.key === 'bandwidth' ? 'Hz' : 'V', v: r.value})
+    m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: r.value})
   }
   return m
 }
@@ -68,16 +75,17 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
 const differs = (a: number | null, b: number | null): boolean =>
   a === null || b === null ? a !== b : Math.abs(a - b) > REL * Math.max(Math.abs(a), Math.abs(b), 1e-30)
 
-function stagesOf(run: RunJson): Map<string, StageJson> {
-  const multi = run.files.length > 1
+/** Stages by id; prefixed by the note's file name when either side holds several notes. */
+function stagesOf(run: RunJson, multi: boolean): Map<string, StageJson> {
   const out = new Map<string, StageJson>()
   for (const f of run.files) for (const s of f.stages) out.set(multi ? `${f.file.split('/').pop()}/${s.id}` : s.id, s)
   return out
 }
 
 export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
-  const a = stagesOf(oldRun)
-  const b = stagesOf(newRun)
+  const multi = oldRun.files.length > 1 || newRun.files.length > 1
+  const a = stagesOf(oldRun, multi)
+  const b = stagesOf(newRun, multi)
   const changes: ValueChange[] = []
   const flips: VerdictFlip[] = []
   for (const [id, so] of a) {
@@ -111,7 +119,7 @@ const show = (v: number | null, unit: string): string =>
 const delta = (c: ValueChange): string => {
   if (c.old === null || c.new === null) return ''
   const d = c.new - c.old
-  const sign = d > 0 ? '+' : '−'
+  const sign = d >= 0 ? '+' : '−'
   const rel = c.old !== 0 ? ` (${sign}${Math.abs((d / c.old) * 100).toFixed(2)} %)` : ''
   return `${sign}${show(Math.abs(d), c.unit)}${rel}`
 }

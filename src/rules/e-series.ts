@@ -54,21 +54,23 @@ export function isOnSeries(value: number, series: SeriesName): boolean {
 export function nearestOnSeries(value: number, series: SeriesName): number | null {
   if (!(value > 0) || !Number.isFinite(value)) return null
   const k = decade(value)
-  let best: number | null = null
+  const mantissa = value / 10 ** k
+  let best = 1
+  let bestShift = 0
   let bestDistance = Infinity
   for (const shift of [-1, 0, 1]) {
-    const scale = 10 ** (k + shift)
+    const f = 10 ** shift
     for (const m of SERIES[series]) {
-      // Round to 12 significant figures so 4.99 × 10⁴ prints as 49900, not 49900.000000000004.
-      const candidate = Number((m * scale).toPrecision(12))
-      const distance = Math.abs(Math.log(candidate / value))
+      const distance = Math.abs(Math.log((m * f) / mantissa))
       if (distance < bestDistance) {
-        best = candidate
+        best = m
+        bestShift = shift
         bestDistance = distance
       }
     }
   }
-  return best
+  // Round to 12 significant figures so 4.99 × 10⁴ prints as 49900, not 49900.000000000004.
+  return Number((best * 10 ** (k + bestShift)).toPrecision(12))
 }
 
 /** The smallest series value ≥ `value` (> 0): roundUpToSeries(1.6e-6, 'E3') = 2.2e-6. */

@@ -17,8 +17,10 @@ export const unitsMessages = {
     `Unexpected \`${found}\`${where}, expected a number first, as ${expectedOf(dim)}`,
   comma: (found: string, fixed: string, where: string) =>
     `Unexpected comma in \`${found}\`${where}, expected a decimal point: use a point (\`${fixed}\`)`,
-  nonFinite: (found: string, where: string) =>
-    `Unexpected non-finite number \`${found}\`${where}, expected a finite value`,
+  nonFinite: (found: string, where: string, dim?: Dimension) =>
+    `Unexpected non-finite number \`${found}\`${where}, expected a finite value${dim === undefined ? '' : ` (${DIMENSIONS[dim].label}, e.g. \`${DIMENSIONS[dim].example}\`)`}: write the number itself`,
+  outOfRange: (found: string, dim: Dimension, where: string, direction: 'overflow' | 'underflow') =>
+    `Unexpected \`${found}\`${where}: ${direction === 'overflow' ? 'too large to represent (it overflows to infinity)' : 'too small to represent (it underflows to 0)'}, expected ${expectedOf(dim)}: check the exponent and the prefix`,
   loneSign: (where: string) => `Unexpected lone \`±\`${where}, expected a number after it (\`±15 V\`)`,
   plusMinus: (where: string) =>
     `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply (\`supply: ±15 V\`)`,
@@ -30,9 +32,12 @@ export const unitsMessages = {
     `Unexpected prefix \`${prefix}\` in \`${unit}\`${where}, expected \`${meant}\`: SI prefixes are case-sensitive`,
   prefixNotAllowed: (unit: string, dim: Dimension, where: string) =>
     `Unexpected prefix in \`${unit}\`${where}, expected ${expectedOf(dim)} with no prefix`,
-  rangeInSingle: (where: string) => `Unexpected range${where}, expected a single value`,
+  rkmWithPrefix: (found: string, unit: string, where: string) =>
+    `Unexpected prefix in \`${unit}\` after the RKM code \`${found}\`${where}, expected no second multiplier: the letter inside \`${found}\` already is one; write \`${found}\` alone or a decimal value with a prefix (\`4.7 kΩ\`)`,
+  rangeInSingle: (where: string, dim?: Dimension) =>
+    `Unexpected range${where}, expected a single value${dim === undefined ? '' : ` (${DIMENSIONS[dim].label}, e.g. \`${DIMENSIONS[dim].example}\`)`}: ranges \`a .. b\` are only for \`input\`, \`supply\`, \`temperature\` and \`band\``,
   belowAbsoluteZero: (found: string, where: string) =>
-    `Unexpected temperature \`${found}\`${where}, expected one above absolute zero (−273.15 °C)`,
+    `Unexpected temperature \`${found}\`${where}, expected one above absolute zero (−273.15 °C): check the sign and the unit (\`-40 °C\`, \`233 K\`)`,
   rangeNoSpaces: (found: string, fixed: string, where: string) =>
     `Unexpected \`..\` without spaces in \`${found}\`${where}, expected spaces around it: \`${fixed}\``,
   rangeTooMany: (where: string) => `Unexpected second \`..\`${where}, expected one range \`low .. high\``,
@@ -45,7 +50,9 @@ export const unitsMessages = {
   resistorExtra: (found: string, where: string) =>
     `Unexpected \`${found}\` after the resistor value${where}, expected a tolerance (\`0.1%\`) or a tempco (\`25ppm/K\`)`,
   resistorTwice: (part: 'tolerance' | 'tempco', found: string, where: string) =>
-    `Unexpected second ${part} \`${found}\`${where}, expected at most one`,
+    `Unexpected second ${part} \`${found}\`${where}, expected at most one: remove one of them`,
+  toleranceTooLarge: (found: string, where: string) =>
+    `Unexpected tolerance \`${found}\`${where}, expected under 100 % (at 100 % or more the resistor could be 0 Ω or negative): write e.g. \`0.1%\``,
   negativePart: (part: 'tolerance' | 'tempco', found: string, where: string) =>
     `Unexpected negative ${part} \`${found}\`${where}, expected a magnitude (each resistor moves by ± its ${part})`
 } as const

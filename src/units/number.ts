@@ -35,7 +35,7 @@ export function readNumber(text: string, dim: Dimension, where: string): NumberR
     i = 1
   }
   const body = text.slice(i)
-  if (NON_FINITE.test(body)) return {ok: false, message: unitsMessages.nonFinite(text.split(/\s/)[0] ?? text, where), offset: 0}
+  if (NON_FINITE.test(body)) return {ok: false, message: unitsMessages.nonFinite(text.split(/\s/)[0] ?? text, where, dim), offset: 0}
 
   const letters = dimensionSpec(dim).rkm
   if (letters !== '') {
@@ -61,7 +61,11 @@ export function readNumber(text: string, dim: Dimension, where: string): NumberR
   }
   const value = sign * Number(match[0].replace('−', '-'))
   if (!Number.isFinite(value)) {
-    return {ok: false, message: unitsMessages.nonFinite(text.slice(0, end), where), offset: 0}
+    return {ok: false, message: unitsMessages.nonFinite(text.slice(0, end), where, dim), offset: 0}
+  }
+  // `1e-400` reads as 0 although it was not written as zero.
+  if (value === 0 && /[1-9]/.test(match[0].replace(/[eE].*$/, ''))) {
+    return {ok: false, message: unitsMessages.outOfRange(text.slice(0, end), dim, where, 'underflow'), offset: 0}
   }
   return {ok: true, value, end, rkm: false}
 }

@@ -108,7 +108,7 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
     return {ok: false, message, offset: lead}
   }
   const dots = /\.\.|…/.exec(body)
-  if (dots) return {ok: false, message: unitsMessages.rangeInSingle(where), offset: lead + dots.index}
+  if (dots) return {ok: false, message: unitsMessages.rangeInSingle(where, dim), offset: lead + dots.index}
 
   const num = readNumber(body, dim, where)
   if (!num.ok) return {...num, offset: lead + num.offset}
@@ -122,10 +122,20 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
   const resolved = lookup(rest, dim)
   if (!resolved) return {ok: false, message: unitProblem(rest, dim, where), offset: lead + restStart}
   if (num.rkm && resolved.prefix !== '') {
-    return {ok: false, message: unitsMessages.prefixNotAllowed(rest, dim, where), offset: lead + restStart}
+    return {ok: false, message: unitsMessages.rkmWithPrefix(body.slice(0, num.end), rest, where), offset: lead + restStart}
   }
   const {unit, exp, prefix, symbol} = resolved
-  const value = unit.decibel ? 10 ** (num.value / 20) : timesPow10(num.value, exp + unit.exp) + (unit.offset ?? 0)
+  const scaled = unit.decibel ? 10 ** (num.value / 20) : timesPow10(num.value, exp + unit.exp)
+  // A finite number can still leave the double range once its prefix or dB is applied
+  // (`1e308 T`, `7000 dB`), or vanish to 0 (`1e-320 f`, `-7000 dB`): refuse both rather
+  // than hand on ∞ or a 0 that was not written.
+  if (!Number.isFinite(scaled)) {
+    return {ok: false, message: unitsMessages.outOfRange(body, dim, where, 'overflow'), offset: lead}
+  }
+  if (scaled === 0 && (num.value !== 0 || unit.decibel === true)) {
+    return {ok: false, message: unitsMessages.outOfRange(body, dim, where, 'underflow'), offset: lead}
+  }
+  const value = scaled + (unit.offset ?? 0)
   if (dim === 'temperature' && value < -273.15) {
     return {ok: false, message: unitsMessages.belowAbsoluteZero(body, where), offset: lead}
   }

@@ -74,6 +74,7 @@ export function parseResistor(text: string, options: QuantityOptions = {}): Resi
     const q = readQuantity(body, part === 'tempco' ? 'tempco' : 'fraction', options)
     if (!q.ok) return {...q, offset: q.offset + at}
     if (q.value < 0) return {ok: false, message: unitsMessages.negativePart(part, g.text, where), offset: g.start}
+    if (part === 'tolerance' && q.value >= 1) return {ok: false, message: unitsMessages.toleranceTooLarge(g.text, where), offset: g.start}
     if ((part === 'tolerance' ? tolerance : tempco) !== null) {
       return {ok: false, message: unitsMessages.resistorTwice(part, g.text, where), offset: g.start}
     }

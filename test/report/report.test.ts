@@ -1,0 +1,86 @@
+import {describe, expect, it} from 'vitest'
+import {createHash} from 'node:crypto'
+import type {RootContent} from 'mdast'
+import {readPdf} from '../render/helpers.js'
+import {pdfOf, reportOf, sample} from './helpers.js'
+
+/** The report tree with each figure's SVG replaced by its length and hash, for a readable snapshot. */
+function summarise(nodes: RootContent[]): unknown[] {
+  return nodes.map((n) => {
+    if (n.type === 'figure') {
+      return {type: 'figure', number: n.number, caption: n.caption, svg: `${n.svg.length} chars, sha256 ${createHash('sha256').update(n.svg).digest('hex').slice(0, 12)}`}
+    }
+    if ('children' in n && Array.isArray(n.children)) {
+      const {position: _p, ...rest} = n as typeof n & {position?: unknown}
+      return {...rest, children: summarise(n.children as RootContent[])}
+    }
+    const {position: _p, ...rest} = n as typeof n & {position?: unknown}
+    return rest
+  })
+}
+
+describe('report tree', () => {
+  it('of the reference-buffer sample matches the reviewed snapshot', async () => {
+    const {document, warnings} = await reportOf(sample('reference-buffer.md'))
+    expect(warnings).toEqual([])
+    const tree = {cover: document.cover, body: summarise(document.body.children), appendix: summarise(document.appendix.children)}
+    await expect(`${JSON.stringify(tree, null, 1)}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.tree.json')
+  })
+
+  it('numbers figures 1 … N in document order, four per stage', async () => {
+    const {document} = await reportOf(sample('reference-buffer.md'))
+    const numbers: number[] = []
+    const walk = (ns: RootContent[]): void => ns.forEach((n) => {
+      if (n.type === 'figure') numbers.push(n.number)
+      if ('children' in n && Array.isArray(n.children)) walk(n.children as RootContent[])
+    })
+    walk(document.body.children)
+    expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8])
+  })
+})
+
+describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
+  const {outcome, pdf} = await pdfOf(sample('load-cell-bridge.md'))
+  const text = (await readPdf(pdf)).pages.join('\n')
+
+  it('builds without errors and with every requirement met', () => {
+    expect(outcome.diagnostics.filter((d) => d.severity !== 'info')).toEqual([])
+    expect(outcome.exitCode).toBe(0)
+  })
+
+  it.each([
+    'Output-referred error (V)', 'Output noise density (V/√Hz)', 'Frequency (Hz)', 'Loop gain |T| (dB)'
+  ])('carries the chart axis title “%s”', (title) => {
+    expect(text).toContain(title.normalize('NFKC'))
+  })
+
+  it.each([
+    'Figure 1 — DC error contributors of stage bridge-amp',
+    'Figure 2 — Output noise density of stage bridge-amp',
+    'Figure 3 — Cumulative output noise rms of stage bridge-amp',
+    'Figure 4 — Loop gain of stage bridge-amp'
+  ])('carries the caption “%s”', (caption) => {
+    expect(text).toContain(caption)
+  })
+
+  it('shows the verdicts as words and the overall status on the cover', () => {
+    expect(text).toContain('MET')
+    expect(text).toContain('Overall: all 4 requirements met')
+  })
+
+  it('carries the compensation-resistor note with its three-way table', () => {
+    expect(text).toContain('bias-compensation-resistor')
+    expect(text).toContain('does not earn its place')
+    expect(text).toContain('Without rcomp')
+  })
+
+  it('carries the mains safety note, deferring to codes and licensed practice', () => {
+    expect(text).toContain('SAFETY')
+    expect(text).toMatch(/local codes/)
+    expect(text).toMatch(/licensed/)
+  })
+
+  it('ends the sign-off with the calculated-estimates statement', () => {
+    expect(text).toMatch(/calculated estimates/)
+  })
+})

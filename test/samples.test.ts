@@ -1,0 +1,64 @@
+/**
+ * Every sample design evaluates without errors, and its `check --json` output has exactly
+ * the DESIGN §6 shape: field names, types, SI numbers, null (never NaN or Infinity) where a
+ * value does not exist.
+ */
+import {describe, expect, it} from 'vitest'
+import {readdirSync} from 'node:fs'
+import {join} from 'node:path'
+import {ROOT, runCli} from './cli/helpers.js'
+
+const SAMPLES = readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).sort()
+
+type Json = Record<string, unknown>
+const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(v)
+const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
+
+function checkStage(s: Json): void {
+  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'requirements', 'notes'])
+  expect(typeof s['id']).toBe('string')
+  expect(['noninverting', 'inverting', 'follower', 'transimpedance']).toContain(s['topology'])
+  expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)
+  const dc = s['dc'] as Json
+  expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'])
+  for (const c of dc['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['output'])).toBe(true)
+  const noise = s['noise'] as Json
+  expect(Object.keys(noise)).toEqual(['band', 'temperature', 'outputRms', 'outputPeakToPeak', 'inputRms', 'contributors'])
+  expect((noise['band'] as unknown[]).every(isNum)).toBe(true)
+  expect(noise['temperature'] as number).toBeGreaterThan(200) // kelvin, not °C
+  for (const c of noise['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['outputRms'])).toBe(true)
+  const st = s['stability'] as Json
+  expect(Object.keys(st)).toEqual(['phaseMargin', 'crossover', 'bandwidth', 'peaking', 'suggestedCf'])
+  expect(['phaseMargin', 'crossover', 'bandwidth', 'suggestedCf'].every((k) => isNumOrNull(st[k])) && isNum(st['peaking'])).toBe(true)
+  for (const r of s['requirements'] as Json[]) {
+    expect(Object.keys(r)).toEqual(['key', 'limit', 'value', 'met'])
+    expect(isNum(r['limit']) && isNumOrNull(r['value']) && typeof r['met'] === 'boolean').toBe(true)
+  }
+  for (const n of s['notes'] as Json[]) {
+    expect(Object.keys(n)).toEqual(['rule', 'severity', 'text'])
+    expect(['info', 'caution', 'warning', 'safety']).toContain(n['severity'])
+  }
+}
+
+describe('sample designs', () => {
+  it('are three or more', () => {
+    expect(SAMPLES.length).toBeGreaterThanOrEqual(3)
+  })
+
+  it.each(SAMPLES)('%s evaluates with no error and a §6-shaped --json result', (name) => {
+    const r = runCli(['check', '--json', join('sample-designs', name)])
+    expect([0, 1]).toContain(r.status)
+    expect(r.stderr).not.toMatch(/: error: /)
+    const out = JSON.parse(r.stdout) as {files: Json[]}
+    expect(out.files).toHaveLength(1)
+    const f = out.files[0]!
+    expect(Object.keys(f)).toEqual(['file', 'sourceSha256', 'diagnostics', 'stages'])
+    expect((f['stages'] as Json[]).length).toBeGreaterThan(0)
+    for (const s of f['stages'] as Json[]) checkStage(s)
+  })
+
+  it('include at least one requirement deliberately not met, to show the verdict', () => {
+    const r = runCli(['check', 'sample-designs'])
+    expect(r.status).toBe(1)
+  })
+})
