@@ -7,7 +7,7 @@ import {readFile} from 'node:fs/promises'
 import {dirname, resolve} from 'node:path'
 import {BuildCache, buildKey, imageInputsHash} from './cache.js'
 import {formatDiagnostic} from './diagnostics.js'
-import {failedOutcome, outputPath, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
+import {failedOutcome, outputFile, outputPath, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 import {runnerFor} from './pool.js'
 import type {Progress} from './progress.js'
 
@@ -36,7 +36,7 @@ const statusWord = (o: NoteOutcome): string => (o.exitCode === 2 ? 'error' : o.e
 
 /**
  * Why a note must not be built with these options, if so: one of its outputs would replace
- * a note of the batch (`--format md` next to the note writes `<name>.md`), or would be the
+ * a note of the batch (a note named `<name>.review.md` beside `<name>.md` built with `--format md`), or would be the
  * same file as an earlier note's output (notes of the same name built into one `--out`).
  */
 export function outputClashes(notes: readonly string[], run: RunOptions): (string | null)[] {
@@ -44,10 +44,10 @@ export function outputClashes(notes: readonly string[], run: RunOptions): (strin
   const sources = new Map(notes.map((n) => [resolve(n), n]))
   const claimed = new Map<string, string>()
   return notes.map((note) => {
-    const outputs = run.formats.map((f) => outputPath(note, outDir, f))
+    const outputs = run.formats.map((f) => outputFile(note, outDir, f))
     const source = outputs.map((o) => sources.get(o)).find((s) => s !== undefined)
     if (source !== undefined) {
-      return `Not built: its ${source === note ? 'Markdown report would replace the note itself' : `output would replace the note ${source}`}; build it with \`--out DIR\` into another folder`
+      return `Not built: its output would replace the note ${source}; build it with \`--out DIR\` into another folder`
     }
     const earlier = outputs.map((o) => claimed.get(o)).find((e) => e !== undefined)
     if (earlier !== undefined) return `Not built: its output files would be the same as those of ${earlier}; build notes of the same name into different \`--out\` folders`

@@ -18,7 +18,8 @@ async function noteRun(path: string, shownAs: string, res: Resources): Promise<R
     const first = o.diagnostics.find((d) => d.severity === 'error')
     throw new CompareInputError(`${shownAs} could not be evaluated${first ? `: ${first.line}:${first.column}: ${first.message}` : ''}`)
   }
-  return noteJson({...o, file: shownAs}) as RunJson
+  // One run of one note, as `check --json` prints it.
+  return {files: [noteJson({...o, file: shownAs}) as RunJson['files'][number]]}
 }
 
 /** What is wrong with a parsed result file, if anything: the fields a comparison reads. */

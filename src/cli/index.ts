@@ -43,7 +43,7 @@ async function run(args: CliArgs, abort: AbortController): Promise<number> {
   const color = useColor(tty, process.env)
   const progress = new Progress(notes.length, {tty, color, quiet: args.quiet || args.json, write: err})
   const items = await runBatch(notes, res, {
-    run: runOpts, force: args.force, jobs: args.jobs, templateHash: await templatesHash(), progress, writeErr: err,
+    run: runOpts, force: args.force, jobs: args.jobs, templateHash: args.command === 'build' ? await templatesHash() : '', progress, writeErr: err,
     interrupted: () => abort.signal.aborted
   })
   if (args.json) {

@@ -22,7 +22,7 @@ import {reportDate} from './dates.js'
 import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
 import {readImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
-import {writeAtomic} from './write.js'
+import {writeAllAtomic} from './write.js'
 
 export interface Resources {
   /** The fonts, loaded once on first use (only builds need them). */
@@ -66,9 +66,16 @@ export const failedOutcome = (file: string, message: string, sha = ''): NoteOutc
 })
 const fail = failedOutcome
 
-/** The output file of a note in one format: `<outDir or the note's folder>/<name>.<ext>`. */
+/** A file beside a note's outputs: `<outDir or the note's folder>/<name>.<ext>`. */
 export const outputPath = (notePath: string, outDir: string | null, ext: string): string =>
   join(outDir ?? dirname(resolve(notePath)), `${basename(notePath, extname(notePath))}.${ext}`)
+
+/** File extension of each output format; the Markdown report is `.review.md`, so it never replaces its note. */
+export const FORMAT_EXTENSIONS: Record<Format, string> = {pdf: 'pdf', json: 'json', md: 'review.md'}
+
+/** The output file of a note in one format. */
+export const outputFile = (notePath: string, outDir: string | null, format: Format): string =>
+  outputPath(notePath, outDir, FORMAT_EXTENSIONS[format])
 
 /** The §6 JSON object of one note. */
 export const noteJson = (o: Pick<NoteOutcome, 'file' | 'sourceSha256' | 'diagnostics' | 'stages'>): object => ({
@@ -153,8 +160,27 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return outcome
 
+  const outDir = opts.outDir === null ? null : resolve(opts.outDir)
+  const writeAll = async (o: NoteOutcome, files: [string, Uint8Array | string][]): Promise<NoteOutcome> => {
+    try {
+      await writeAllAtomic(files)
+      return {...o, outputs: files.map(([p]) => p)}
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code
+      const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
+        : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
+          : error instanceof Error ? error.message : String(error)
+      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
+        message: `Cannot write the outputs of this note (${why}); no output file was replaced (choose another folder with --out)`}
+      return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
+    }
+  }
+  const jsonFile = (o: NoteOutcome): [string, string] => [outputFile(path, outDir, 'json'), `${toJson({files: [noteJson(o)]})}\n`]
+  // A JSON-only build needs neither the report tree nor the charts.
+  if (opts.formats.every((f) => f === 'json')) return writeAll(outcome, [jsonFile(outcome)])
+
   // 4. Report: the tree with each block replaced by its section. The report and render
-  //    modules (vega, pdfkit) load only when something is to be written, keeping `check` fast.
+  //    modules (vega, pdfkit) load only when something is to be drawn, keeping `check` fast.
   const [{buildReport}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
     import('../report/build.js'), import('../render/index.js'), import('../report/markdown.js'), res.fonts()
   ])
@@ -164,8 +190,7 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
     sourceSha256: sha, toolVersion: res.version, fileName: basename(path)
   })
 
-  // 5. Render, then write every format atomically (all rendered before any is written).
-  const outDir = opts.outDir === null ? null : resolve(opts.outDir)
+  // 5. Render, then write every format at once, all or nothing.
   const files: [string, Uint8Array | string][] = []
   let renderWarnings: string[] = []
   if (wantPdf) {
@@ -173,31 +198,16 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
       theme: template.theme, fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
-    files.push([outputPath(path, outDir, 'pdf'), rendered.pdf])
+    files.push([outputFile(path, outDir, 'pdf'), rendered.pdf])
   }
   const warnings = [...report.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
   const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
-  if (opts.formats.includes('json')) files.push([outputPath(path, outDir, 'json'), `${toJson({files: [noteJson(final)]})}\n`])
+  if (opts.formats.includes('json')) files.push(jsonFile(final))
   if (opts.formats.includes('md')) {
-    const stem = basename(path, extname(path))
+    const mdPath = outputFile(path, outDir, 'md')
+    const stem = basename(mdPath, '.md')
     const md = reportToMarkdown(report.document, (n) => `${stem}.fig${n}.svg`)
-    const mdPath = outputPath(path, outDir, 'md')
     files.push([mdPath, md.markdown], ...md.figures.map((f): [string, string] => [join(dirname(mdPath), f.name), f.svg]))
   }
-  const written: string[] = []
-  for (const [target, data] of files) {
-    try {
-      await writeAtomic(target, data)
-      written.push(target)
-    } catch (error) {
-      const code = (error as NodeJS.ErrnoException).code
-      const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
-        : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
-          : error instanceof Error ? error.message : String(error)
-      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
-        message: `Cannot write ${target}: ${why}; nothing was replaced (choose another folder with --out)`}
-      return {...final, diagnostics: [...final.diagnostics, d], exitCode: 2, outputs: written}
-    }
-  }
-  return {...final, outputs: written}
+  return writeAll(final, files)
 }

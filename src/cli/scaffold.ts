@@ -5,7 +5,8 @@
  * (even when it appears between the check and the write, or is a dangling link).
  */
 import {randomBytes} from 'node:crypto'
-import {link, lstat, mkdir, readFile, rm, writeFile} from 'node:fs/promises'
+import {constants} from 'node:fs'
+import {copyFile, link, lstat, mkdir, readFile, rm, writeFile} from 'node:fs/promises'
 import {basename, dirname, join} from 'node:path'
 import type {Topology} from '../engine/types.js'
 import {PACKAGE_ROOT} from './resources.js'
@@ -23,9 +24,12 @@ export async function scaffoldNote(file: string, topology: Topology): Promise<st
   const tmp = join(dirname(file), `.${basename(file)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`)
   try {
     await writeFile(tmp, text, {flag: 'wx'})
-    await link(tmp, file).catch((error: unknown) => {
-      throw (error as NodeJS.ErrnoException).code === 'EEXIST' ? refusal(file) : error
-    })
+    // Where hard links are not supported, an exclusive copy still never overwrites.
+    await link(tmp, file)
+      .catch((error: unknown) => (error as NodeJS.ErrnoException).code === 'EEXIST' ? Promise.reject(error) : copyFile(tmp, file, constants.COPYFILE_EXCL))
+      .catch((error: unknown) => {
+        throw (error as NodeJS.ErrnoException).code === 'EEXIST' ? refusal(file) : error
+      })
   } finally {
     await rm(tmp, {force: true})
   }

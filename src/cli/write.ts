@@ -1,20 +1,31 @@
 /**
- * Atomic file writes: a temporary file in the target's folder, then a rename, so that a
- * failed build never leaves a partial file and never replaces an earlier good one.
+ * Atomic file writes: temporary files in the targets' folders, then renames, so that a
+ * failed build never leaves a partial file and never replaces an earlier good one. A set
+ * of files is written all or nothing: every temporary file is complete before the first
+ * rename.
  */
 import {randomBytes} from 'node:crypto'
 import {mkdir, rename, rm, writeFile} from 'node:fs/promises'
 import {basename, dirname, join} from 'node:path'
 
-export async function writeAtomic(target: string, data: Uint8Array | string): Promise<void> {
-  const dir = dirname(target)
-  await mkdir(dir, {recursive: true})
-  const tmp = join(dir, `.${basename(target)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`)
+const tmpName = (target: string): string =>
+  join(dirname(target), `.${basename(target)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`)
+
+/** Write every file, or none of them (temporary files are removed on failure). */
+export async function writeAllAtomic(files: readonly (readonly [string, Uint8Array | string])[]): Promise<void> {
+  const staged: [string, string][] = []
   try {
-    await writeFile(tmp, data)
-    await rename(tmp, target)
+    for (const [target, data] of files) {
+      await mkdir(dirname(target), {recursive: true})
+      const tmp = tmpName(target)
+      staged.push([tmp, target])
+      await writeFile(tmp, data)
+    }
+    for (const [tmp, target] of staged) await rename(tmp, target)
   } catch (error) {
-    await rm(tmp, {force: true})
+    await Promise.all(staged.map(([tmp]) => rm(tmp, {force: true})))
     throw error
   }
 }
+
+export const writeAtomic = (target: string, data: Uint8Array | string): Promise<void> => writeAllAtomic([[target, data]])

@@ -17,6 +17,8 @@ export const noteMessages = {
   binaryFile: () => 'Unexpected binary content (NUL bytes), expected a Markdown note saved as UTF-8 text',
   frontMatterNotFirst: (line: number) =>
     `Unexpected \`---\` on line ${line} after blank lines, expected front matter to start on line 1: remove the blank lines before it (as written it is a rule and a heading)`,
+  frontMatterUnclosed: () =>
+    'Unexpected `---` on line 1 without a closing `---`, expected front matter between two `---` lines: add `---` after its last key (as written the title, status and reviewers are lost)',
   yamlSyntax: (where: string, detail: string) => `Unexpected YAML in ${where}: ${detail}; expected \`key: value\` lines`,
   yamlWarning: (where: string, detail: string) => `Unexpected YAML in ${where}: ${detail}`,
   notAMap: (where: string, found: string) => `Unexpected ${found} in ${where}, expected \`key: value\` lines`,
@@ -33,8 +35,10 @@ export const noteMessages = {
   firstId: (kind: BlockKind, id: string) => `First ${kind} ${q(id)} defined here`,
   chainUnsupported: () =>
     'Unexpected `chain` block, expected `stage` or `opamp`: chains are not supported yet; printed as code',
+  swallowedBlock: (inner: string, where: string) =>
+    `Unexpected \`${inner}\` fence inside the unclosed ${where}, expected ${where} closed before it (as written it swallows the rest of the note): add \`\`\` after its last key (a closing fence needs at least as many backticks as the opening one)`,
   unclosedFence: (where: string) =>
-    `Unexpected end of the document inside ${where}, expected a closing fence: add \`\`\` after the last key`,
+    `Unexpected end of the document inside ${where}, expected a closing fence: add \`\`\` after the last key (at least as many backticks as the opening fence)`,
 
   unknownKey: (key: string, where: string, kind: string, suggestion: string | null, otherKind: string | null) =>
     otherKind === null
@@ -63,6 +67,8 @@ export const noteMessages = {
     `Unexpected \`pm-unity\` of ${q(value)}, expected 0° < φ ≤ 90° (90° means no second pole): give the datasheet's unity-gain phase margin, e.g. \`60 deg\``,
   supplyTolerance: (value: string) =>
     `Unexpected supply tolerance ${q(value)}, expected under 100 %: write e.g. \`5 %\``,
+  vrefOutsideSupply: (value: string, supply: string) =>
+    `Unexpected \`vref\` of ${q(value)} outside the supply ${supply}, expected a reference between the rails (the + input cannot sit beyond them): change \`vref\` or \`supply\``,
   ccompWithoutRcomp: () =>
     'Unexpected `ccomp` without `rcomp`, expected `rcomp` beside it (ccomp bypasses the compensation resistor): add `rcomp` or remove `ccomp`',
   cfWithoutRf: () =>

@@ -52,6 +52,18 @@ function frontMatterNotFirst(source: SourceText, report: Reporter): void {
   }
 }
 
+/**
+ * `---` on line 1 followed by `key: value` lines but no closing `---`: remark reads a rule
+ * and a paragraph, and the note's title, status and reviewers would vanish without a word.
+ */
+function frontMatterUnclosed(source: SourceText, report: Reporter): void {
+  if (source.lines[0]?.trimEnd() !== '---') return
+  const next = source.lines.slice(1).find((l) => l.trim() !== '')
+  if (next !== undefined && /^[A-Za-z][\w-]*\s*:(\s|$)/.test(next)) {
+    report.error(noteMessages.frontMatterUnclosed(), {line: 1, column: 1}, 'front-matter')
+  }
+}
+
 interface Registry {
   /** Opamp blocks built so far, first definition per id. */
   before: Map<string, OpampBlockNode>
@@ -82,6 +94,19 @@ function resolver(registry: Registry, where: string, report: Reporter) {
   }
 }
 
+/**
+ * The first line of an unclosed block's value that opens another block of ours
+ * (```` ```stage b ````): the fence was left open and ran over it. 1-based line and column.
+ */
+function swallowedFence(value: string): {text: string; line: number; column: number} | null {
+  const lines = value.split(/\r\n|\r|\n/)
+  for (const [i, line] of lines.entries()) {
+    const m = /^(\s*)(?:`{3,}|~{3,})\s*((?:stage|opamp|chain)\b.*?)\s*$/.exec(line)
+    if (m) return {text: (m[2] ?? '').trim(), line: i + 1, column: (m[1] ?? '').length + 1}
+  }
+  return null
+}
+
 /** Read a note (see module header). Synchronous; diagnostics go to `file.messages`. */
 export function parseNote(file: VFile): ParsedNote {
   const report = reporterFor(file)
@@ -99,7 +124,10 @@ export function parseNote(file: VFile): ParsedNote {
   if (head?.type === 'yaml') {
     meta = readFrontMatter(head.value, valueMapper(source, head), report)
     tree.children.splice(0, 1)
-  } else frontMatterNotFirst(source, report)
+  } else {
+    frontMatterNotFirst(source, report)
+    frontMatterUnclosed(source, report)
+  }
 
   const found = collect(tree, [])
   const registry: Registry = {before: new Map(), all: new Map()}
@@ -131,7 +159,13 @@ export function parseNote(file: VFile): ParsedNote {
     } else if (info.id !== null) seen.set(id, info.idAt)
     if (lang === 'opamp' && isArchetypeName(id)) report.warn(noteMessages.archetypeShadowed(id), info.idAt, 'archetype-shadowed')
 
-    const {fields, broken} = readYaml(code.value, valueMapper(source, code), where, report)
+    const mapper = valueMapper(source, code)
+    const swallowed = info.closed ? null : swallowedFence(code.value)
+    if (swallowed !== null) {
+      report.error(noteMessages.swallowedBlock(swallowed.text, where), mapper(swallowed.line, swallowed.column), 'swallowed-block')
+    }
+    // A block that swallowed another one is not read: its keys would only repeat the cause.
+    const {fields, broken} = swallowed === null ? readYaml(code.value, mapper, where, report) : {fields: [], broken: true}
     const entries = entriesOf(fields)
     const ctx = {id, idAt: info.idAt, where, broken, report}
     const position = code.position

@@ -64,6 +64,13 @@ function checkCombinations(read: StageRead, ctx: StageContext): void {
   if (ccomp !== undefined && (read.quantities.ccomp ?? 0) > 0 && (read.resistors.rcomp?.value ?? 0) === 0) {
     ctx.report.error(noteMessages.ccompWithoutRcomp(), ccomp.keyAt, 'inconsistent-keys')
   }
+  const vref = read.given.get('vref')
+  const v = read.quantities.vref
+  if (vref !== undefined && v !== undefined && read.supply !== null && (v < read.supply[0] || v > read.supply[1])) {
+    const at = vref.value.type === 'scalar' ? vref.value.at(0) : vref.keyAt
+    const text = vref.value.type === 'scalar' ? (vref.value.text ?? '').trim() : ''
+    ctx.report.error(noteMessages.vrefOutsideSupply(text, formatRange(read.supply[0], read.supply[1], 'V')), at, 'inconsistent-keys')
+  }
   const cf = read.given.get('cf')
   if (read.topology === 'follower' && cf !== undefined && (read.quantities.cf ?? 0) > 0 && (read.resistors.rf?.value ?? 0) === 0) {
     ctx.report.error(noteMessages.cfWithoutRf(), cf.keyAt, 'inconsistent-keys')

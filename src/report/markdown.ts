@@ -64,11 +64,16 @@ export function reportToMarkdown(doc: ReportDocument, figureName: (n: number) =>
       ? paragraph('No requirements stated.')
       : table(['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'],
         doc.cover.verdicts.map((v) => [v.stage, v.requirement, v.value, v.limit, verdictText(v.verdict)])),
-    paragraph(strong('Overall: '), verdictText(doc.cover.overall)))
+    // The space stays outside the strong span: inside, it would be written as `&#x20;`.
+    paragraph(strong('Overall:'), ` ${verdictText(doc.cover.overall)}`))
+  // The closing statement refers to signatures "above": one row to sign per reviewer.
+  const signOff: RootContent[] = m.reviewers.length === 0 ? [] : [heading(2, 'Sign-off'),
+    table(['Reviewer', 'Role', 'Signature', 'Date'], m.reviewers.map((r) => [r.name, r.role, '', '']))]
   const tree: Root = {type: 'root', children: [
     ...cover,
     ...plain(doc.body.children, figureName, figures),
     ...plain(doc.appendix.children, figureName, figures),
+    ...signOff,
     ...doc.closing.children
   ]}
   const markdown = toMarkdown(tree, {extensions: [gfmToMarkdown()], bullet: '-', rule: '-', fences: true})

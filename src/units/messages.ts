@@ -21,6 +21,8 @@ export const unitsMessages = {
     `Unexpected non-finite number \`${found}\`${where}, expected a finite value${dim === undefined ? '' : ` (${DIMENSIONS[dim].label}, e.g. \`${DIMENSIONS[dim].example}\`)`}: write the number itself`,
   outOfRange: (found: string, dim: Dimension, where: string, direction: 'overflow' | 'underflow') =>
     `Unexpected \`${found}\`${where}: ${direction === 'overflow' ? 'too large to represent (it overflows to infinity)' : 'too small to represent (it underflows to 0)'}, expected ${expectedOf(dim)}: check the exponent and the prefix`,
+  beyondPhysical: (found: string, dim: Dimension, where: string) =>
+    `Unexpected \`${found}\`${where}: beyond any physical value (more than 10^18 ${DIMENSIONS[dim].si === 'dB' ? 'as a linear ratio, i.e. over 360 dB' : `${DIMENSIONS[dim].si}`}), expected ${expectedOf(dim)}: check the exponent and the prefix`,
   loneSign: (where: string) => `Unexpected lone \`±\`${where}, expected a number after it (\`±15 V\`)`,
   plusMinus: (where: string) =>
     `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply (\`supply: ±15 V\`)`,
@@ -43,6 +45,8 @@ export const unitsMessages = {
   rangeTooMany: (where: string) => `Unexpected second \`..\`${where}, expected one range \`low .. high\``,
   rangeReversed: (found: string, fixed: string, where: string) =>
     `Unexpected reversed range \`${found}\`${where}, expected low before high: \`${fixed}\``,
+  rangePrefixNotShared: (found: string, prefix: string, unit: string, fixed: string, where: string) =>
+    `Unexpected reversed range \`${found}\`${where}: the left end takes the unit \`${unit}\` but not the prefix \`${prefix}\` (a prefix stays with its number), expected low before high: write \`${fixed}\``,
   supplyEmpty: (found: string, where: string) =>
     `Unexpected empty supply \`${found}\`${where}, expected two different rails (\`±15 V\`, \`0 .. 5 V\`)`,
   supplyMagnitude: (found: string, where: string) =>

@@ -45,6 +45,9 @@ interface Resolved {
   symbol: string
 }
 
+/** Largest magnitude accepted, in SI units (linear for dB): 10^18. */
+export const MAX_MAGNITUDE = 1e18
+
 const findSymbol = (dim: Dimension, symbol: string): UnitSpec | undefined =>
   dimensionSpec(dim).units.find((u) => u.symbols.includes(symbol))
 
@@ -58,7 +61,8 @@ function lookup(rest: string, dim: Dimension): Resolved | null {
   if (parts.length === 2) {
     const [p = '', s = ''] = parts
     const unit = findSymbol(dim, s)
-    const exp = prefixes[p]
+    // Own keys only: `1 constructor Ω` must not find Object.prototype's members.
+    const exp = Object.hasOwn(prefixes, p) ? prefixes[p] : undefined
     return unit?.prefixed && exp !== undefined ? {unit, prefix: p, exp, symbol: s} : null
   }
   if (parts.length > 2) return null
@@ -134,6 +138,11 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
   }
   if (scaled === 0 && (num.value !== 0 || unit.decibel === true)) {
     return {ok: false, message: unitsMessages.outOfRange(body, dim, where, 'underflow'), offset: lead}
+  }
+  // Past 10^18 in SI (exa) no quantity of a stage is physical, and such values only
+  // overflow the engine's sums of squares later: refuse them here, where they were written.
+  if (Math.abs(scaled) > MAX_MAGNITUDE) {
+    return {ok: false, message: unitsMessages.beyondPhysical(body, dim, where), offset: lead}
   }
   const value = scaled + (unit.offset ?? 0)
   if (dim === 'temperature' && value < -273.15) {

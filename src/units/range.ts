@@ -68,6 +68,13 @@ export function parseRange(text: string, dim: Dimension, options: RangeOptions =
   if (!l.ok) return l
   if (!r.ok) return shift(r, rightStart)
   if (l.value > r.value) {
+    // `1 .. 2 pF`: the left end borrowed `F` but not the `p`, so it reads as 1 F. The prefix
+    // stays with its number (`0.1 .. 1k Hz`), which is easy to forget: say so.
+    const own = readQuantity(left, dim, options.key === undefined ? {} : {key: options.key})
+    if (own.ok && own.unit === '' && own.prefix === '' && r.prefix !== '' && !r.rkm) {
+      const fixed = `${left.trim()} ${r.prefix}${r.unit} .. ${right.trim()}`
+      return {ok: false, message: unitsMessages.rangePrefixNotShared(text.trim(), r.prefix, r.unit, fixed, where), offset: text.length - text.trimStart().length}
+    }
     const fixed = `${right.trim()} .. ${left.trim()}`
     return {ok: false, message: unitsMessages.rangeReversed(text.trim(), fixed, where), offset: text.length - text.trimStart().length}
   }

@@ -8,6 +8,7 @@
  * Message in: {id, kind: 'quantity' | 'range' | 'supply' | 'resistor' | 'note', text, dim?}.
  * Message out: {id, problems: string[]}; an exception is a problem too, with its stack.
  */
+import {writeFileSync} from 'node:fs'
 import {parentPort} from 'node:worker_threads'
 import {VFile} from 'vfile'
 import {parseQuantity, parseRange, parseResistor, parseSupply} from '../../dist/units/index.js'
@@ -28,6 +29,8 @@ function checkQuantity(text, dim, problems) {
   const r = parseQuantity(text, dim)
   if (!r.ok) return failure(r, text, problems)
   if (!finite(r.value)) problems.push(`accepted a non-finite value ${r.value}`)
+  // Temperatures carry the kelvin offset; every other value is SI as written.
+  else if (Math.abs(r.value) > 1e18 + (dim === 'temperature' ? 273.15 : 0)) problems.push(`accepted ${r.value}, beyond 10^18`)
 }
 
 function checkRange(text, dim, problems) {
@@ -80,7 +83,10 @@ function checkNote(text, problems) {
   }
 }
 
+const trace = process.env.FUZZ_TRACE
 parentPort.on('message', ({id, kind, text, dim}) => {
+  // FUZZ_TRACE=FILE: write each input before running it, to find one that hangs.
+  if (trace) writeFileSync(trace, JSON.stringify({kind, dim, text}))
   const problems = []
   try {
     if (kind === 'quantity') checkQuantity(text, dim, problems)

@@ -24,8 +24,11 @@ export const dcFigure = (ctx: ReportContext, ev: StageEvaluation): Promise<Figur
 
 export async function noiseFigures(ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode[]> {
   const density = noiseDensitySpec(ev.result.curves, {labels: NOISE_LABELS})
-  const omitted = density.omitted.length > 0
-    ? ` (not drawn, below 0.1 % of the total everywhere: ${density.omitted.map((k) => NOISE_LABELS[k as keyof typeof NOISE_LABELS] ?? k).join(', ')})`
+  // Only contributors that apply to this topology are worth naming as "not drawn".
+  const applies = new Set(ev.result.noise.contributors.map((c) => c.key))
+  const omittedKeys = density.omitted.filter((k) => applies.has(k))
+  const omitted = omittedKeys.length > 0
+    ? ` (not drawn, below 0.1 % of the total everywhere: ${omittedKeys.map((k) => NOISE_LABELS[k]).join(', ')})`
     : ''
   return [
     await figure(ctx, density.spec, `Output noise density of stage ${ev.input.id} by contributor, and total${omitted}`),

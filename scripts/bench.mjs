@@ -1,0 +1,331 @@
+/**
+ * Workflow benchmark, one run, a plain table at the end (`npm run bench` builds dist/ first):
+ *
+ *   (a) the floor — Node start plus minimal pdfkit documents with the same DejaVu fonts and
+ *       page counts as the sample reports — against a cold `build` and a cold `check` of
+ *       sample-designs/ (each a child process, median of 5);
+ *   (b) stage evaluations per second, in this process, on sample-like inputs;
+ *   (c) notes of 50, 200 and 1,000 stages built with --format json (the 50-stage one also
+ *       as PDF): time and growth per stage;
+ *   (d) a no-op rebuild of 100 cached notes;
+ *   (e) `build --watch`: from writing a note to its rebuilt PDF (median of 5 saves).
+ *
+ * Everything is written under one temporary folder, removed at the end; sample-designs/ is
+ * only read. Usage: `node scripts/bench.mjs [--quick]` (--quick: fewer repetitions, no
+ * 1,000-stage note).
+ */
+import {spawn} from 'node:child_process'
+import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync} from 'node:fs'
+import {availableParallelism, tmpdir} from 'node:os'
+import {join, resolve} from 'node:path'
+
+const ROOT = resolve(import.meta.dirname, '..')
+const CLI = join(ROOT, 'dist', 'cli', 'index.js')
+const SAMPLES = join(ROOT, 'sample-designs')
+const QUICK = process.argv.includes('--quick')
+const REPEAT = QUICK ? 3 : 5
+const TMP = mkdtempSync(join(tmpdir(), 'ampreview-bench-'))
+const started = performance.now()
+
+// ---------------------------------------------------------------------------------------
+// Helpers
+
+const median = (xs) => {
+  const s = [...xs].sort((a, b) => a - b)
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2
+}
+
+/** Run node with `args` as a child; resolves with the wall time (s) and its output. */
+function runNode(args, {cwd = ROOT, okCodes = [0, 1]} = {}) {
+  return new Promise((resolvePromise, reject) => {
+    const t0 = performance.now()
+    const child = spawn(process.execPath, args, {cwd, stdio: ['ignore', 'pipe', 'pipe']})
+    let stdout = ''
+    let stderr = ''
+    child.stdout.setEncoding('utf8').on('data', (s) => { stdout += s })
+    child.stderr.setEncoding('utf8').on('data', (s) => { stderr += s })
+    child.on('close', (code) => {
+      const seconds = (performance.now() - t0) / 1000
+      if (!okCodes.includes(code)) reject(new Error(`node ${args.join(' ')} exited ${code}\n${stderr.slice(-2000)}`))
+      else resolvePromise({seconds, stdout, stderr, code})
+    })
+  })
+}
+
+const cli = (args, opts) => runNode([CLI, ...args], opts)
+
+async function medianOf(n, fn) {
+  const times = []
+  for (let i = 0; i < n; i++) times.push((await fn(i)).seconds)
+  return median(times)
+}
+
+const progress = (s) => process.stderr.write(`bench: ${s}\n`)
+
+/** Pages of a PDF written by pdfkit (page objects are never in object streams there). */
+const pageCount = (pdf) => (pdf.toString('latin1').match(/\/Type\s*\/Page(?![s\w])/g) ?? []).length
+
+// ---------------------------------------------------------------------------------------
+// Sample-like stages, one per topology (the samples' archetypes and values).
+
+const STAGE_BLOCKS = [
+  (i) => `\`\`\`stage s${i}
+title: Bridge amplifier ${i}
+topology: noninverting
+opamp: precision-bipolar
+rf: ${(49.9 + (i % 7)).toFixed(1)}k 0.1% 25ppm/K
+rg: 499 0.1% 25ppm/K
+rs: 350
+cstray: 2 pF
+input: -10m .. 10m V
+supply: ±15 V
+temperature: 0 .. 50 °C
+band: 0.1 .. 10 Hz
+require:
+  output-error: 15 mV
+  phase-margin: 50 deg
+\`\`\``,
+  (i) => `\`\`\`stage s${i}
+title: Inverting stage ${i}
+topology: inverting
+opamp: precision-bipolar
+rf: ${10 + (i % 5)}k 0.1% 25ppm/K
+rg: 1k 0.1% 25ppm/K
+input: -0.5 .. 0.5 V
+supply: ±12 V
+band: 0.1 .. 1k Hz
+require:
+  output-error: 5 mV
+  noise-rms: 50 uV
+\`\`\``,
+  (i) => `\`\`\`stage s${i}
+title: Reference follower ${i}
+topology: follower
+opamp: precision-cmos
+rs: 10k 1%
+cstray: ${4 + (i % 5)}p
+input: 2.499 .. 2.501 V
+supply: 0 .. 5 V
+temperature: 0 .. 70 °C
+band: 0.1 .. 10 Hz
+require:
+  output-error: 150 uV
+  phase-margin: 45 deg
+\`\`\``,
+  (i) => `\`\`\`stage s${i}
+title: Photodiode receiver ${i}
+topology: transimpedance
+opamp: precision-jfet
+rf: ${1 + (i % 3)}M 0.5% 50ppm/K
+cf: 2.2p
+csource: 20p
+input: 0 .. 1u A
+supply: ±5 V
+band: 1 .. 10k Hz
+require:
+  noise-rms: 100 uV
+  phase-margin: 45 deg
+\`\`\``
+]
+
+const noteOf = (stages, title) => `---
+title: ${title}
+date: 2026-11-30
+---
+
+# Stages
+
+${Array.from({length: stages}, (_v, i) => `## Stage ${i + 1}\n\n${STAGE_BLOCKS[i % 4](i)}\n`).join('\n')}`
+
+// ---------------------------------------------------------------------------------------
+// (a) Floor, cold build, cold check
+
+const rows = []
+const row = (section, measure, value, target, ok) => rows.push({section, measure, value, target: target ?? '', verdict: ok === undefined ? '' : ok ? 'ok' : 'MISSED'})
+
+progress('cold build of the samples')
+const outSamples = join(TMP, 'samples')
+const buildTimes = []
+for (let i = 0; i < REPEAT; i++) buildTimes.push((await cli(['build', SAMPLES, '--force', '--out', outSamples, '--quiet'])).seconds)
+const buildMedian = median(buildTimes)
+const samplePdfs = readdirSync(outSamples).filter((f) => f.endsWith('.pdf')).sort()
+const pages = samplePdfs.map((f) => pageCount(readFileSync(join(outSamples, f))))
+
+progress('floor: node + pdfkit with the same fonts and pages')
+const floorScript = join(TMP, 'floor.mjs')
+writeFileSync(floorScript, `
+import {createRequire} from 'node:module'
+import {createWriteStream, readFileSync} from 'node:fs'
+import {dirname, join} from 'node:path'
+const require = createRequire(${JSON.stringify(join(ROOT, 'package.json'))})
+const PDFDocument = require('pdfkit')
+const fontDir = join(dirname(require.resolve('dejavu-fonts-ttf/package.json')), 'ttf')
+const faces = ['DejaVuSans.ttf', 'DejaVuSans-Bold.ttf', 'DejaVuSans-Oblique.ttf', 'DejaVuSans-BoldOblique.ttf', 'DejaVuSansMono.ttf', 'DejaVuSansMono-Bold.ttf']
+const fonts = faces.map((f) => readFileSync(join(fontDir, f)))
+const pages = ${JSON.stringify(pages)}
+await Promise.all(pages.map((n, d) => new Promise((done) => {
+  const doc = new PDFDocument({autoFirstPage: false, info: {CreationDate: new Date(Date.UTC(2000, 0, 1))}})
+  doc.pipe(createWriteStream(join(${JSON.stringify(TMP)}, 'floor-' + d + '.pdf'))).on('finish', done)
+  fonts.forEach((f, k) => doc.registerFont('f' + k, f))
+  for (let p = 0; p < n; p++) {
+    doc.addPage({size: 'A4'})
+    fonts.forEach((_f, k) => doc.font('f' + k).fontSize(10).text('Page ' + (p + 1) + ' — 0.1 Hz … 10 kHz, ±15 V, µV, Ω', 72, 72 + 14 * k))
+  }
+  doc.end()
+})))
+`)
+const floor = await medianOf(REPEAT, () => runNode([floorScript]))
+
+progress('cold check of the samples')
+const checkMedian = await medianOf(REPEAT, () => cli(['check', SAMPLES, '--quiet']))
+
+row('a', `floor: node + pdfkit, ${pages.join('+')} pages, 6 DejaVu faces`, `${floor.toFixed(2)} s`)
+row('a', `build sample-designs (${samplePdfs.length} notes, cold, --force)`, `${buildMedian.toFixed(2)} s = ${(buildMedian / floor).toFixed(2)}× floor`, '≤ 2× floor', buildMedian <= 2 * floor)
+row('a', 'check sample-designs (cold)', `${checkMedian.toFixed(2)} s = ${(checkMedian / floor).toFixed(2)}× floor`, '≤ 0.3 s', checkMedian <= 0.3)
+
+// ---------------------------------------------------------------------------------------
+// (b) Stage evaluations per second, in this process
+
+progress('stage evaluations')
+const {ARCHETYPES, evaluateStage} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
+const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
+const base = {
+  id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
+  rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
+  supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
+  require: {'output-error': 15e-3, 'phase-margin': 50}
+}
+const inputs = {
+  noninverting: base,
+  inverting: {...base, topology: 'inverting', rf: res(10e3), rg: res(1e3), rs: null, input: [-0.5, 0.5], supply: [-12, 12], band: [0.1, 1e3],
+    temperature: [25, 25], require: {'output-error': 5e-3, 'noise-rms': 50e-6}},
+  follower: {...base, topology: 'follower', opamp: ARCHETYPES['precision-cmos'], rf: null, rg: null, rs: res(10e3, 0.01, 0), cstray: 8e-12,
+    input: [2.499, 2.501], supply: [0, 5], temperature: [0, 70], require: {'output-error': 150e-6, 'phase-margin': 45}},
+  transimpedance: {...base, topology: 'transimpedance', opamp: ARCHETYPES['precision-jfet'], rf: res(1e6, 0.005, 50e-6), rg: null, rs: null,
+    cf: 2.2e-12, csource: 20e-12, cstray: 0, input: [0, 1e-6], supply: [-5, 5], temperature: [25, 25], band: [1, 1e4],
+    require: {'noise-rms': 100e-6, 'phase-margin': 45}}
+}
+const EVALS = QUICK ? 1000 : 3000
+let allEvals = 0
+let allSeconds = 0
+const rates = {}
+for (const [name, input] of Object.entries(inputs)) {
+  for (let i = 0; i < 200; i++) evaluateStage(input)
+  const t0 = performance.now()
+  for (let i = 0; i < EVALS; i++) evaluateStage(input)
+  const s = (performance.now() - t0) / 1000
+  rates[name] = EVALS / s
+  allEvals += EVALS
+  allSeconds += s
+}
+const overall = allEvals / allSeconds
+for (const [name, rate] of Object.entries(rates)) row('b', `evaluateStage, ${name} (${EVALS} runs)`, `${rate.toFixed(0)} /s`, '≥ 2000 /s', rate >= 2000)
+row('b', 'evaluateStage, all four topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
+
+// ---------------------------------------------------------------------------------------
+// (c) Large notes
+
+const sizes = QUICK ? [50, 200] : [50, 200, 1000]
+const bigDir = join(TMP, 'big')
+mkdirSync(bigDir)
+const perStage = {}
+for (const n of sizes) {
+  const note = join(bigDir, `stages-${n}.md`)
+  writeFileSync(note, noteOf(n, `${n} stages`))
+  progress(`${n}-stage note, --format json`)
+  const {seconds} = await cli(['build', note, '--format', 'json', '--force', '--out', join(bigDir, 'out'), '--quiet'])
+  perStage[n] = seconds / n
+  row('c', `${n}-stage note, --format json`, `${seconds.toFixed(2)} s (${(perStage[n] * 1000).toFixed(1)} ms/stage` +
+    `${n === sizes[0] ? '' : `, ×${(perStage[n] / perStage[sizes[0]]).toFixed(2)} per stage vs ${sizes[0]}`})`)
+  if (n === 50) {
+    progress('50-stage note, pdf')
+    const pdf = await cli(['build', note, '--format', 'pdf', '--force', '--out', join(bigDir, 'out'), '--quiet'])
+    const p = pageCount(readFileSync(join(bigDir, 'out', 'stages-50.pdf')))
+    row('c', `50-stage note, --format pdf (${p} pages)`, `${pdf.seconds.toFixed(2)} s (${(pdf.seconds / 50 * 1000).toFixed(1)} ms/stage)`)
+  }
+}
+
+// ---------------------------------------------------------------------------------------
+// (d) No-op rebuild of 100 cached notes
+
+progress('100 notes: first build')
+const manyDir = join(TMP, 'many')
+mkdirSync(manyDir)
+for (let i = 0; i < 100; i++) writeFileSync(join(manyDir, `note-${String(i).padStart(3, '0')}.md`), noteOf(1, `Note ${i}`).replace('s0', `n${i}`).replace(/rf: [\d.]+k/, `rf: ${(49.9 + i / 10).toFixed(2)}k`))
+const manyOut = join(manyDir, 'out')
+const first = await cli(['build', manyDir, '--format', 'json', '--out', manyOut, '--quiet'])
+progress('100 notes: no-op rebuilds')
+const noop = await medianOf(REPEAT, async () => {
+  const r = await cli(['build', manyDir, '--format', 'json', '--out', manyOut])
+  const upToDate = r.stderr.split('\n').filter((l) => / up to date: /.test(l)).length
+  if (upToDate !== 100) throw new Error(`expected 100 notes up to date, got ${upToDate}\n${r.stderr.slice(0, 2000)}`)
+  return r
+})
+row('d', '100 notes, first build (--format json)', `${first.seconds.toFixed(2)} s`)
+row('d', '100 notes, no-op rebuild (all up to date)', `${noop.toFixed(2)} s`, '≤ 1 s', noop <= 1)
+
+// ---------------------------------------------------------------------------------------
+// (e) Watch: save to rebuilt PDF
+
+progress('watch: save to PDF')
+const watchDir = join(TMP, 'watch')
+mkdirSync(watchDir)
+const watched = join(watchDir, 'load-cell-bridge.md')
+copyFileSync(join(SAMPLES, 'load-cell-bridge.md'), watched)
+for (const f of readdirSync(SAMPLES)) if (/\.(png|jpe?g)$/i.test(f)) copyFileSync(join(SAMPLES, f), join(watchDir, f))
+const original = readFileSync(watched, 'utf8')
+const saves = await new Promise((resolvePromise, reject) => {
+  const child = spawn(process.execPath, [CLI, 'build', '--watch', watched], {cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe']})
+  let out = ''
+  let err = ''
+  const waiters = []
+  const wake = () => { for (const w of waiters.splice(0)) w() }
+  child.stdout.setEncoding('utf8').on('data', (s) => { out += s; wake() })
+  child.stderr.setEncoding('utf8').on('data', (s) => { err += s; wake() })
+  child.on('close', wake)
+  const until = (test, what) => new Promise((ok, fail) => {
+    const timer = setTimeout(() => fail(new Error(`watch: gave up waiting for ${what}\n${err.slice(-2000)}`)), 60_000)
+    const check = () => {
+      if (test()) { clearTimeout(timer); ok() } else if (child.exitCode !== null) { clearTimeout(timer); fail(new Error(`watch exited\n${err}`)) } else waiters.push(check)
+    }
+    check()
+  })
+  const lines = () => out.split('\n').filter((l) => l.includes('load-cell-bridge.md: ')).length
+  ;(async () => {
+    await until(() => err.includes('watching 1 note(s)'), 'the first build')
+    const times = []
+    for (let i = 0; i < REPEAT; i++) {
+      const seen = lines()
+      const t0 = performance.now()
+      writeFileSync(watched, original.replace(/^title: (.*)$/m, `title: $1 (save ${i + 1})`))
+      await until(() => lines() > seen, `rebuild ${i + 1}`)
+      times.push((performance.now() - t0) / 1000)
+      statSync(join(watchDir, 'load-cell-bridge.pdf'))
+    }
+    child.kill('SIGINT')
+    resolvePromise(times)
+  })().catch((e) => { child.kill('SIGKILL'); reject(e) })
+})
+const saveMedian = median(saves)
+row('e', `build --watch: save → rebuilt PDF (median of ${REPEAT})`, `${saveMedian.toFixed(2)} s`, '< 1 s', saveMedian < 1)
+
+// ---------------------------------------------------------------------------------------
+// The table
+
+rmSync(TMP, {recursive: true, force: true})
+const cpu = (() => {
+  try {
+    return /^model name\s*:\s*(.*)$/m.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? 'unknown'
+  } catch {
+    return 'unknown'
+  }
+})()
+const header = {section: '', measure: 'measure', value: 'value', target: 'target', verdict: 'verdict'}
+const cols = ['section', 'measure', 'value', 'target', 'verdict']
+const widths = cols.map((c) => Math.max(...[header, ...rows].map((r) => String(r[c]).length)))
+const line = (r) => cols.map((c, i) => String(r[c]).padEnd(widths[i])).join('  ').trimEnd()
+console.log(`ampreview bench — ${availableParallelism()} cores, ${cpu}, node ${process.version}${QUICK ? ', --quick' : ''}`)
+console.log(line(header))
+console.log(widths.map((w) => '-'.repeat(w)).join('  '))
+for (const r of rows) console.log(line(r))
+console.log(`(bench took ${((performance.now() - started) / 1000).toFixed(0)} s)`)
