@@ -23,6 +23,8 @@ export const unitsMessages = {
     `Unexpected \`${found}\`${where}: ${direction === 'overflow' ? 'too large to represent (it overflows to infinity)' : 'too small to represent (it underflows to 0)'}, expected ${expectedOf(dim)}: check the exponent and the prefix`,
   beyondPhysical: (found: string, dim: Dimension, where: string) =>
     `Unexpected \`${found}\`${where}: beyond any physical value (more than 10^18 ${DIMENSIONS[dim].si === 'dB' ? 'as a linear ratio, i.e. over 360 dB' : `${DIMENSIONS[dim].si}`}), expected ${expectedOf(dim)}: check the exponent and the prefix`,
+  belowPhysical: (found: string, dim: Dimension, where: string) =>
+    `Unexpected \`${found}\`${where}: below any physical value (under 10^-24 ${DIMENSIONS[dim].si === 'dB' ? 'as a linear ratio, i.e. under −480 dB' : `${DIMENSIONS[dim].si}`} but not 0), expected ${expectedOf(dim)}: check the exponent and the prefix, or write 0`,
   loneSign: (where: string) => `Unexpected lone \`±\`${where}, expected a number after it (\`±15 V\`)`,
   plusMinus: (where: string) =>
     `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply (\`supply: ±15 V\`)`,

@@ -47,6 +47,8 @@ interface Resolved {
 
 /** Largest magnitude accepted, in SI units (linear for dB): 10^18. */
 export const MAX_MAGNITUDE = 1e18
+/** Smallest non-zero magnitude accepted, in SI units (linear for dB): 10^-24. */
+export const MIN_MAGNITUDE = 1e-24
 
 const findSymbol = (dim: Dimension, symbol: string): UnitSpec | undefined =>
   dimensionSpec(dim).units.find((u) => u.symbols.includes(symbol))
@@ -139,10 +141,14 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
   if (scaled === 0 && (num.value !== 0 || unit.decibel === true)) {
     return {ok: false, message: unitsMessages.outOfRange(body, dim, where, 'underflow'), offset: lead}
   }
-  // Past 10^18 in SI (exa) no quantity of a stage is physical, and such values only
-  // overflow the engine's sums of squares later: refuse them here, where they were written.
+  // Past 10^18 in SI (exa), or below 10^-24 (yocto) but not zero, no quantity of a stage is
+  // physical, and such values only overflow the engine later (a sum of squares going to ∞;
+  // the thermal noise current 4kT/R of a 1e-160 Ω resistor): refuse them where written.
   if (Math.abs(scaled) > MAX_MAGNITUDE) {
     return {ok: false, message: unitsMessages.beyondPhysical(body, dim, where), offset: lead}
+  }
+  if (scaled !== 0 && Math.abs(scaled) < MIN_MAGNITUDE) {
+    return {ok: false, message: unitsMessages.belowPhysical(body, dim, where), offset: lead}
   }
   const value = scaled + (unit.offset ?? 0)
   if (dim === 'temperature' && value < -273.15) {

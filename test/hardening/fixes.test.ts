@@ -49,7 +49,7 @@ describe('parseQuantity(): values that leave the double range', () => {
   it('still reads a written zero and an honest small value', () => {
     expect(parseQuantity('0', 'capacitance')).toEqual({ok: true, value: 0})
     expect(parseQuantity('0.0 pF', 'capacitance')).toEqual({ok: true, value: 0})
-    expect(parseQuantity('1e-300 f', 'capacitance')).toEqual({ok: true, value: 1e-315})
+    expect(parseQuantity('1 fF', 'capacitance')).toEqual({ok: true, value: 1e-15})
   })
 
   it('says how to write an RKM value that was given a second prefix', () => {
@@ -152,6 +152,20 @@ describe('values no stage can have', () => {
   ] as const)('refuses %j, beyond 10^18 in SI (the engine summed its square to ∞)', (text, dim) => {
     const r = parseQuantity(text, dim, {key: 'k'})
     expect(r.ok ? '' : r.message).toBe(unitsMessages.beyondPhysical(text, dim, ' for `k`'))
+  })
+
+  it.each([
+    ['1e-160', 'resistance'],
+    ['1e-300 f', 'capacitance'],
+    ['-600 dB', 'ratio-db']
+  ] as const)('refuses %j, non-zero below 10^-24 in SI (a 1e-160 Ω rf hung the noise integration)', (text, dim) => {
+    const r = parseQuantity(text, dim, {key: 'k'})
+    expect(r.ok ? '' : r.message).toBe(unitsMessages.belowPhysical(text, dim, ' for `k`'))
+  })
+
+  it('still reads 10^-24 itself and a femtoamp', () => {
+    expect(parseQuantity('1e-24', 'current')).toEqual({ok: true, value: 1e-24})
+    expect(parseQuantity('1 fA', 'current')).toEqual({ok: true, value: 1e-15})
   })
 
   it('still reads 10^18 itself and a 1 TΩ shunt', () => {

@@ -31,6 +31,7 @@ function checkQuantity(text, dim, problems) {
   if (!finite(r.value)) problems.push(`accepted a non-finite value ${r.value}`)
   // Temperatures carry the kelvin offset; every other value is SI as written.
   else if (Math.abs(r.value) > 1e18 + (dim === 'temperature' ? 273.15 : 0)) problems.push(`accepted ${r.value}, beyond 10^18`)
+  else if (dim !== 'temperature' && r.value !== 0 && Math.abs(r.value) < 1e-24) problems.push(`accepted ${r.value}, below 10^-24`)
 }
 
 function checkRange(text, dim, problems) {
