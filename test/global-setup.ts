@@ -1,10 +1,12 @@
 /**
- * Compile src/ to dist/ once before the suite, so CLI tests run the real command.
+ * Build dist/ once before the suite (`npm run build`: tsc, then the bundled command in
+ * dist/bin/), so the CLI tests run the real `ampreview` command.
  */
 import {execFileSync} from 'node:child_process'
 import {resolve} from 'node:path'
 
 export default function setup(): void {
   const root = resolve(import.meta.dirname, '..')
-  execFileSync(process.execPath, [resolve(root, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], {cwd: root, stdio: 'inherit'})
+  const npm = process.platform === 'win32' ? 'npm.cmd' : 'npm'
+  execFileSync(npm, ['run', 'build', '--silent'], {cwd: root, stdio: 'inherit'})
 }

@@ -126,6 +126,9 @@ export class BuildCache {
 
   /** Record a note's entry (or drop it with null) and write the file atomically. */
   set(note: string, entry: CacheEntry | null): Promise<void> {
+    // Dropping an entry that was never there changes nothing: write no file for it (a failed
+    // build in a folder without a cache leaves the folder as it was).
+    if (entry === null && !Object.hasOwn(this.entries, note)) return this.writing
     if (entry === null) delete this.entries[note]
     else this.entries[note] = entry
     const body = `${JSON.stringify({version: CACHE_VERSION, entries: this.entries} satisfies CacheFile, null, 1)}\n`

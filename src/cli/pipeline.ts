@@ -95,12 +95,12 @@ async function templateFor(name: string, res: Resources): Promise<Template> {
 
 /**
  * Place a message for each requirement not met at its key in the block, and one for each
- * practice note of severity `warning` at the block's fence, so that CI logs show them.
+ * practice note of severity `warning` or `caution` at the block's fence, so that CI logs show them.
  */
 function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
   for (const ev of evaluations) {
     for (const n of ev.notes) {
-      if (n.severity !== 'warning') continue
+      if (n.severity !== 'warning' && n.severity !== 'caution') continue
       file.message(`Stage \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place: ev.block.position?.start, ruleId: n.rule, source: 'ampreview'})
     }
     for (const r of ev.result.requirements) {

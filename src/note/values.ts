@@ -36,7 +36,7 @@ export function scalarOf(field: Field, expected: string, report: Reporter): Scal
 
 const expectedOf = (dim: Dimension): string => DIMENSIONS[dim].label
 
-type Parsed<T> = {ok: true; value: T} | {ok: false; message: string; offset: number}
+type Parsed<T> = {ok: true; value: T; warning?: {message: string; offset: number}} | {ok: false; message: string; offset: number}
 
 function read<T>(field: Field, expected: string, report: Reporter, parse: (text: string) => Parsed<T>): {value: T; s: ScalarText} | null {
   const s = scalarOf(field, expected, report)
@@ -46,6 +46,7 @@ function read<T>(field: Field, expected: string, report: Reporter, parse: (text:
     report.error(r.message, s.at(r.offset), 'bad-value')
     return null
   }
+  if (r.warning) report.warn(r.warning.message, s.at(r.warning.offset), 'suspicious-value')
   return {value: r.value, s}
 }
 

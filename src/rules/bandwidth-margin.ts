@@ -10,7 +10,7 @@
  * What it recommends: more gain-bandwidth, less gain in this stage, or a band that matches
  * what the stage passes.
  */
-import {formatFixed, formatQuantity} from '../units/format.js'
+import {formatFixed, formatNumber, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const MARGIN = 10
@@ -25,7 +25,7 @@ function check({input, result}: RuleContext): RuleFinding[] {
       severity: 'warning',
       text:
         `The band reaches ${formatQuantity(fH, 'Hz')}, past the closed-loop bandwidth of ${formatQuantity(bw, 'Hz')} ` +
-        `(${formatFixed(ratio, {decimals: 2})} × the band's top): the signal is attenuated inside the band and the noise figures describe ` +
+        `(${formatNumber(ratio, {digits: 2})} × the band's top): the signal is attenuated inside the band and the noise figures describe ` +
         'a response the signal does not get. Consider more gain-bandwidth, less gain in this stage, or a narrower band.'
     }]
   }

@@ -47,6 +47,8 @@ export const unitsMessages = {
   rangeTooMany: (where: string) => `Unexpected second \`..\`${where}, expected one range \`low .. high\``,
   rangeReversed: (found: string, fixed: string, where: string) =>
     `Unexpected reversed range \`${found}\`${where}, expected low before high: \`${fixed}\``,
+  rangePrefixOneEnd: (found: string, prefix: string, unit: string, meant: string, where: string) =>
+    `Range \`${found}\`${where} reads its left end in \`${unit}\`, without the prefix \`${prefix}\` (a prefix stays with its number); if both ends are in \`${prefix}${unit}\`, write \`${meant}\``,
   rangePrefixNotShared: (found: string, prefix: string, unit: string, fixed: string, where: string) =>
     `Unexpected reversed range \`${found}\`${where}: the left end takes the unit \`${unit}\` but not the prefix \`${prefix}\` (a prefix stays with its number), expected low before high: write \`${fixed}\``,
   supplyEmpty: (found: string, where: string) =>

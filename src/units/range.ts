@@ -22,7 +22,9 @@ export interface RangeOptions extends QuantityOptions {
 
 /** A range `[low, high]` in SI, or a message and 0-based offset. */
 export type RangeResult =
-  | {ok: true; value: [number, number]; /** True when written as one value. */ single: boolean}
+  | {ok: true; value: [number, number]; /** True when written as one value. */ single: boolean
+    /** Set when the range reads, but perhaps not as meant (a prefix written on one end only). */
+    warning?: {message: string; offset: number}}
   | {ok: false; message: string; offset: number}
 
 const SEPARATOR = /\s+(?:\.\.|…)\s+/g
@@ -77,6 +79,15 @@ export function parseRange(text: string, dim: Dimension, options: RangeOptions =
     }
     const fixed = `${right.trim()} .. ${left.trim()}`
     return {ok: false, message: unitsMessages.rangeReversed(text.trim(), fixed, where), offset: text.length - text.trimStart().length}
+  }
+  // `10 .. 100 kHz` reads as 10 Hz .. 100 kHz: valid, and sometimes meant, but say so. A
+  // prefix written on the number (`0.1 .. 1k Hz`) is plainly that end's own: no warning.
+  const own = readQuantity(left, dim, options.key === undefined ? {} : {key: options.key})
+  const gluedToUnit = r.prefix !== '' && right.trimEnd().endsWith(`${r.prefix}${r.unit}`)
+  if (own.ok && own.unit === '' && own.prefix === '' && l.value !== 0 && gluedToUnit && !r.rkm) {
+    const meant = `${left.trim()} ${r.prefix}${r.unit} .. ${right.trim()}`
+    return {ok: true, value: [l.value, r.value], single: false,
+      warning: {message: unitsMessages.rangePrefixOneEnd(text.trim(), r.prefix, r.unit, meant, where), offset: text.length - text.trimStart().length}}
   }
   return {ok: true, value: [l.value, r.value], single: false}
 }

@@ -8,7 +8,7 @@ import {tmpdir} from 'node:os'
 import {join, resolve} from 'node:path'
 
 export const ROOT = resolve(import.meta.dirname, '..', '..')
-export const CLI = join(ROOT, 'dist', 'cli', 'index.js')
+export const CLI = join(ROOT, 'dist', 'bin', 'index.js')
 
 export interface CliRun {
   status: number | null

@@ -8,7 +8,7 @@
  * can fail an input that hangs; `interruptAfterTimeLimit` bounds a whole property, and an
  * interrupted run counts as a failure. Nothing here measures time.
  *
- * `npm test` runs a few hundred cases per property; `FUZZ_RUNS=10000` (scripts/fuzz.mjs)
+ * `npm test` runs a few hundred cases per property; `npm run fuzz` sets `FUZZ_RUNS=10000`
  * runs the long campaign, and `FUZZ_SEED` replays one.
  */
 import {readFileSync} from 'node:fs'

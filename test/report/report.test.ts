@@ -44,8 +44,14 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   const text = (await readPdf(pdf)).pages.join('\n')
 
   it('builds without errors and with every requirement met', () => {
-    expect(outcome.diagnostics.filter((d) => d.severity !== 'info')).toEqual([])
+    expect(outcome.diagnostics.filter((d) => d.severity === 'error')).toEqual([])
     expect(outcome.exitCode).toBe(0)
+  })
+
+  it('warns only with the practice notes of the stage (no chart or render warning)', () => {
+    const warnings = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => d.message)
+    expect(warnings.length).toBeGreaterThan(0)
+    for (const w of warnings) expect(w).toMatch(/^Stage `bridge-amp`: .* \[[a-z-]+\]$/s)
   })
 
   it.each([

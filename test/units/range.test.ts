@@ -111,3 +111,17 @@ describe('parseResistor()', () => {
     expect(r.message).toMatch(message)
   })
 })
+
+describe('parseRange() prefix on one end only', () => {
+  it('warns when the right end writes its prefix on the unit (`10 .. 100 kHz` is 10 Hz .. 100 kHz)', () => {
+    const r = parseRange('10 .. 100 kHz', 'frequency')
+    expect(r.ok && r.value).toEqual([10, 100e3])
+    expect(r.ok && r.warning?.message).toContain('write `10 kHz .. 100 kHz`')
+  })
+
+  it.each(['0.1 .. 1k Hz', '-40 .. 85 °C', '10 kHz .. 100 kHz', '0 .. 10 mV'])('does not warn on `%s`', (text) => {
+    const r = parseRange(text, text.includes('°C') ? 'temperature' : text.includes('V') ? 'voltage' : 'frequency')
+    expect(r.ok).toBe(true)
+    expect(r.ok && r.warning).toBeUndefined()
+  })
+})

@@ -62,7 +62,8 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
   }
   const contributors = model.dcKeys.map((key) => ({key, output: terms[key]()}))
   const worst = contributors.reduce((s, c) => s + c.output, 0)
-  const rss = Math.sqrt(contributors.reduce((s, c) => s + c.output * c.output, 0))
+  // hypot: no overflow of the squares for very large contributions.
+  const rss = Math.hypot(...contributors.map((c) => c.output))
   const g = Math.abs(t.gain)
   return {
     budget: {

@@ -88,6 +88,9 @@ export function integrateBand(fL: number, fH: number, k: number, density: Densit
   let estimate = 0
   for (let i = 0; i < n; i += 2) estimate += (h / 3) * (pool[i * stride + k] + 4 * pool[(i + 1) * stride + k] + pool[(i + 2) * stride + k])
   const tolTotal = relTol * Math.abs(estimate)
+  // A zero or non-finite estimate (a degenerate stage) cannot steer refinement: take the
+  // base grid as it is, rather than refine every panel to the depth limit.
+  const noRefine = !(tolTotal > 0 && Number.isFinite(tolTotal))
 
   const integral = new Float64Array(k)
   const acc = new Float64Array(k)
@@ -105,7 +108,7 @@ export function integrateBand(fL: number, fH: number, k: number, density: Densit
     const pr = evalAt((um + ub) / 2)
     const left = simpson(pa, pl, pm, w)
     const right = simpson(pm, pr, pb, w)
-    if (depth >= maxDepth || tolTotal === 0 || Math.abs(left + right - whole) <= 15 * tol) {
+    if (depth >= maxDepth || noRefine || Math.abs(left + right - whole) <= 15 * tol) {
       addSimpson(pa, pl, pm, w)
       addSimpson(pm, pr, pb, w)
       return
@@ -137,7 +140,7 @@ export function integrateBand(fL: number, fH: number, k: number, density: Densit
     const pr = evalAt((um + ub) / 2)
     const left = simpson(i, pl, i + 1, um - ua)
     const right = simpson(i + 1, pr, i + 2, ub - um)
-    const converged = Math.abs(left + right - whole) <= 15 * panelTol
+    const converged = noRefine || Math.abs(left + right - whole) <= 15 * panelTol
     if (converged) addSimpson(i, pl, i + 1, um - ua)
     else refine(i, pl, i + 1, ua, um, left, panelTol / 2, 1)
     cumulative[i + 1] = cumulative[i] + flush()
@@ -152,7 +155,7 @@ export function integrateBand(fL: number, fH: number, k: number, density: Densit
     const w = nodeU(i + 4) - nodeU(i)
     const coarse = simpson(i, i + 2, i + 4, w)
     const fine = simpson(i, i + 1, i + 2, w / 2) + simpson(i + 2, i + 3, i + 4, w / 2)
-    if (tolTotal === 0 || Math.abs(fine - coarse) <= 15 * 2 * panelTol) {
+    if (noRefine || Math.abs(fine - coarse) <= 15 * 2 * panelTol) {
       for (const j of [i, i + 2]) {
         addSimpson(j, j + 1, j + 2, w / 2)
         const half = firstHalf(j)

@@ -28,7 +28,7 @@ export async function noiseFigures(ctx: ReportContext, ev: StageEvaluation): Pro
   const applies = new Set(ev.result.noise.contributors.map((c) => c.key))
   const omittedKeys = density.omitted.filter((k) => applies.has(k))
   const omitted = omittedKeys.length > 0
-    ? ` (not drawn, below 0.1 % of the total everywhere: ${omittedKeys.map((k) => NOISE_LABELS[k]).join(', ')})`
+    ? ` (not drawn, below 0.1 % of the total everywhere: ${omittedKeys.map((k) => NOISE_LABELS[k]).join('; ')})`
     : ''
   return [
     await figure(ctx, density.spec, `Output noise density of stage ${ev.input.id} by contributor, and total${omitted}`),

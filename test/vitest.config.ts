@@ -1,7 +1,9 @@
+import {resolve} from 'node:path'
 import {defineConfig} from 'vitest/config'
 
 export default defineConfig({
   test: {
+    root: resolve(import.meta.dirname, '..'),
     include: ['test/**/*.test.ts'],
     globalSetup: ['test/global-setup.ts'],
     testTimeout: 60_000,

@@ -11,7 +11,7 @@
  *   (e) `build --watch`: from writing a note to its rebuilt PDF (median of 5 saves).
  *
  * Everything is written under one temporary folder, removed at the end; sample-designs/ is
- * only read. Usage: `node scripts/bench.mjs [--quick]` (--quick: fewer repetitions, no
+ * only read. Usage: `node test/bench/bench.mjs [--quick]` (--quick: fewer repetitions, no
  * 1,000-stage note).
  */
 import {spawn} from 'node:child_process'
@@ -19,8 +19,8 @@ import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync,
 import {availableParallelism, tmpdir} from 'node:os'
 import {join, resolve} from 'node:path'
 
-const ROOT = resolve(import.meta.dirname, '..')
-const CLI = join(ROOT, 'dist', 'cli', 'index.js')
+const ROOT = resolve(import.meta.dirname, '..', '..')
+const CLI = join(ROOT, 'dist', 'bin', 'index.js')
 const SAMPLES = join(ROOT, 'sample-designs')
 const QUICK = process.argv.includes('--quick')
 const REPEAT = QUICK ? 3 : 5
