@@ -95,7 +95,9 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
       } else if (b.interrupted()) {
         item = {upToDate: false, stages: 0, seconds: 0, outcome: failedOutcome(note, 'not processed: the batch was interrupted')}
       } else {
-        const outcome = await runner.run(note, b.run)
+        // An internal failure of one note (a bug) must not take the rest of the batch down.
+        const outcome = await runner.run(note, b.run).catch((error: unknown) =>
+          failedOutcome(note, `internal error: ${error instanceof Error ? error.message : String(error)}`))
         item = {upToDate: false, stages: outcome.stages.length, seconds: (performance.now() - t0) / 1000, outcome}
         if (cache !== null && key !== null) {
           await cache.set(resolve(note), outcome.exitCode === 2 ? null : {

@@ -15,6 +15,8 @@ export const blockName = (kind: BlockKind, id: string | null): string => (id ===
 
 export const noteMessages = {
   binaryFile: () => 'Unexpected binary content (NUL bytes), expected a Markdown note saved as UTF-8 text',
+  tooDeep: (max: number) =>
+    `Unexpected nesting of lists or block quotes more than ${max} levels deep, expected at most ${max}: flatten the structure`,
   frontMatterNotFirst: (line: number) =>
     `Unexpected \`---\` on line ${line} after blank lines, expected front matter to start on line 1: remove the blank lines before it (as written it is a rule and a heading)`,
   frontMatterUnclosed: () =>

@@ -45,6 +45,23 @@ function collect(node: Parent, out: Found[]): Found[] {
   return out
 }
 
+/** Deepest nesting the report renders; real notes stay under ten. */
+export const MAX_NESTING = 64
+
+/**
+ * The first node nested deeper than MAX_NESTING, found without recursion (the walkers of
+ * later phases recurse, and a hostile note could nest thousands of block quotes).
+ */
+function tooDeep(tree: Root): {depth: number; at: Point | undefined} | null {
+  const stack: {node: Parent; depth: number}[] = [{node: tree, depth: 0}]
+  while (stack.length > 0) {
+    const {node, depth} = stack.pop()!
+    if (depth > MAX_NESTING) return {depth, at: node.position?.start}
+    for (const child of node.children) if ('children' in child) stack.push({node: child, depth: depth + 1})
+  }
+  return null
+}
+
 function frontMatterNotFirst(source: SourceText, report: Reporter): void {
   const first = source.lines.findIndex((l) => l.trim() !== '')
   if (first > 0 && source.lines[first]?.trim() === '---') {
@@ -118,6 +135,11 @@ export function parseNote(file: VFile): ParsedNote {
   const source = sourceOf(text)
   const processor = unified().use(remarkParse).use(remarkFrontmatter, ['yaml']).use(remarkGfm)
   const tree: Root = processor.parse(text)
+  const deep = tooDeep(tree)
+  if (deep !== null) {
+    report.error(noteMessages.tooDeep(MAX_NESTING), deep.at ?? {line: 1, column: 1}, 'too-deep')
+    return {meta: emptyMeta(), tree: {type: 'root', children: []}, stages: [], opamps: []}
+  }
 
   let meta = emptyMeta()
   const head = tree.children[0]

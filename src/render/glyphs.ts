@@ -22,8 +22,14 @@ export function createGlyphChecker(fonts: LoadedFonts, warnings: Warnings): Glyp
       let changed = false
       for (const ch of text) {
         const cp = ch.codePointAt(0) ?? 0
-        if (cp < 0x20 || ch === '\u00ad') {
+        if (ch === '\n' || ch === '\t' || ch === '\u00ad') {
           out += ch
+          continue
+        }
+        if (cp < 0x20 || (cp >= 0x7f && cp < 0xa0)) {
+          // A control character has no glyph and can move pdfkit's line breaking: drop it.
+          if (report) warnings.add(`control character U+${cp.toString(16).toUpperCase().padStart(4, '0')} removed`)
+          changed = true
           continue
         }
         const key = `${font}:${cp}`
