@@ -24,6 +24,9 @@ import {readImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
 import {writeAllAtomic} from './write.js'
 
+/** Largest note read, bytes (time and memory stay bounded: README, Limits). */
+export const MAX_NOTE_BYTES = 20 * 2 ** 20
+
 export interface Resources {
   /** The fonts, loaded once on first use (only builds need them). */
   fonts: () => Promise<FontSet>
@@ -125,6 +128,9 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
     return fail(path, 'File not found or not readable')
   }
   const sha = createHash('sha256').update(bytes).digest('hex')
+  if (bytes.length > MAX_NOTE_BYTES) {
+    return fail(path, `The note is ${(bytes.length / 2 ** 20).toFixed(2)} MiB, larger than the ${MAX_NOTE_BYTES / 2 ** 20} MiB a note may be: split it into several notes`, sha)
+  }
   if (bytes.includes(0)) return fail(path, 'This is a binary file, not a Markdown note (it contains NUL bytes)', sha)
   const text = bytes.toString('utf8')
   if (text.includes('\uFFFD') && !bytes.includes(Buffer.from('\uFFFD'))) {

@@ -13,7 +13,7 @@ export const NOTE_RULES = [
   'binary-file', 'front-matter-position', 'front-matter', 'yaml-syntax', 'duplicate-key', 'unknown-key',
   'key-not-for-topology', 'missing-key', 'bad-value', 'missing-id', 'bad-id', 'duplicate-id',
   'chain-unsupported', 'unclosed-fence', 'swallowed-block', 'unknown-opamp', 'opamp-defined-later', 'opamp-has-errors',
-  'archetype-shadowed', 'suspicious-milliohm', 'suspicious-value', 'inconsistent-keys', 'too-deep'
+  'archetype-shadowed', 'suspicious-milliohm', 'suspicious-value', 'inconsistent-keys', 'too-deep', 'too-many-blocks'
 ] as const
 export type NoteRule = (typeof NOTE_RULES)[number]
 

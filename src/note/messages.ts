@@ -15,6 +15,8 @@ export const blockName = (kind: BlockKind, id: string | null): string => (id ===
 
 export const noteMessages = {
   binaryFile: () => 'Unexpected binary content (NUL bytes), expected a Markdown note saved as UTF-8 text',
+  tooManyBlocks: (found: number, max: number) =>
+    `Unexpected ${found} stage and opamp blocks in one note, expected at most ${max}: split the note into several`,
   tooDeep: (max: number) =>
     `Unexpected nesting of lists or block quotes more than ${max} levels deep, expected at most ${max}: flatten the structure`,
   frontMatterNotFirst: (line: number) =>

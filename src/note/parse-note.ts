@@ -45,6 +45,9 @@ function collect(node: Parent, out: Found[]): Found[] {
   return out
 }
 
+/** Most stage/opamp blocks one note may hold (time and memory stay bounded: README, Limits). */
+export const MAX_BLOCKS = 10_000
+
 /** Deepest nesting the report renders; real notes stay under ten. */
 export const MAX_NESTING = 64
 
@@ -152,6 +155,11 @@ export function parseNote(file: VFile): ParsedNote {
   }
 
   const found = collect(tree, [])
+  if (found.length > MAX_BLOCKS) {
+    const extra = found[MAX_BLOCKS]!.code.position?.start ?? {line: 1, column: 1}
+    report.error(noteMessages.tooManyBlocks(found.length, MAX_BLOCKS), extra, 'too-many-blocks')
+    return {meta, tree: {type: 'root', children: []}, stages: [], opamps: []}
+  }
   const registry: Registry = {before: new Map(), all: new Map()}
   for (const f of found) {
     const id = f.lang === 'opamp' ? f.code.meta?.trim() : undefined
