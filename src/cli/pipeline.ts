@@ -23,6 +23,9 @@ import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
 import {readImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
 import {writeAllAtomic} from './write.js'
+import type {Format} from './formats.js'
+
+export {FORMATS, type Format} from './formats.js'
 
 /** Largest note read, bytes (time and memory stay bounded: README, Limits). */
 export const MAX_NOTE_BYTES = 20 * 2 ** 20
@@ -34,9 +37,6 @@ export interface Resources {
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
 }
-
-import type {Format} from './formats.js'
-export {FORMATS, type Format} from './formats.js'
 
 export interface RunOptions {
   /** Formats to write (build); empty = only evaluate (check). */
@@ -67,7 +67,6 @@ export interface NoteOutcome {
 export const failedOutcome = (file: string, message: string, sha = ''): NoteOutcome => ({
   file, sourceSha256: sha, diagnostics: [{severity: 'error', message, line: 1, column: 1}], stages: [], met: 0, notMet: 0, exitCode: 2, outputs: []
 })
-const fail = failedOutcome
 
 /** A file beside a note's outputs: `<outDir or the note's folder>/<name>.<ext>`. */
 export const outputPath = (notePath: string, outDir: string | null, ext: string): string =>
@@ -122,21 +121,21 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
   let bytes: Buffer
   try {
     const s = await stat(path)
-    if (!s.isFile()) return fail(path, `Expected a Markdown file, found a ${s.isDirectory() ? 'folder' : 'special file'}`)
+    if (!s.isFile()) return failedOutcome(path, `Expected a Markdown file, found a ${s.isDirectory() ? 'folder' : 'special file'}`)
     bytes = await readFile(path)
   } catch {
-    return fail(path, 'File not found or not readable')
+    return failedOutcome(path, 'File not found or not readable')
   }
   const sha = createHash('sha256').update(bytes).digest('hex')
   if (bytes.length > MAX_NOTE_BYTES) {
-    return fail(path, `The note is ${(bytes.length / 2 ** 20).toFixed(2)} MiB, larger than the ${MAX_NOTE_BYTES / 2 ** 20} MiB a note may be: split it into several notes`, sha)
+    return failedOutcome(path, `The note is ${(bytes.length / 2 ** 20).toFixed(2)} MiB, larger than the ${MAX_NOTE_BYTES / 2 ** 20} MiB a note may be: split it into several notes`, sha)
   }
-  if (bytes.includes(0)) return fail(path, 'This is a binary file, not a Markdown note (it contains NUL bytes)', sha)
+  if (bytes.includes(0)) return failedOutcome(path, 'This is a binary file, not a Markdown note (it contains NUL bytes)', sha)
   const text = bytes.toString('utf8')
   if (text.includes('\uFFFD') && !bytes.includes(Buffer.from('\uFFFD'))) {
-    return fail(path, 'The note is not valid UTF-8 text; save it as UTF-8', sha)
+    return failedOutcome(path, 'The note is not valid UTF-8 text; save it as UTF-8', sha)
   }
-  if (text.replace(/^\uFEFF/, '').trim() === '') return fail(path, 'The note is empty: expected Markdown prose and stage blocks', sha)
+  if (text.replace(/^\uFEFF/, '').trim() === '') return failedOutcome(path, 'The note is empty: expected Markdown prose and stage blocks', sha)
   const file = new VFile({path, value: text})
 
   // 2. Parse: front matter, blocks, the stage language.
