@@ -65,20 +65,66 @@ const parseMarkdown = (md: string): Root => unified().use(remarkParse).use(remar
 /** Template names are folder names under templates/: letters, digits and dashes only. */
 export const isTemplateName = (name: string): boolean => /^[a-z0-9][a-z0-9-]*$/.test(name)
 
-export async function loadTemplate(name: string): Promise<Template> {
+type Json = null | boolean | number | string | Json[] | {[k: string]: Json}
+const isMap = (v: Json | undefined): v is {[k: string]: Json} => typeof v === 'object' && v !== null && !Array.isArray(v)
+
+/** `over` laid onto `base`, maps merged key by key, anything else replaced. */
+function overlay(base: Json, over: Json): Json {
+  if (!isMap(base) || !isMap(over)) return over
+  const out: {[k: string]: Json} = {...base}
+  for (const [k, v] of Object.entries(over)) out[k] = k in base ? overlay(base[k]!, v) : v
+  return out
+}
+
+/**
+ * A template is a folder of templates/ holding `theme.json`, `method.md`, `signoff.md` and
+ * `closing.md` — or a `template.json` `{"extends": "standard", "theme": {…}}` that takes
+ * another template and changes some of its theme values (e.g. `templates/letter/`), any of
+ * the three text files it holds replacing the base's.
+ */
+export async function loadTemplate(name: string, seen: readonly string[] = []): Promise<Template> {
   if (!isTemplateName(name)) throw new Error(`Unexpected template name \`${name}\`, expected a folder name of templates/ such as \`standard\``)
+  if (seen.includes(name)) throw new Error(`Template \`${name}\` extends itself (${[...seen, name].join(' → ')})`)
   const dir = join(PACKAGE_ROOT, 'templates', name)
-  const read = async (f: string): Promise<string> => {
+  const tryRead = (f: string): Promise<string | null> => readFile(join(dir, f), 'utf8').catch(() => null)
+  const parseJson = (f: string, text: string): Json => {
     try {
-      return await readFile(join(dir, f), 'utf8')
-    } catch {
-      throw new Error(`Template \`${name}\` is missing ${f} (looked in ${dir})`)
+      return JSON.parse(text) as Json
+    } catch (error) {
+      throw new Error(`Template \`${name}\`: ${f} is not valid JSON (${error instanceof Error ? error.message : String(error)})`)
     }
   }
-  const theme = parseTheme(JSON.parse(await read('theme.json')))
-  const method = parseMarkdown(await read('method.md'))
-  const closing = parseMarkdown(`${await read('signoff.md')}\n\n${await read('closing.md')}`)
-  return {name, theme, method, closing}
+  const derived = await tryRead('template.json')
+  let base: {themeJson: Json; texts: Record<'method' | 'signoff' | 'closing', string>} | null = null
+  let themeJson: Json
+  if (derived !== null) {
+    const spec = parseJson('template.json', derived)
+    const parent = isMap(spec) && typeof spec['extends'] === 'string' ? spec['extends'] : null
+    if (parent === null) throw new Error(`Template \`${name}\`: template.json needs "extends": the name of another template`)
+    base = await loadTemplateSources(parent, [...seen, name])
+    themeJson = overlay(base.themeJson, isMap(spec) && spec['theme'] !== undefined ? spec['theme'] : {})
+  } else {
+    const text = await tryRead('theme.json')
+    if (text === null) throw new Error(`Template \`${name}\` is missing theme.json (looked in ${dir})`)
+    themeJson = parseJson('theme.json', text)
+  }
+  const texts = {} as Record<'method' | 'signoff' | 'closing', string>
+  for (const k of ['method', 'signoff', 'closing'] as const) {
+    const own = await tryRead(`${k}.md`)
+    const text = own ?? base?.texts[k] ?? null
+    if (text === null) throw new Error(`Template \`${name}\` is missing ${k}.md (looked in ${dir})`)
+    texts[k] = text
+  }
+  templateSources.set(name, {themeJson, texts})
+  return {name, theme: parseTheme(themeJson), method: parseMarkdown(texts.method), closing: parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)}
+}
+
+/** Raw sources of templates already read, for templates that extend them. */
+const templateSources = new Map<string, {themeJson: Json; texts: Record<'method' | 'signoff' | 'closing', string>}>()
+
+async function loadTemplateSources(name: string, seen: readonly string[]): Promise<{themeJson: Json; texts: Record<'method' | 'signoff' | 'closing', string>}> {
+  if (!templateSources.has(name)) await loadTemplate(name, seen)
+  return templateSources.get(name)!
 }
 
 /** Hash of every file under templates/ (names and bytes, sorted): part of each build's cache key. */
