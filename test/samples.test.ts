@@ -9,6 +9,8 @@ import {join} from 'node:path'
 import {ROOT, runCli} from './cli/helpers.js'
 
 const SAMPLES = readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).sort()
+/** One starting note per topology (written by `ampreview new`), so all four are covered. */
+const TOPOLOGY_NOTES = readdirSync(join(ROOT, 'test', 'fixtures', 'topologies')).filter((f) => f.endsWith('.md')).sort()
 
 type Json = Record<string, unknown>
 const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(v)
@@ -45,8 +47,20 @@ describe('sample designs', () => {
     expect(SAMPLES.length).toBeGreaterThanOrEqual(3)
   })
 
-  it.each(SAMPLES)('%s evaluates with no error and a §6-shaped --json result', (name) => {
-    const r = runCli(['check', '--json', join('sample-designs', name)])
+  it('with the topology notes, cover all four topologies', () => {
+    const topologies = new Set<string>()
+    for (const path of [...SAMPLES.map((n) => join('sample-designs', n)), ...TOPOLOGY_NOTES.map((n) => join('test', 'fixtures', 'topologies', n))]) {
+      const out = JSON.parse(runCli(['check', '--json', path]).stdout) as {files: {stages: {topology: string}[]}[]}
+      for (const s of out.files[0]!.stages) topologies.add(s.topology)
+    }
+    expect([...topologies].sort()).toEqual(['follower', 'inverting', 'noninverting', 'transimpedance'])
+  })
+
+  it.each([
+    ...SAMPLES.map((n) => join('sample-designs', n)),
+    ...TOPOLOGY_NOTES.map((n) => join('test', 'fixtures', 'topologies', n))
+  ])('%s evaluates with no error and a §6-shaped --json result', (path) => {
+    const r = runCli(['check', '--json', path])
     expect([0, 1]).toContain(r.status)
     expect(r.stderr).not.toMatch(/: error: /)
     const out = JSON.parse(r.stdout) as {files: Json[]}
