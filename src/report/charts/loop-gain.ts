@@ -100,8 +100,10 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
             layer: [
               {mark: {type: 'point' as const, shape: 'circle' as const, filled: true, size: 30, color: INK.note}},
               {
-                mark: {...NOTE_TEXT, align: 'left' as const, baseline: 'bottom' as const, dx: 5, dy: -4},
-                encoding: {text: {field: 'text', type: 'nominal' as const}}
+                // At the top of the panel beside the fc rule: right of the crossover the phase
+                // has fallen, so the curve stays clear of the label.
+                mark: {...NOTE_TEXT, align: 'left' as const, baseline: 'top' as const, dx: 4},
+                encoding: {y: {value: 6}, text: {field: 'text', type: 'nominal' as const}}
               }
             ],
             encoding: {x: {field: 'f', type: 'quantitative' as const}, y: {field: 'deg', type: 'quantitative' as const}}
