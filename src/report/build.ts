@@ -10,6 +10,8 @@ import type {ReportContext} from './context.js'
 import type {ChartFonts} from './vega.js'
 import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
+import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
+import type {RuleNote} from '../rules/types.js'
 import {combine, coverRows, verdictOf} from './verdicts.js'
 import type {ReportDocument} from './types.js'
 
@@ -34,16 +36,16 @@ type Parent = {children: RootContent[]}
 const hasChildren = (n: RootContent): n is RootContent & Parent =>
   'children' in n && Array.isArray((n as Partial<Parent>).children)
 
-async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>): Promise<RootContent[]> {
+async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[]): Promise<RootContent[]> {
   const out: RootContent[] = []
   for (const node of nodes) {
     if (node.type === 'stageBlock') {
       const ev = byBlock.get(node)
-      out.push(...(ev ? await stageSection(ctx, ev) : failedStageSection(node)))
+      out.push(...(ev ? await stageSection(ctx, ev, shared) : failedStageSection(node)))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
     } else if (hasChildren(node)) {
-      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock)} as RootContent)
+      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock, shared)} as RootContent)
     } else {
       out.push(node)
     }
@@ -54,7 +56,12 @@ async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: 
 export async function buildReport(input: ReportInput): Promise<ReportOutput> {
   const ctx: ReportContext = {fonts: input.fonts, figure: 0, table: 0, warnings: []}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
-  const body: Root = {type: 'root', children: await replaceBlocks(input.parsed.tree.children, ctx, byBlock)}
+  // Notes that several stages share word for word are printed once, before the prose.
+  const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
+  const body: Root = {type: 'root', children: [
+    ...sharedNoteBlocks(shared),
+    ...(await replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared))
+  ]}
   const verdicts = coverRows(input.evaluations)
   const overall = combine(input.evaluations.flatMap((ev) => ev.result.requirements.map(verdictOf)))
   const document: ReportDocument = {

@@ -1,5 +1,9 @@
 import {describe, expect, it} from 'vitest'
 import {createHash} from 'node:crypto'
+import {mkdtempSync, writeFileSync} from 'node:fs'
+import {tmpdir} from 'node:os'
+import {join} from 'node:path'
+import {toString} from 'mdast-util-to-string'
 import type {RootContent} from 'mdast'
 import {readPdf} from '../render/helpers.js'
 import {pdfOf, reportOf, sample} from './helpers.js'
@@ -88,5 +92,31 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
 
   it('ends the sign-off with the calculated-estimates statement', () => {
     expect(text).toMatch(/calculated estimates/)
+  })
+})
+
+describe('notes shared by several stages', () => {
+  const stage = (id: string): string => `\`\`\`stage ${id}
+topology: noninverting
+opamp: precision-bipolar
+rf: 9.09k 0.1%
+rg: 1k 0.1%
+input: -0.1 .. 0.1 V
+supply: ±12 V
+band: 0.1 .. 100 Hz
+\`\`\`
+`
+  const NOTE = `---\ntitle: Two stages\ncontext: [mains-connected]\n---\n\n# Two stages\n\n${stage('first')}\n${stage('second')}`
+
+  it('are printed once, before the prose, and each stage points to them', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'ampreview-shared-'))
+    writeFileSync(join(dir, 'n.md'), NOTE)
+    const {document} = await reportOf(join(dir, 'n.md'))
+    const texts = document.body.children.map((n) => toString(n))
+    const safety = texts.filter((t) => t.includes('hazardous-voltage') && t.includes('Mains-connected'))
+    expect(safety).toHaveLength(1)
+    expect(texts[0]).toBe('Notes that apply to every stage')
+    const pointers = texts.filter((t) => t.startsWith('Also applies to this stage: SAFETY hazardous-voltage'))
+    expect(pointers).toHaveLength(2)
   })
 })

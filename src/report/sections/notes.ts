@@ -1,6 +1,8 @@
 /**
  * The stage's practice and safety notes as callouts, each with its rule id and severity
- * word, and the rule's table where it has one.
+ * word, and the rule's table where it has one. A note that several stages share word for
+ * word (the hazard-context cautions of the front matter) is printed once, at the top of the
+ * body, and each stage points to it.
  */
 import type {BlockContent} from 'mdast'
 import type {RuleNote, Severity} from '../../rules/types.js'
@@ -8,11 +10,47 @@ import {callout, code, paragraph, table} from '../mdast.js'
 
 const LABEL: Record<Severity, string> = {info: 'INFO', caution: 'CAUTION', warning: 'WARNING', safety: 'SAFETY'}
 
-export function noteBlocks(notes: RuleNote[]): BlockContent[] {
+const noteKey = (n: RuleNote): string => `${n.rule}\u0000${n.text}`
+
+const noteCallout = (n: RuleNote): BlockContent => {
+  const children: BlockContent[] = [paragraph(n.text, ' ', code(n.rule))]
+  if (n.table) children.push(table(n.table.header, n.table.rows, n.table.header.map((_, i) => (i === 0 ? 'left' : 'right'))))
+  return callout(n.severity, LABEL[n.severity], children)
+}
+
+/** Notes that two or more stages share word for word, in first-seen order. */
+export function sharedNotes(perStage: readonly RuleNote[][]): RuleNote[] {
+  const count = new Map<string, {note: RuleNote; stages: number}>()
+  for (const notes of perStage) {
+    for (const key of new Set(notes.map(noteKey))) {
+      const seen = count.get(key)
+      if (seen) seen.stages++
+      else count.set(key, {note: notes.find((n) => noteKey(n) === key)!, stages: 1})
+    }
+  }
+  return [...count.values()].filter((c) => c.stages > 1).map((c) => c.note)
+}
+
+/** The document-level section holding the shared notes (empty when there are none). */
+export function sharedNoteBlocks(shared: readonly RuleNote[]): BlockContent[] {
+  if (shared.length === 0) return []
+  return [
+    {type: 'heading', depth: 1, children: [{type: 'text', value: 'Notes that apply to every stage'}]},
+    paragraph('These notes were triggered by the document (its hazard context) or by every stage alike; each stage section refers to them.'),
+    ...shared.map(noteCallout)
+  ]
+}
+
+/** A stage's notes; those in `shared` become one line pointing to the document-level section. */
+export function noteBlocks(notes: RuleNote[], shared: readonly RuleNote[] = []): BlockContent[] {
   if (notes.length === 0) return [paragraph('No practice or safety notes were triggered by this stage.')]
-  return notes.map((n) => {
-    const children: BlockContent[] = [paragraph(n.text, ' ', code(n.rule))]
-    if (n.table) children.push(table(n.table.header, n.table.rows, n.table.header.map((_, i) => (i === 0 ? 'left' : 'right'))))
-    return callout(n.severity, LABEL[n.severity], children)
-  })
+  const sharedKeys = new Set(shared.map(noteKey))
+  const own = notes.filter((n) => !sharedKeys.has(noteKey(n)))
+  const pointed = notes.filter((n) => sharedKeys.has(noteKey(n)))
+  const out = own.map(noteCallout)
+  if (pointed.length > 0) {
+    const items = pointed.flatMap((n, i) => [...(i > 0 ? [', '] : []), `${LABEL[n.severity]} `, code(n.rule)])
+    out.push(paragraph('Also applies to this stage: ', ...items, ' — see “Notes that apply to every stage”.'))
+  }
+  return out
 }

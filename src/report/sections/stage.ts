@@ -15,6 +15,7 @@ import {dcFigure, loopFigure, noiseFigures} from './figures.js'
 import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
+import type {RuleNote} from '../../rules/types.js'
 
 function swingBlocks(ev: StageEvaluation): BlockContent[] {
   const s = ev.result.swing
@@ -39,7 +40,7 @@ export function failedStageSection(block: StageBlockNode): BlockContent[] {
   return [heading(2, 'Stage ', code(block.id)), paragraph('This block has errors and was not evaluated.')]
 }
 
-export async function stageSection(ctx: ReportContext, ev: StageEvaluation): Promise<BlockContent[]> {
+export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: readonly RuleNote[] = []): Promise<BlockContent[]> {
   const {input, result} = ev
   const op = input.opamp
   const out: BlockContent[] = [
@@ -68,7 +69,7 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation): Pro
     await loopFigure(ctx, ev))
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
-  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes))
+  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared))
   return out
 }
 
