@@ -2,28 +2,10 @@ import {describe, expect, it} from 'vitest'
 import {existsSync, readFileSync, statSync, writeFileSync} from 'node:fs'
 import {join} from 'node:path'
 import {ROOT, runCli, tempNotes} from './helpers.js'
+import {goodNote, unmetNote} from './workflow-helpers.js'
 
-const GOOD = `---
-title: Test note
-date: 2026-11-30
----
-
-# A stage
-
-\`\`\`stage amp
-topology: noninverting
-opamp: precision-bipolar
-rf: 9.09k 0.1%
-rg: 1k 0.1%
-input: -0.1 .. 0.1 V
-supply: ±12 V
-band: 0.1 .. 100 Hz
-require:
-  phase-margin: 45 deg
-\`\`\`
-`
-
-const UNMET = GOOD.replace('phase-margin: 45 deg', 'noise-rms: 1 nV')
+const GOOD = goodNote()
+const UNMET = unmetNote()
 
 /** Three different mistakes: an unknown key (8:1), a current unit on the supply (10:20), a reversed range (12:14). */
 const THREE_MISTAKES = `# Three mistakes

@@ -9,22 +9,9 @@ import {mkdirSync, readdirSync, readFileSync, writeFileSync} from 'node:fs'
 import {join} from 'node:path'
 import {writeAllAtomic} from '../../src/cli/write.js'
 import {runCli, tempNotes} from './helpers.js'
+import {goodNote} from './workflow-helpers.js'
 
-const NOTE = `---
-title: Faults
-date: 2026-11-30
----
-
-\`\`\`stage amp
-topology: noninverting
-opamp: precision-bipolar
-rf: 9.09k 0.1%
-rg: 1k 0.1%
-input: -0.1 .. 0.1 V
-supply: ±12 V
-band: 0.1 .. 100 Hz
-\`\`\`
-`
+const NOTE = goodNote({title: 'Faults'})
 
 describe('build faults', () => {
   it('reports an output folder that cannot be created, exits 2, and writes nothing', () => {
@@ -47,7 +34,7 @@ describe('build faults', () => {
   it('keeps the cache file valid JSON after a failed build next to a good one', () => {
     const dir = tempNotes({'n.md': NOTE})
     expect(runCli(['build', join(dir, 'n.md')]).status).toBe(0)
-    writeFileSync(join(dir, 'n.md'), NOTE.replace('rf: 9.09k 0.1%', 'rf: 9.09 mV'))
+    writeFileSync(join(dir, 'n.md'), goodNote({title: 'Faults', rf: '9.09 mV'}))
     expect(runCli(['build', join(dir, 'n.md')]).status).toBe(2)
     const cache = JSON.parse(readFileSync(join(dir, '.ampreview-cache.json'), 'utf8')) as {entries: Record<string, unknown>}
     expect(Object.keys(cache.entries)).toEqual([])

@@ -9,7 +9,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {StageCurves} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, FONT_SIZE, INK, TOTAL_STYLE} from './theme.js'
-import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logTicks, plottablePoints, siTextExpr} from './scales.js'
+import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logFrequencyX, plottablePoints, siTextExpr} from './scales.js'
 
 /**
  * Spec of the cumulative-rms chart.
@@ -28,12 +28,7 @@ export function cumulativeRmsSpec(curves: StageCurves): TopLevelSpec {
     width: CHART_WIDTH,
     height: CHART_HEIGHT,
     encoding: {
-      x: {
-        field: 'f',
-        type: 'quantitative',
-        scale: {type: 'log', domain: xDomain, nice: false},
-        axis: {title: 'Frequency (Hz)', format: SI_AXIS_FORMAT, values: logTicks(xDomain), grid: true}
-      },
+      x: logFrequencyX(xDomain),
       y: {
         field: 'rms',
         type: 'quantitative',

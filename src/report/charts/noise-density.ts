@@ -10,7 +10,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import {NOISE_KEYS, type NoiseKey, type StageCurves} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, CONTRIBUTOR_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} from './theme.js'
-import {SI_AXIS_FORMAT, decadeDomain, extent, logTicks, plottablePoints, type Point} from './scales.js'
+import {SI_AXIS_FORMAT, decadeDomain, extent, logFrequencyX, logTicks, plottablePoints, type Point} from './scales.js'
 
 export interface NoiseDensityOptions {
   /** Readable name of each contributor key (e.g. `r:rf` → "Rf thermal"); the key itself when absent. */
@@ -98,12 +98,7 @@ export function noiseDensitySpec(curves: StageCurves, opts: NoiseDensityOptions)
       height: CHART_HEIGHT,
       data: {values: series.flatMap((s) => s.points.map((p) => ({series: s.label, total: s.total, f: p.x, v: p.y})))},
       encoding: {
-        x: {
-          field: 'f',
-          type: 'quantitative',
-          scale: {type: 'log', domain: xDomain, nice: false},
-          axis: {title: 'Frequency (Hz)', format: SI_AXIS_FORMAT, values: logTicks(xDomain), grid: true}
-        },
+        x: logFrequencyX(xDomain),
         y: {
           field: 'v',
           type: 'quantitative',

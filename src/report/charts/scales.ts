@@ -100,3 +100,13 @@ export function siTextExpr(expr: string, unit: string): string {
   const last = `slice(${text}, -1)`
   return `(indexof('${SI_PREFIXES}', ${last}) >= 0 ? slice(${text}, 0, -1) + ' ' + ${last} : ${text} + ' ') + ${JSON.stringify(unit)}`
 }
+
+/** The shared x encoding of the frequency charts: field `f`, log scale over `domain`, SI ticks at each decade. */
+export function logFrequencyX(domain: [number, number]) {
+  return {
+    field: 'f',
+    type: 'quantitative' as const,
+    scale: {type: 'log' as const, domain, nice: false},
+    axis: {title: 'Frequency (Hz)', format: SI_AXIS_FORMAT, values: logTicks(domain), grid: true}
+  }
+}
