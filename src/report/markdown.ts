@@ -8,6 +8,7 @@ import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
 import {verdictText} from './format.js'
 import {heading, paragraph, strong, table, text} from './mdast.js'
+import {drawingToSvg} from './schematic/svg.js'
 import type {ReportDocument} from './types.js'
 
 export interface MarkdownReport {
@@ -24,6 +25,13 @@ function plain(nodes: RootContent[], figureName: (n: number) => string, figures:
       case 'figure': {
         const name = figureName(node.number)
         figures.push({name, svg: node.svg})
+        out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
+          paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
+        break
+      }
+      case 'schematic': {
+        const name = figureName(node.number)
+        figures.push({name, svg: drawingToSvg(node.drawing)})
         out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
           paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
         break

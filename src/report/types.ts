@@ -6,6 +6,7 @@
 import type {BlockContent, Root} from 'mdast'
 import type {DocumentMeta} from '../note/types.js'
 import type {Severity} from '../rules/types.js'
+import type {Drawing} from './schematic/types.js'
 
 export type Verdict = 'met' | 'not-met' | 'not-evaluated'
 
@@ -20,6 +21,15 @@ export interface FigureNode {
   /** Natural size of the SVG, pt. */
   width: number
   height: number
+}
+
+/** A stage's schematic as vector drawing data (DESIGN §8.9), numbered with the figures. */
+export interface SchematicNode {
+  type: 'schematic'
+  /** Figure number in the document, 1-based. */
+  number: number
+  caption: string
+  drawing: Drawing
 }
 
 /** A boxed note: a rule's practice/safety note, or a verdict line. Shown with a word and a shape. */
@@ -45,12 +55,14 @@ export interface PageBreakNode {
 declare module 'mdast' {
   interface RootContentMap {
     figure: FigureNode
+    schematic: SchematicNode
     callout: CalloutNode
     caption: CaptionNode
     pageBreak: PageBreakNode
   }
   interface BlockContentMap {
     figure: FigureNode
+    schematic: SchematicNode
     callout: CalloutNode
     caption: CaptionNode
     pageBreak: PageBreakNode

@@ -16,6 +16,16 @@ import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
+import type {StageInput} from '../../engine/types.js'
+import {stageSchematic} from '../schematic/stage.js'
+
+/** The stage's schematic, first in its section; a topology without a layout says so. */
+function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
+  const drawing = stageSchematic(input)
+  if (drawing === null) return paragraph(`No schematic is drawn for the ${input.topology} topology yet; the parameters table lists its parts.`)
+  return {type: 'schematic', number: ++ctx.figure, drawing,
+    caption: `Schematic of stage ${input.id}: every part with its key and nominal value (tolerances in the parameters table)`}
+}
 
 function swingBlocks(ev: StageEvaluation): BlockContent[] {
   const s = ev.result.swing
@@ -47,6 +57,7 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
     heading(2, `Stage ${input.id} — ${input.title}`),
     paragraph(`${TOPOLOGY_LABELS[input.topology]} on op-amp `, code(op.name), op.archetype ? ' (archetype).' : '.')
   ]
+  out.push(schematicBlock(ctx, input))
   if (op.archetype) out.push(archetypeNotice(op))
   out.push(heading(3, 'Parameters'), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
     entriesTable(ev.block.entries, ev.block.defaulted))
