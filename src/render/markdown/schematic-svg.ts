@@ -3,8 +3,8 @@
  * symbols). Each part is a `<g class="part" data-key="…" data-symbol="…">`; text uses the
  * charts' font family. Deterministic: numbers are rounded to 0.01 pt.
  */
-import {CHART_FONT_FAMILY} from '../charts/fonts.js'
-import type {Drawing, Primitive} from './types.js'
+import {CHART_FONT_FAMILY} from '../../report/charts/fonts.js'
+import type {Drawing, Primitive} from '../../report/schematic/types.js'
 
 const n = (x: number): string => String(Math.round(x * 100) / 100)
 

@@ -5,8 +5,8 @@
  */
 import {applyStyle, bodyStyle, keepSpace, measureText, type RenderContext, type TextStyle} from './context.js'
 import {FONT_NAMES} from './fonts.js'
-import type {SchematicNode} from '../report/types.js'
-import type {Point, Primitive} from '../report/schematic/types.js'
+import type {SchematicNode} from '../../report/types.js'
+import type {Point, Primitive} from '../../report/schematic/types.js'
 
 const CAPTION_GAP = 4
 const STROKE = 0.9
