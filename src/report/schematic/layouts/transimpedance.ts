@@ -13,20 +13,20 @@ export const transimpedanceLayout: Layout = {
   parts: [
     {key: 'source', symbol: 'current-source', at: [30, 140], rotate: 90, label: 'left'},
     {key: 'gnd', symbol: 'ground', at: [30, 180], rotate: 90, with: 'source'},
-    {key: 'rshunt', symbol: 'resistor', at: [70, 140], rotate: 90},
-    {key: 'gnd', symbol: 'ground', at: [70, 180], rotate: 90, with: 'rshunt'},
-    {key: 'csource', symbol: 'capacitor', at: [120, 140], rotate: 90},
-    {key: 'gnd', symbol: 'ground', at: [120, 180], rotate: 90, with: 'csource'},
-    {key: 'cstray', symbol: 'capacitor', at: [170, 140], rotate: 90},
-    {key: 'gnd', symbol: 'ground', at: [170, 180], rotate: 90, with: 'cstray'},
+    {key: 'rshunt', symbol: 'resistor', at: [65, 140], rotate: 90},
+    {key: 'gnd', symbol: 'ground', at: [65, 180], rotate: 90, with: 'rshunt'},
+    {key: 'csource', symbol: 'capacitor', at: [112, 140], rotate: 90},
+    {key: 'gnd', symbol: 'ground', at: [112, 180], rotate: 90, with: 'csource'},
+    {key: 'cstray', symbol: 'capacitor', at: [165, 140], rotate: 90},
+    {key: 'gnd', symbol: 'ground', at: [165, 180], rotate: 90, with: 'cstray'},
     ...feedbackAbove.parts,
     ...referenceBelow.parts
   ],
   wires: [
-    {points: [[30, 140], [70, 140]]},
-    {points: [[70, 140], [120, 140]]},
-    {points: [[120, 140], [170, 140]]},
-    {points: [[170, 140], [210, 140]]},
+    {points: [[30, 140], [65, 140]]},
+    {points: [[65, 140], [120, 140]]},
+    {points: [[112, 140], [165, 140]]},
+    {points: [[165, 140], [210, 140]]},
     ...feedbackAbove.wires,
     ...referenceBelow.wires
   ]
