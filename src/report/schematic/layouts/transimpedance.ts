@@ -24,7 +24,7 @@ export const transimpedanceLayout: Layout = {
   ],
   wires: [
     {points: [[30, 140], [65, 140]]},
-    {points: [[65, 140], [120, 140]]},
+    {points: [[65, 140], [112, 140]]},
     {points: [[112, 140], [165, 140]]},
     {points: [[165, 140], [210, 140]]},
     ...feedbackAbove.wires,
