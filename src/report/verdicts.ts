@@ -6,7 +6,7 @@ import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine
 import type {StageEvaluation} from '../evaluate/index.js'
 import {REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
-import type {CoverVerdict, Verdict} from './types.js'
+import type {CoverNote, CoverSummary, CoverVerdict, Verdict} from './types.js'
 
 export const verdictOf = (r: RequirementResult): Verdict => (r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met')
 
@@ -40,6 +40,21 @@ export function coverRows(evaluations: StageEvaluation[]): CoverVerdict[] {
     requirement: REQUIREMENT_LABELS[r.key],
     value: requirementValue(r, 'value', ev.input.topology),
     limit: `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', ev.input.topology)}`,
-    verdict: verdictOf(r)
+    verdict: verdictOf(r),
+    counted: ev.role !== 'baseline'
   })))
+}
+
+/** The cover's summary of a note's evaluations; `notes` comes from the sections (their anchors). */
+export function coverSummary(evaluations: readonly StageEvaluation[], notes: CoverNote[]): CoverSummary {
+  const counted = evaluations.filter((ev) => ev.role !== 'baseline')
+  const requirements = counted.flatMap((ev) => ev.result.requirements)
+  return {
+    verdicts: coverRows([...evaluations]),
+    overall: combine(requirements.map(verdictOf)),
+    counted: {stages: counted.length, requirements: requirements.length, notMet: requirements.filter((r) => !r.met).length},
+    baseline: evaluations.filter((ev) => ev.role === 'baseline').map((ev) => ev.input.id),
+    archetypes: evaluations.filter((ev) => ev.input.opamp.archetype).map((ev) => ({stage: ev.input.id, opamp: ev.input.opamp.name})),
+    notes
+  }
 }

@@ -8,6 +8,7 @@ import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
 import {verdictText} from '../../report/format.js'
 import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
+import {overallSentence, SEVERITY_WORDS} from '../../report/cover-text.js'
 import type {ReportDocument} from '../../report/types.js'
 import {drawingToSvg} from './schematic-svg.js'
 
@@ -67,13 +68,22 @@ export function reportToMarkdown(doc: ReportDocument, figureName: (n: number) =>
     ['Date', m.date], ['Author', m.author], ['Status', m.status]]
   const metaRows = meta.flatMap(([k, v]) => (v === null ? [] : [[k, v]]))
   const cover: RootContent[] = [heading(1, m.title ?? 'Design review'), table(['Item', 'Value'], metaRows)]
+  const c = doc.cover
   cover.push(heading(2, 'Requirement verdicts'),
-    doc.cover.verdicts.length === 0
+    c.verdicts.length === 0
       ? paragraph('No requirements stated.')
       : table(['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'],
-        doc.cover.verdicts.map((v) => [v.stage, v.requirement, v.value, v.limit, verdictText(v.verdict)])),
+        c.verdicts.map((v) => [v.counted ? v.stage : `${v.stage} (baseline)`, v.requirement, v.value, v.limit,
+          v.counted ? verdictText(v.verdict) : `${verdictText(v.verdict)} (not counted)`])),
     // The space stays outside the strong span: inside, it would be written as `&#x20;`.
-    paragraph(strong('Overall:'), ` ${verdictText(doc.cover.overall)}`))
+    paragraph(strong('Overall:'), ` ${overallSentence(c).replace(/^Overall: /, '')}`))
+  for (const a of c.archetypes) {
+    cover.push(paragraph(`Stage ${a.stage} uses the archetype ${a.opamp}: its figures are for the class, not a part.`))
+  }
+  cover.push(heading(2, 'Open notes'), c.notes.length === 0
+    ? paragraph('No caution, warning or safety note was raised.')
+    : table(['Severity', 'Where', 'Note', 'Rule', 'Accepted'], c.notes.map((n) => [
+      SEVERITY_WORDS[n.severity], n.stage === null ? 'every stage' : n.stage, n.title, n.rule, n.accepted ?? '—'])))
   // The closing statement refers to signatures "above": one row to sign per reviewer.
   const signOff: RootContent[] = m.reviewers.length === 0 ? [] : [heading(2, 'Sign-off'),
     table(['Reviewer', 'Role', 'Signature', 'Date'], m.reviewers.map((r) => [r.name, r.role, '', '']))]

@@ -80,7 +80,7 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
     await loopFigure(ctx, ev))
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
-  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared))
+  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared, input.id, ctx.coverNotes))
   return out
 }
 
