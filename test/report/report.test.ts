@@ -1,5 +1,4 @@
 import {describe, expect, it} from 'vitest'
-import {createHash} from 'node:crypto'
 import {mkdtempSync, writeFileSync} from 'node:fs'
 import {tmpdir} from 'node:os'
 import {join} from 'node:path'
@@ -8,38 +7,87 @@ import type {RootContent} from 'mdast'
 import {readPdf} from '../render/helpers.js'
 import {pdfOf, reportOf, sample} from './helpers.js'
 
-/** The report tree with each figure's SVG replaced by its length and hash, for a readable snapshot. */
-function summarise(nodes: RootContent[]): unknown[] {
-  return nodes.map((n) => {
-    if (n.type === 'figure') {
-      return {type: 'figure', number: n.number, caption: n.caption, svg: `${n.svg.length} chars, sha256 ${createHash('sha256').update(n.svg).digest('hex').slice(0, 12)}`}
-    }
-    if ('children' in n && Array.isArray(n.children)) {
-      const {position: _p, ...rest} = n as typeof n & {position?: unknown}
-      return {...rest, children: summarise(n.children as RootContent[])}
-    }
-    const {position: _p, ...rest} = n as typeof n & {position?: unknown}
-    return rest
+/** The outline of a tree: each heading as "#… text", and our own nodes by kind and number. */
+function outline(nodes: RootContent[]): string[] {
+  return nodes.flatMap((n): string[] => {
+    if (n.type === 'heading') return [`${'#'.repeat(n.depth)} ${toString(n)}`]
+    if (n.type === 'figure' || n.type === 'schematic') return [`  [${n.type} ${n.number}]`]
+    if (n.type === 'callout') return [`  [${n.label}]`]
+    return []
   })
 }
 
-describe('report tree', () => {
-  it('of the reference-buffer sample matches the reviewed snapshot', async () => {
-    const {document, warnings} = await reportOf(sample('reference-buffer.md'))
+/** Every node of a type, in document order. */
+function nodesOf<T extends RootContent['type']>(nodes: RootContent[], type: T): Extract<RootContent, {type: T}>[] {
+  const out: Extract<RootContent, {type: T}>[] = []
+  const walk = (ns: RootContent[]): void => ns.forEach((n) => {
+    if (n.type === type) out.push(n as Extract<RootContent, {type: T}>)
+    if ('children' in n && Array.isArray(n.children)) walk(n.children as RootContent[])
+  })
+  walk(nodes)
+  return out
+}
+
+describe('report tree of the reference-buffer sample', async () => {
+  const {document, warnings} = await reportOf(sample('reference-buffer.md'))
+  const body = document.body.children
+
+  it('builds without warnings', () => {
     expect(warnings).toEqual([])
-    const tree = {cover: document.cover, body: summarise(document.body.children), appendix: summarise(document.appendix.children)}
-    await expect(`${JSON.stringify(tree, null, 1)}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.tree.json')
   })
 
-  it('numbers figures 1 … N in document order, four per stage', async () => {
-    const {document} = await reportOf(sample('reference-buffer.md'))
-    const numbers: number[] = []
-    const walk = (ns: RootContent[]): void => ns.forEach((n) => {
-      if (n.type === 'figure') numbers.push(n.number)
-      if ('children' in n && Array.isArray(n.children)) walk(n.children as RootContent[])
-    })
-    walk(document.body.children)
-    expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8])
+  it('has the reviewed section outline', async () => {
+    await expect(`${outline(body).join('\n')}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.outline.txt')
+  })
+
+  it('orders each stage section: schematic, parameters, results, DC, noise, stability, requirements, notes', () => {
+    const h3 = outline(body).filter((l) => l.startsWith('### ')).slice(0, 7)
+    expect(h3).toEqual(['### Parameters', '### Results summary', '### DC error budget', '### Noise budget', '### Stability', '### Requirements', '### Practice and safety notes'])
+    const lines = outline(body)
+    expect(lines.indexOf('  [schematic 1]')).toBeLessThan(lines.indexOf('### Parameters'))
+  })
+
+  it('numbers schematics and charts 1 … N in document order, five per stage', () => {
+    const numbers = [...nodesOf(body, 'figure'), ...nodesOf(body, 'schematic')].map((n) => n.number).sort((a, b) => a - b)
+    expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10])
+    expect(nodesOf(body, 'schematic').map((n) => n.number)).toEqual([1, 6])
+  })
+
+  it.each([
+    ['DC error contributors of stage ref-buffer', 'Output-referred error'],
+    ['Output noise density of stage ref-buffer', 'Output noise density'],
+    ['Cumulative output noise rms of stage ref-buffer', 'Cumulative'],
+    ['Loop gain of stage ref-buffer', 'Loop gain |T| (dB)']
+  ])('draws the chart “%s” with the axis title “%s”', (caption, axis) => {
+    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith(caption))
+    expect(fig).toBeDefined()
+    expect(fig!.svg).toContain(axis)
+  })
+
+  it('names the largest DC contributors in the bar chart', () => {
+    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith('DC error contributors of stage ref-buffer'))!
+    for (const label of ['Offset voltage', 'Resistor tolerance']) expect(fig.svg).toContain(label)
+  })
+
+  it('marks the baseline stage on the cover and counts only the design stage', () => {
+    const c = document.cover
+    expect(c.baseline).toEqual(['ref-buffer'])
+    expect(c.verdicts.filter((v) => !v.counted).map((v) => v.stage)).toEqual(['ref-buffer', 'ref-buffer', 'ref-buffer'])
+    expect(c.counted).toEqual({stages: 1, requirements: 3, notMet: 0})
+    expect(c.overall).toBe('met')
+  })
+
+  it('lists the open notes of both stages for the cover, in document order', () => {
+    expect(document.cover.notes.map((n) => `${n.severity} ${n.stage} ${n.rule}`)).toEqual([
+      'warning ref-buffer phase-margin-low', 'caution ref-buffer follower-feedback-resistor',
+      'caution ref-buffer bias-compensation-resistor', 'caution ref-buffer-proposed bias-over-temperature-missing'
+    ])
+    const anchors = new Set(nodesOf(body, 'callout').map((c) => c.anchor))
+    for (const n of document.cover.notes) expect(anchors).toContain(n.anchor)
+  })
+
+  it('names both archetype stages for the cover', () => {
+    expect(document.cover.archetypes).toEqual([{stage: 'ref-buffer', opamp: 'precision-cmos'}, {stage: 'ref-buffer-proposed', opamp: 'zero-drift'}])
   })
 })
 
@@ -55,7 +103,9 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   it('warns only with the practice notes of the stage (no chart or render warning)', () => {
     const warnings = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => d.message)
     expect(warnings.length).toBeGreaterThan(0)
-    for (const w of warnings) expect(w).toMatch(/^Stage `bridge-amp`: .* \[[a-z-]+\]$/s)
+    for (const w of warnings) expect(w).toMatch(/^Stage `bridge-amp`: /)
+    const rules = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => `${d.kind} ${d.rule}`)
+    expect(rules).toEqual(rules.map(() => expect.stringMatching(/^note [a-z-]+$/)))
   })
 
   it.each([
@@ -65,17 +115,18 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   })
 
   it.each([
-    'Figure 1 — DC error contributors of stage bridge-amp',
-    'Figure 2 — Output noise density of stage bridge-amp',
-    'Figure 3 — Cumulative output noise rms of stage bridge-amp',
-    'Figure 4 — Loop gain of stage bridge-amp'
+    'Figure 1 — Schematic of stage bridge-amp',
+    'Figure 2 — DC error contributors of stage bridge-amp',
+    'Figure 3 — Output noise density of stage bridge-amp',
+    'Figure 4 — Cumulative output noise rms of stage bridge-amp',
+    'Figure 5 — Loop gain of stage bridge-amp'
   ])('carries the caption “%s”', (caption) => {
     expect(text).toContain(caption)
   })
 
   it('shows the verdicts as words and the overall status on the cover', () => {
     expect(text).toContain('MET')
-    expect(text).toContain('Overall: all 4 requirements met')
+    expect(text).toContain('Overall: all 4 requirements of 1 stage met')
   })
 
   it('carries the compensation-resistor note with its three-way table', () => {
@@ -118,5 +169,59 @@ band: 0.1 .. 100 Hz
     expect(texts[0]).toBe('Notes that apply to every stage')
     const pointers = texts.filter((t) => t.startsWith('Also applies to this stage: SAFETY hazardous-voltage'))
     expect(pointers).toHaveLength(2)
+  })
+})
+
+describe('the cover of the reference-buffer PDF, read back with pdfjs', async () => {
+  const {outcome, pdf} = await pdfOf(sample('reference-buffer.md'))
+  const pages = (await readPdf(pdf)).pages.map((p) => p.normalize('NFKC'))
+  const cover = pages[0] ?? ''
+
+  it('exits 0: only the baseline stage misses requirements', () => {
+    expect(outcome.exitCode).toBe(0)
+  })
+
+  it('says what the overall verdict counts', () => {
+    expect(cover).toContain('Overall: all 3 requirements of 1 stage met (baseline stage ref-buffer not counted)')
+    expect(cover).toContain('ref-buffer (baseline)')
+    expect(cover).toContain('NOT MET (not counted)')
+  })
+
+  it('carries the archetype line for each archetype stage', () => {
+    expect(cover).toContain('Stage ref-buffer uses the archetype precision-cmos: its figures are for the class, not a part')
+    expect(cover).toContain('Stage ref-buffer-proposed uses the archetype zero-drift')
+  })
+
+  it('lists each open note with the page its note is on', () => {
+    // The page numbers are written after the body is drawn, in list order, at the end of the page's text.
+    const refs = [...cover.matchAll(/page (\d+)(?! of)/g)].map((m) => Number(m[1]))
+    const entries = [
+      ['WARNING · stage ref-buffer · Phase margin low (phase-margin-low)', 'phase-margin-low'],
+      ['CAUTION · stage ref-buffer · Follower feedback resistor (follower-feedback-resistor)', 'follower-feedback-resistor'],
+      ['CAUTION · stage ref-buffer · Bias-compensation resistor (bias-compensation-resistor)', 'bias-compensation-resistor'],
+      ['CAUTION · stage ref-buffer-proposed · Bias current over temperature not entered (bias-over-', 'bias-over-temperature-missing']
+    ]
+    expect(refs).toHaveLength(entries.length)
+    entries.forEach(([entry, rule], i) => {
+      expect(cover).toContain(entry)
+      const page = pages[(refs[i] ?? 0) - 1] ?? ''
+      // The callout prints its rule id after the text, on the page the cover names.
+      expect(page.replace(/- /g, '-')).toContain(rule)
+    })
+  })
+})
+
+describe('the photodiode PDF, read back with pdfjs', async () => {
+  const {pdf} = await pdfOf(sample('photodiode-receiver.md'))
+  const pages = (await readPdf(pdf)).pages.map((p) => p.normalize('NFKC'))
+
+  it('lists the accepted rule on the cover with the author’s reason', () => {
+    expect(pages[0]).toContain('CAUTION · stage rx-tia · Bandwidth margin (bandwidth-margin) — accepted by the author: The 20 kHz top of the band')
+  })
+
+  it('marks the note accepted in the body, with the reason', () => {
+    const body = pages.slice(1).join('\n')
+    expect(body).toContain('CAUTION — ACCEPTED')
+    expect(body).toContain('Accepted by the author: The 20 kHz top of the band is the noise-measurement edge')
   })
 })
