@@ -5,7 +5,8 @@
 import type {RuleId} from '../rules/index.js'
 
 export const RULE_TITLES: Record<RuleId, string> = {
-  'hazardous-voltage': 'Hazardous voltage or context',
+  'hazardous-voltage': 'Hazardous voltage or mains',
+  'patient-connected': 'Patient-connected equipment',
   'battery-stored-energy': 'Battery stored energy',
   'phase-margin-low': 'Phase margin low',
   'transimpedance-feedback-cap': 'Transimpedance feedback capacitor',

@@ -6,6 +6,7 @@
 /** Rule ids, in run order: safety first, then stability, swing, DC, noise, parts. */
 export const RULE_IDS = [
   'hazardous-voltage',
+  'patient-connected',
   'battery-stored-energy',
   'phase-margin-low',
   'transimpedance-feedback-cap',

@@ -18,6 +18,7 @@ import lowValueResistor from './low-value-resistor.js'
 import lowerBiasInputType from './lower-bias-input-type.js'
 import matchedDcResistance from './matched-dc-resistance.js'
 import outputSwing from './output-swing.js'
+import patientConnected from './patient-connected.js'
 import phaseMarginLow from './phase-margin-low.js'
 import resistorNoiseDominant from './resistor-noise-dominant.js'
 import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
@@ -32,6 +33,7 @@ export {RULE_IDS, isRuleId, type RuleId} from './ids.js'
 /** Every rule under its own id. */
 export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'hazardous-voltage': hazardousVoltage,
+  'patient-connected': patientConnected,
   'battery-stored-energy': batteryStoredEnergy,
   'phase-margin-low': phaseMarginLow,
   'transimpedance-feedback-cap': transimpedanceFeedbackCap,
