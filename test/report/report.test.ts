@@ -109,7 +109,7 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   })
 
   it.each([
-    'Output-referred error (V)', 'Output noise density (V/√Hz)', 'Frequency (Hz)', 'Loop gain |T| (dB)'
+    'Output-referred error (mV)', 'Output noise density (V/√Hz)', 'Frequency', '0.1 Hz', '10 Hz', 'Loop gain |T| (dB)'
   ])('carries the chart axis title “%s”', (title) => {
     expect(text).toContain(title.normalize('NFKC'))
   })

@@ -5,6 +5,7 @@ import type {StageEvaluation} from '../../evaluate/index.js'
 import type {ReportContext} from '../context.js'
 import type {FigureNode} from '../types.js'
 import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec} from '../charts/index.js'
+import {coincidingCurves} from '../charts/noise-density.js'
 import {renderChartSvg} from '../vega.js'
 import {DC_LABELS, NOISE_LABELS} from '../../results/labels.js'
 import type {TopLevelSpec} from 'vega-lite'
@@ -30,8 +31,14 @@ export async function noiseFigures(ctx: ReportContext, ev: StageEvaluation): Pro
   const omitted = omittedKeys.length > 0
     ? ` (not drawn, below 0.1 % of the total everywhere: ${omittedKeys.map((k) => NOISE_LABELS[k]).join('; ')})`
     : ''
+  const drawn = [...applies].filter((k) => !density.omitted.includes(k))
+  const name = (k: string): string => (k === 'total' ? 'the total' : NOISE_LABELS[k as keyof typeof NOISE_LABELS])
+  const pairs = coincidingCurves(ev.result.curves, drawn)
+  const coincide = pairs.length > 0
+    ? `; ${pairs.map(([a, b]) => `${name(a)} and ${name(b)}`).join(', ')} coincide (within 2 %), so one line hides the other`
+    : ''
   return [
-    await figure(ctx, density.spec, `Output noise density of stage ${ev.input.id} by contributor, and total${omitted}`),
+    await figure(ctx, density.spec, `Output noise density of stage ${ev.input.id} by contributor, and total${omitted}${coincide}`),
     await figure(ctx, cumulativeRmsSpec(ev.result.curves),
       `Cumulative output noise rms of stage ${ev.input.id} from the band's lower edge`)
   ]
