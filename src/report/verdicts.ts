@@ -6,6 +6,7 @@ import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine
 import type {StageEvaluation} from '../evaluate/index.js'
 import {REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
+import {formatNumber} from '../units/format.js'
 import type {CoverNote, CoverSummary, CoverVerdict, Verdict} from './types.js'
 
 export const verdictOf = (r: RequirementResult): Verdict => (r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met')
@@ -30,7 +31,12 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  // Above 100 % a margin reads better as a ratio of value to limit ("15 ×") than as "1396 %".
+  const share = r.limit !== 0 ? m / Math.abs(r.limit) : null
+  const ratio = share === null ? null : sense === 'max' ? r.limit / r.value : r.value / r.limit
+  const rel = share === null ? '' : share > 1 && ratio !== null && Number.isFinite(ratio)
+    ? ` (${formatNumber(ratio, {digits: 2})} ×)`
+    : ` (${(share * 100).toFixed(0)} %)`
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 

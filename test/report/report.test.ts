@@ -141,6 +141,15 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
     expect(text).toMatch(/licensed/)
   })
 
+  it('writes a margin above 100 % as a ratio, not as a percentage', () => {
+    expect(text).toContain('14 kHz (15 ×)')
+    expect(text).not.toContain('1396 %')
+  })
+
+  it('writes no frequency tick as a bare prefix such as “100m”', () => {
+    expect(text).not.toMatch(/(^|\s)100m(\s|$)/)
+  })
+
   it('ends the sign-off with the calculated-estimates statement', () => {
     expect(text).toMatch(/calculated estimates/)
   })

@@ -9,6 +9,7 @@ import type {StageBlockNode} from '../../note/types.js'
 import {nextTable, type ReportContext} from '../context.js'
 import {TOPOLOGY_LABELS} from '../../results/labels.js'
 import {q} from '../format.js'
+import {formatRange} from '../../units/format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
 import {dcTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
 import {dcFigure, loopFigure, noiseFigures} from './figures.js'
@@ -29,8 +30,8 @@ function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
 
 function swingBlocks(ev: StageEvaluation): BlockContent[] {
   const s = ev.result.swing
-  const span = `${q(s.outputSpan[0], 'V')} … ${q(s.outputSpan[1], 'V')}`
-  const allowed = `${q(s.allowed[0], 'V')} … ${q(s.allowed[1], 'V')}`
+  const span = formatRange(s.outputSpan[0], s.outputSpan[1], 'V')
+  const allowed = formatRange(s.allowed[0], s.allowed[1], 'V')
   if (s.fits) return [paragraph(`Output span over the input range: ${span}, inside the usable swing ${allowed} (supply less headroom).`)]
   return [callout('warning', 'OUTSIDE SWING', [paragraph(
     `Output span over the input range is ${span}, outside the usable swing ${allowed}: ` +

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {coincidingCurves, noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {renderChartSvg} from '../../../src/report/vega.js'
 import {FONTS, attributeValues, stageCurves, svgTexts} from './helpers.js'
@@ -58,5 +58,15 @@ describe('noiseDensitySpec()', () => {
     const curves = stageCurves()
     curves.noiseTotal = curves.noiseTotal.map(() => 0)
     expect(() => noiseDensitySpec(curves, {labels: LABELS})).toThrow(RangeError)
+  })
+})
+
+describe('coincidingCurves()', () => {
+  it('names two drawn contributors that lie within 2 % of each other everywhere, and no others', () => {
+    const curves = stageCurves()
+    const same = curves.noiseDensity['r:rf'].map((v) => v * 1.01)
+    const twin = {...curves, noiseDensity: {...curves.noiseDensity, 'r:rg': same}}
+    expect(coincidingCurves(twin, ['en', 'r:rf', 'r:rg'])).toEqual([['r:rf', 'r:rg']])
+    expect(coincidingCurves(curves, ['en', 'r:rf', 'r:rg'])).toEqual([])
   })
 })
