@@ -228,6 +228,18 @@ describe('the photodiode PDF, read back with pdfjs', async () => {
     expect(pages[0]).toContain('CAUTION · stage rx-tia · Bandwidth margin (bandwidth-margin) — accepted by the author: The 20 kHz top of the band')
   })
 
+  it('leaves out the rows of parts the circuit does not have (no rcomp here), tables and charts alike', () => {
+    const all = pages.join('\n')
+    expect(all).not.toContain('Thermal noise of rcomp')
+    expect(all).toContain('Thermal noise of rshunt')
+  })
+
+  it('writes “none” for an absent 1/f corner, not “0 Hz”', () => {
+    const all = pages.join('\n')
+    expect(all).toContain('2 fA/√Hz / none'.normalize('NFKC'))
+    expect(all).not.toContain('/ 0 Hz')
+  })
+
   it('marks the note accepted in the body, with the reason', () => {
     const body = pages.slice(1).join('\n')
     expect(body).toContain('CAUTION — ACCEPTED')

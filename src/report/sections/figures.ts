@@ -6,6 +6,7 @@ import type {ReportContext} from '../context.js'
 import type {FigureNode} from '../types.js'
 import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec} from '../charts/index.js'
 import {coincidingCurves} from '../charts/noise-density.js'
+import {dcPresent, noisePresent} from '../present.js'
 import {renderChartSvg} from '../vega.js'
 import {DC_LABELS, NOISE_LABELS} from '../../results/labels.js'
 import type {TopLevelSpec} from 'vega-lite'
@@ -20,13 +21,14 @@ async function figure(ctx: ReportContext, spec: TopLevelSpec, caption: string): 
 }
 
 export const dcFigure = (ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode> =>
-  figure(ctx, dcBarsSpec(ev.result.dc, {labels: DC_LABELS}),
+  figure(ctx, dcBarsSpec({...ev.result.dc, contributors: ev.result.dc.contributors.filter((c) => dcPresent(ev.input, c.key))}, {labels: DC_LABELS}),
     `DC error contributors of stage ${ev.input.id}, output-referred, largest first`)
 
 export async function noiseFigures(ctx: ReportContext, ev: StageEvaluation): Promise<FigureNode[]> {
   const density = noiseDensitySpec(ev.result.curves, {labels: NOISE_LABELS})
   // Only contributors that apply to this topology are worth naming as "not drawn".
-  const applies = new Set(ev.result.noise.contributors.map((c) => c.key))
+  // …and that come from a part the circuit has: an absent part is neither drawn nor named.
+  const applies = new Set(ev.result.noise.contributors.map((c) => c.key).filter((k) => noisePresent(ev.input, k)))
   const omittedKeys = density.omitted.filter((k) => applies.has(k))
   const omitted = omittedKeys.length > 0
     ? ` (not drawn, below 0.1 % of the total everywhere: ${omittedKeys.map((k) => NOISE_LABELS[k]).join('; ')})`
