@@ -28,7 +28,7 @@ async function run(args: CliArgs, abort: AbortController): Promise<number> {
     return 0
   }
   const res: Resources = {fonts: lazyFonts(), version, templates: new Map()}
-  if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out)
+  if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out, args.threshold)
 
   const notes = await expandNotes(args.operands)
   const runOpts: RunOptions = {
