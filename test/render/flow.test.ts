@@ -92,6 +92,6 @@ describe('renderPdf() cover overflow', () => {
     const closing = pdf.pages.findIndex((t) => t.includes('Limits of this report'))
     const body = pdf.pages.findIndex((t) => t.includes('Body starts'))
     expect(body).toBe(closing + 1)
-    expect(all).toContain('Overall: 15 of 45 requirements not met')
+    expect(all).toContain('Overall: 15 of the 45 requirements of 45 stages not met')
   })
 })

@@ -68,14 +68,15 @@ function drawCaveats(ctx: RenderContext, report: ReportDocument): void {
 /** The open cautions, warnings and safety notes by title, each with its page (written once the body is drawn). */
 function drawOpenNotes(ctx: RenderContext, report: ReportDocument): void {
   const {theme, doc} = ctx
-  heading(ctx, 'Open notes', 2)
   const notes = report.cover.notes
   const style = {font: 'regular' as const, size: theme.fontSizes.table, color: theme.colours.text}
   if (notes.length === 0) {
-    plain(ctx, 'No caution, warning or safety note was raised.', {...style, size: theme.fontSizes.body})
-    doc.y += theme.spacing.paragraph
+    // One line, no heading: the cover of a clean note stays on one page.
+    plain(ctx, 'Open notes: none (no caution, warning or safety note was raised).', {...style, size: theme.fontSizes.body})
+    doc.y += theme.spacing.paragraph - 3
     return
   }
+  heading(ctx, 'Open notes', 2)
   const pageWidth = 46
   const width = ctx.frame.width - pageWidth
   for (const n of notes) {
