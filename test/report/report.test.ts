@@ -5,7 +5,7 @@ import {join} from 'node:path'
 import {toString} from 'mdast-util-to-string'
 import type {RootContent} from 'mdast'
 import {readPdf} from '../render/helpers.js'
-import {pdfOf, reportOf, sample} from './helpers.js'
+import {compiledReportOf, pdfOf, reportOf, sample} from './helpers.js'
 
 /** The outline of a tree: each heading as "#… text", and our own nodes by kind and number. */
 function outline(nodes: RootContent[]): string[] {
@@ -28,12 +28,42 @@ function nodesOf<T extends RootContent['type']>(nodes: RootContent[], type: T): 
   return out
 }
 
+/** Every row of inline data in a vega-lite spec (top level and layers); a URL would be none. */
+function inlineValues(spec: unknown): unknown[] {
+  if (typeof spec !== 'object' || spec === null) return []
+  const o = spec as Record<string, unknown>
+  const data = o['data'] as {values?: unknown} | undefined
+  const own = Array.isArray(data?.values) ? data.values : []
+  const layers = Array.isArray(o['layer']) ? o['layer'] : Array.isArray(o['vconcat']) ? o['vconcat'] : Array.isArray(o['hconcat']) ? o['hconcat'] : []
+  return [...own, ...layers.flatMap(inlineValues)]
+}
+
 describe('report tree of the reference-buffer sample', async () => {
-  const {document, warnings} = await reportOf(sample('reference-buffer.md'))
+  const {document, warnings, figures} = await compiledReportOf(sample('reference-buffer.md'))
   const body = document.body.children
+  const svgOf = (caption: string): string => {
+    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith(caption))
+    return fig === undefined ? '' : figures.byNode.get(fig)?.svg ?? ''
+  }
 
   it('builds without warnings', () => {
     expect(warnings).toEqual([])
+    expect(figures.warnings).toEqual([])
+  })
+
+  it('carries each chart as its vega-lite spec with inline data', () => {
+    const charts = nodesOf(body, 'figure')
+    expect(charts).toHaveLength(8)
+    for (const c of charts) expect(inlineValues(c.chart).length, c.caption).toBeGreaterThan(0)
+  })
+
+  it('puts the engine’s DC contributors into the bar chart’s data, largest first, absent parts left out', () => {
+    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith('DC error contributors of stage ref-buffer'))!
+    const rows = inlineValues(fig.chart) as {key: string; output: number}[]
+    const outputs = rows.map((r) => r.output)
+    expect(outputs).toEqual([...outputs].sort((a, b) => b - a))
+    expect(rows[0]).toMatchObject({key: 'vos'})
+    expect(rows.map((r) => r.key)).not.toContain('idark')
   })
 
   it('has the reviewed section outline', async () => {
@@ -59,14 +89,11 @@ describe('report tree of the reference-buffer sample', async () => {
     ['Cumulative output noise rms of stage ref-buffer', 'Cumulative'],
     ['Loop gain of stage ref-buffer', 'Loop gain |T| (dB)']
   ])('draws the chart “%s” with the axis title “%s”', (caption, axis) => {
-    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith(caption))
-    expect(fig).toBeDefined()
-    expect(fig!.svg).toContain(axis)
+    expect(svgOf(caption)).toContain(axis)
   })
 
   it('names the largest DC contributors in the bar chart', () => {
-    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith('DC error contributors of stage ref-buffer'))!
-    for (const label of ['Offset voltage', 'Resistor tolerance']) expect(fig.svg).toContain(label)
+    for (const label of ['Offset voltage', 'Offset drift']) expect(svgOf('DC error contributors of stage ref-buffer')).toContain(label)
   })
 
   it('marks the baseline stage on the cover and counts only the design stage', () => {

@@ -9,7 +9,6 @@ import type {Heading} from 'mdast'
 import {overallSentence, SEVERITY_WORDS} from '../../report/cover-text.js'
 import type {ReportDocument, Verdict} from '../../report/types.js'
 import {lastPageIndex} from './pdfkit.js'
-import {drawHeading, renderBlocks} from './blocks.js'
 import {drawText, keepSpace, measureText, type RenderContext, type TextStyle} from './context.js'
 import {STATUS_WORDS} from './furniture.js'
 import {drawShape} from './shapes.js'
@@ -27,7 +26,7 @@ export function isoDate(date: Date): string {
 }
 
 function heading(ctx: RenderContext, text: string, depth: Heading['depth']): void {
-  drawHeading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
+  ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
 }
 
 export function overallText(doc: ReportDocument): string {
@@ -149,5 +148,5 @@ export function drawCover(ctx: RenderContext, report: ReportDocument, date: Date
     fractions: [0.2, 0.3, 0.32, 0.18],
   })
   doc.y += theme.spacing.paragraph
-  renderBlocks(ctx, report.closing.children)
+  ctx.blocks.render(ctx, report.closing.children)
 }
