@@ -27,6 +27,7 @@ import {emptyMeta, readFrontMatter} from './front-matter.js'
 import {blockName, noteMessages} from './messages.js'
 import {buildOpamp} from './opamp-block.js'
 import {sourceOf, valueMapper, type SourceText} from './place.js'
+import {nestingTooDeep} from './prescan.js'
 import {buildStage} from './stage-block.js'
 import type {OpampBlockNode, ParsedNote, StageBlockNode} from './types.js'
 
@@ -133,6 +134,12 @@ export function parseNote(file: VFile): ParsedNote {
   const text = file.toString()
   if (text.includes('\u0000')) {
     report.error(noteMessages.binaryFile(), {line: 1, column: 1}, 'binary-file')
+    return {meta: emptyMeta(), tree: {type: 'root', children: []}, stages: [], opamps: []}
+  }
+  // A linear pre-scan first: the parser is slow on deep nesting, or overflows its stack.
+  const bomb = nestingTooDeep(text, MAX_NESTING)
+  if (bomb !== null) {
+    report.error(noteMessages.tooDeep(MAX_NESTING), bomb, 'too-deep')
     return {meta: emptyMeta(), tree: {type: 'root', children: []}, stages: [], opamps: []}
   }
   const source = sourceOf(text)

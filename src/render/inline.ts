@@ -5,7 +5,7 @@
  * alt text. HTML is printed as written, never interpreted.
  */
 import type {PhrasingContent} from 'mdast'
-import {applyStyle, type RenderContext} from './context.js'
+import {applyStyle, layoutText, type RenderContext} from './context.js'
 import type {FontKey} from './fonts.js'
 import type {TextOptions} from './pdfkit.js'
 import {textContent} from './text-content.js'
@@ -142,7 +142,7 @@ export function drawRuns(ctx: RenderContext, runs: Run[], x: number, y: number, 
       underline: run.underline,
       strike: run.strike,
     }
-    const text = ctx.glyphs.clean(run.text, run.font)
+    const text = layoutText(ctx, run.text, run.font, run.size, width)
     if (i === 0) doc.text(text, x, y, options)
     else doc.text(text, options)
   })
