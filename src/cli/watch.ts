@@ -6,7 +6,7 @@
 import {watch, type FSWatcher} from 'node:fs'
 import {basename, dirname, resolve} from 'node:path'
 import {outputClashes} from './batch.js'
-import {formatDiagnostic} from './diagnostics.js'
+import {formatDiagnostic, printable} from './diagnostics.js'
 import {failedOutcome, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 
 export interface WatchIo {
@@ -16,7 +16,7 @@ export interface WatchIo {
 
 const verdictLine = (o: NoteOutcome, seconds: number): string => {
   const result = o.exitCode === 2 ? 'error, no output written' : `${o.met} met, ${o.notMet} not met`
-  return `${o.file}: ${result} (${seconds.toFixed(2)} s)${o.outputs.length > 0 ? ` → ${o.outputs.join(', ')}` : ''}\n`
+  return `${printable(o.file)}: ${result} (${seconds.toFixed(2)} s)${o.outputs.length > 0 ? ` → ${printable(o.outputs.join(', '))}` : ''}\n`
 }
 
 /** Resolves when `signal` aborts; every watcher is closed then. */
@@ -38,7 +38,7 @@ export async function watchNotes(all: string[], res: Resources, opts: RunOptions
   const build = async (note: string): Promise<void> => {
     const t0 = performance.now()
     const o = await processNote(note, res, opts).catch((e: unknown) => {
-      io.err(`${note}: internal error: ${e instanceof Error ? e.message : String(e)}\n`)
+      io.err(`${printable(note)}: internal error: ${e instanceof Error ? e.message : String(e)}\n`)
       return null
     })
     if (o === null) return
@@ -74,7 +74,7 @@ export async function watchNotes(all: string[], res: Resources, opts: RunOptions
     watchers.push(watch(dir, (_event, name) => {
       const note = name === null ? undefined : names.get(name.toString())
       if (note !== undefined) schedule(note)
-    }).on('error', (e) => io.err(`cannot watch ${dir} any longer: ${e.message}\n`)))
+    }).on('error', (e) => io.err(`cannot watch ${printable(dir)} any longer: ${e.message}\n`)))
   }
   io.err(`watching ${notes.length} note(s); press Ctrl-C to stop\n`)
   // The signal may have fired already, during the first builds.

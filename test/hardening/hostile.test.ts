@@ -5,7 +5,7 @@
  */
 import {execFileSync} from 'node:child_process'
 import {createHash} from 'node:crypto'
-import {existsSync, mkdirSync, readFileSync, readdirSync, statSync, symlinkSync, writeFileSync} from 'node:fs'
+import {existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, symlinkSync, writeFileSync} from 'node:fs'
 import {join} from 'node:path'
 import {describe, expect, it} from 'vitest'
 import {tempNotes} from '../cli/helpers.js'
@@ -20,28 +20,43 @@ const withProse = (prose: string): string => `${goodNote()}\n${prose}\n`
 describe('1. the cache is never trusted for a verdict', () => {
   it('rebuilds when an edited cache claims a pass, points outside the folder and the PDF is gone', async () => {
     const dir = tempNotes({'n.md': unmetNote()})
+    const elsewhere = tempNotes({'system.txt': 'a file outside the project\n'})
+    const outside = join(elsewhere, 'system.txt')
     const first = await runBounded(['build', 'n.md'], {cwd: dir})
     expect(first.status).toBe(1)
     const cacheFile = join(dir, CACHE_FILE)
     const cache = JSON.parse(readFileSync(cacheFile, 'utf8')) as {entries: Record<string, Record<string, unknown>>}
-    for (const e of Object.values(cache.entries)) Object.assign(e, {exitCode: 0, notMet: 0, met: 1, outputs: ['/etc/hostname']})
+    const record = {path: outside, size: statSync(outside).size, sha256: sha(readFileSync(outside))}
+    for (const e of Object.values(cache.entries)) Object.assign(e, {exitCode: 0, notMet: 0, met: 1, outputs: [record], owned: [outside]})
     writeFileSync(cacheFile, JSON.stringify(cache))
+    rmSync(join(dir, 'n.pdf'))
     const r = await runBounded(['build', 'n.md'], {cwd: dir})
     expect(r.stdout).not.toContain('up to date')
-    expect(r.stdout).not.toContain('/etc/hostname')
+    expect(r.stdout).not.toContain(outside)
     expect(r.status).toBe(1)
     expect(existsSync(join(dir, 'n.pdf'))).toBe(true)
+    expect(readFileSync(outside, 'utf8')).toBe('a file outside the project\n')
   })
 
   it('takes the verdict from the hashed JSON result, not from fields anyone can edit', async () => {
     const dir = tempNotes({'n.md': unmetNote()})
     expect((await runBounded(['build', 'n.md'], {cwd: dir})).status).toBe(1)
     const cacheFile = join(dir, CACHE_FILE)
-    const text = readFileSync(cacheFile, 'utf8').replace(/"exitCode": 1/g, '"exitCode": 0').replace(/"notMet": 1/g, '"notMet": 0')
-    writeFileSync(cacheFile, text)
+    // Fields claiming a pass, added to an entry that is otherwise intact: the note stays up to
+    // date, and its verdict is the evaluation's.
+    const cache = JSON.parse(readFileSync(cacheFile, 'utf8')) as {entries: Record<string, Record<string, unknown>>}
+    for (const e of Object.values(cache.entries)) Object.assign(e, {exitCode: 0, notMet: 0, met: 1, verdict: 'met'})
+    writeFileSync(cacheFile, JSON.stringify(cache))
     const r = await runBounded(['build', 'n.md'], {cwd: dir})
+    expect(r.stdout).toContain('up to date')
     expect(r.status).toBe(1)
     expect(r.stdout).toMatch(/NOT MET/)
+    // And a recorded result that is not what the note evaluates to: rebuilt.
+    for (const e of Object.values(cache.entries)) e['result'] = '0'.repeat(64)
+    writeFileSync(cacheFile, JSON.stringify(cache))
+    const again = await runBounded(['build', 'n.md'], {cwd: dir})
+    expect(again.stdout).not.toContain('up to date')
+    expect(again.status).toBe(1)
   })
 
   it('rebuilds when a recorded output was replaced by other bytes', async () => {
@@ -220,7 +235,7 @@ describe('7. outputs never overwrite files that are not ours', () => {
     const pdfA = readFileSync(join(dir, 'out', 'design.pdf'))
     const b = await runBounded(['build', 'b/design.md', '--out', 'out'], {cwd: dir})
     expect(b.status).toBe(2)
-    expect(b.stderr).toMatch(/out\/design\.pdf.* a\/design\.md/)
+    expect(b.stderr).toMatch(/out\/design\.pdf is the output of .*\/a\/design\.md/)
     expect(readFileSync(join(dir, 'out', 'design.pdf')).equals(pdfA)).toBe(true)
     const again = await runBounded(['build', 'a/design.md', '--out', 'out'], {cwd: dir})
     expect(again.status).toBe(0)

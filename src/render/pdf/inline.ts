@@ -8,6 +8,7 @@ import type {PhrasingContent} from 'mdast'
 import {applyStyle, layoutText, type RenderContext} from './context.js'
 import type {FontKey} from './fonts.js'
 import type {TextOptions} from './pdfkit.js'
+import {webLink} from '../links.js'
 import {textContent} from './text-content.js'
 
 export interface Run {
@@ -83,10 +84,10 @@ export function runsOf(ctx: RenderContext, nodes: PhrasingContent[], base: RunBa
         case 'delete': walk(node.children, {...state, strike: true}); break
         case 'inlineCode': push(node.value, state, true); break
         case 'break': push('\n', state); break
-        case 'link': walk(node.children, {...state, link: node.url}); break
+        case 'link': walk(node.children, {...state, link: webLink(node.url)}); break
         case 'linkReference': {
           const def = ctx.definitions.get(node.identifier.toLowerCase())
-          walk(node.children, def === undefined ? state : {...state, link: def.url})
+          walk(node.children, def === undefined ? state : {...state, link: webLink(def.url)})
           break
         }
         case 'image':
