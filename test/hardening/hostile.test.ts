@@ -270,7 +270,9 @@ describe('8. names and links', () => {
     const r = await runBounded(['build', 'n.md', '--format', 'md'], {cwd: dir})
     expect(r.status).toBe(0)
     const md = readFileSync(join(dir, 'n.review.md'), 'utf8')
-    expect(md).not.toMatch(/<script|<img/)
+    // Escaped as CommonMark escapes it (`\<`): text when rendered, never a tag.
+    expect(md).not.toMatch(/(^|[^\\])<(script|img|\/script)/m)
+    expect(md).toContain('\\<script>')
     expect(md).toContain('alert(1)')
   })
 })
