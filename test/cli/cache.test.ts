@@ -124,9 +124,9 @@ describe('build cache', () => {
     const r = runCli(['build', join(dir, 'n.md'), '--format', 'json'])
     expect(r.status).toBe(0)
     expect(existsSync(join(dir, 'n.json'))).toBe(true)
-    const cache = JSON.parse(readFileSync(join(dir, CACHE_FILE), 'utf8')) as {version: number; entries: Record<string, {outputs: string[]}>}
-    expect(cache.version).toBe(1)
-    expect(cache.entries[join(dir, 'n.md')]!.outputs).toEqual([join(dir, 'n.json')])
+    const cache = JSON.parse(readFileSync(join(dir, CACHE_FILE), 'utf8')) as {version: number; entries: Record<string, {outputs: {path: string}[]}>}
+    expect(cache.version).toBe(2)
+    expect(cache.entries[join(dir, 'n.md')]!.outputs.map((o) => o.path)).toEqual([join(dir, 'n.json')])
     expect(tmpFiles(dir)).toEqual([])
   })
 })
