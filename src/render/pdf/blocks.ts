@@ -7,7 +7,7 @@
 import type {Blockquote, Heading, Paragraph, PhrasingContent, RootContent} from 'mdast'
 import {drawCallout} from './callout.js'
 import {drawFigure, figureHeight} from './chart.js'
-import {drawCode} from './code.js'
+import {codeKeepHeight, drawCode} from './code.js'
 import {
   atPageTop, bodyStyle, drawText, estimateText, indented, keepSpace, measureText, newPage, spaceLeft, type RenderContext,
 } from './context.js'
@@ -45,6 +45,7 @@ export function keepHeight(ctx: RenderContext, node: RootContent | undefined, re
     case 'caption': return lines(ctx, 1, ctx.theme.fontSizes.small) + keepHeight(ctx, rest[0], rest.slice(1))
     case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + lines(ctx, 2)
     case 'table': return lines(ctx, 2, ctx.theme.fontSizes.table) + 4 * ctx.theme.spacing.cellPadding
+    case 'code': return codeKeepHeight(ctx, node.value)
     case 'paragraph': {
       const h = estimateText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
       return h <= lines(ctx, SHORT_PARAGRAPH_LINES) ? h : lines(ctx, 3)
@@ -107,7 +108,14 @@ export function drawPhrasing(ctx: RenderContext, children: PhrasingContent[]): v
   flush()
 }
 
-function drawParagraph(ctx: RenderContext, node: Paragraph): void {
+/** A paragraph; one that introduces a code block or a table (keep-with-next) stays on its page. */
+function drawParagraph(ctx: RenderContext, node: Paragraph, rest: RootContent[]): void {
+  const next = rest[0]
+  if ((next?.type === 'code' || next?.type === 'table') && !node.children.some((c) => c.type === 'image' || c.type === 'imageReference')) {
+    const h = estimateText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
+    const need = h + ctx.theme.spacing.paragraph + keepHeight(ctx, next, rest.slice(1))
+    if (h <= lines(ctx, SHORT_PARAGRAPH_LINES)) keepSpace(ctx, need)
+  }
   drawPhrasing(ctx, node.children)
 }
 
@@ -149,7 +157,7 @@ export function renderBlock(ctx: RenderContext, node: RootContent, rest: RootCon
   const {theme} = ctx
   switch (node.type) {
     case 'heading': return drawHeading(ctx, node, rest)
-    case 'paragraph': return drawParagraph(ctx, node)
+    case 'paragraph': return drawParagraph(ctx, node, rest)
     case 'blockquote': return drawBlockquote(ctx, node)
     case 'list': return drawList(ctx, node)
     case 'table':

@@ -5,6 +5,21 @@
 import {drawText, keepSpace, measureText, newPage, spaceLeft, type RenderContext, type TextStyle} from './context.js'
 import {splitToHeight} from './split.js'
 
+/** A code block up to this many lines moves to the next page whole rather than split. */
+const SHORT_CODE_LINES = 24
+
+/** The height that must stay on the page with the start of a code block (all of a short one). */
+export function codeKeepHeight(ctx: RenderContext, value: string): number {
+  const {theme} = ctx
+  const pad = theme.spacing.codePadding
+  const style: TextStyle = {font: 'mono', size: theme.fontSizes.code, color: theme.colours.text}
+  const width = ctx.frame.width - 2 * pad
+  const text = value.replace(/\t/g, '    ').replace(/\s+$/, '') || ' '
+  const line = measureText(ctx, 'Ag', style, width)
+  const h = measureText(ctx, text, style, width)
+  return (h <= line * SHORT_CODE_LINES ? h : line * 3) + 2 * pad + theme.fontSizes.small + 1
+}
+
 export function drawCode(ctx: RenderContext, value: string, lang: string | null): void {
   const {doc, theme} = ctx
   const pad = theme.spacing.codePadding
@@ -13,7 +28,8 @@ export function drawCode(ctx: RenderContext, value: string, lang: string | null)
   let rest = value.replace(/\t/g, '    ').replace(/\s+$/, '')
   if (rest === '') rest = ' '
   const line = measureText(ctx, 'Ag', style, width)
-  keepSpace(ctx, Math.min(measureText(ctx, rest, style, width), line * 3) + 2 * pad)
+  // A block of up to SHORT_CODE_LINES lines is never split: it moves to the next page whole.
+  keepSpace(ctx, codeKeepHeight(ctx, value))
   if (lang !== null && lang !== '') {
     const label: TextStyle = {font: 'regular', size: theme.fontSizes.small, color: theme.colours.muted}
     drawText(ctx, lang, label, ctx.frame.x, doc.y, ctx.frame.width)

@@ -25,8 +25,15 @@ export function isoDate(date: Date): string {
   return date.toISOString().slice(0, 10)
 }
 
+/** A cover heading: outline level `depth`, set in the h3 size (the cover keeps to one page). */
 function heading(ctx: RenderContext, text: string, depth: Heading['depth']): void {
-  ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
+  const saved = ctx.theme
+  ctx.theme = {...saved, fontSizes: {...saved.fontSizes, h2: saved.fontSizes.h3}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore * 0.6}}
+  try {
+    ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
+  } finally {
+    ctx.theme = saved
+  }
 }
 
 export function overallText(doc: ReportDocument): string {
@@ -54,12 +61,14 @@ function plain(ctx: RenderContext, text: string, style: TextStyle, indent = 0): 
 
 /** The archetype line(s) and what the overall verdict leaves out. */
 function drawCaveats(ctx: RenderContext, report: ReportDocument): void {
-  const style = {font: 'regular' as const, size: ctx.theme.fontSizes.body, color: ctx.theme.colours.text}
-  for (const a of report.cover.archetypes) {
-    plain(ctx, `Stage ${a.stage} uses the archetype ${a.opamp}: its figures are for the class, not a part; replace them with the chosen part's datasheet values before sign-off.`, style)
+  const style = {font: 'regular' as const, size: ctx.theme.fontSizes.small, color: ctx.theme.colours.text}
+  const arch = report.cover.archetypes
+  if (arch.length > 0) {
+    const each = arch.map((a) => `Stage ${a.stage} uses the archetype ${a.opamp}: its figures are for the class, not a part.`)
+    plain(ctx, `${each.join(' ')} Replace ${arch.length > 1 ? 'them' : 'its figures'} with the chosen part's datasheet values before sign-off.`, style)
   }
   if (report.cover.baseline.length > 0) {
-    plain(ctx, `Baseline stage${report.cover.baseline.length > 1 ? 's' : ''} ${report.cover.baseline.join(', ')}: kept for comparison, shown with ${report.cover.baseline.length > 1 ? 'their' : 'its'} verdicts but not counted in the overall verdict or the exit code.`, style)
+    plain(ctx, `Baseline stage${report.cover.baseline.length > 1 ? 's' : ''} ${report.cover.baseline.join(', ')}: kept for comparison, not counted in the overall verdict or the exit code.`, style)
   }
   ctx.doc.y += ctx.theme.spacing.paragraph - 3
 }
@@ -68,7 +77,7 @@ function drawCaveats(ctx: RenderContext, report: ReportDocument): void {
 function drawOpenNotes(ctx: RenderContext, report: ReportDocument): void {
   const {theme, doc} = ctx
   const notes = report.cover.notes
-  const style = {font: 'regular' as const, size: theme.fontSizes.table, color: theme.colours.text}
+  const style = {font: 'regular' as const, size: theme.fontSizes.small, color: theme.colours.text}
   if (notes.length === 0) {
     // One line, no heading: the cover of a clean note stays on one page.
     plain(ctx, 'Open notes: none (no caution, warning or safety note was raised).', {...style, size: theme.fontSizes.body})
@@ -101,18 +110,29 @@ function signOffRows(doc: ReportDocument): Cell[][] {
 }
 
 export function drawCover(ctx: RenderContext, report: ReportDocument, date: Date): void {
+  const saved = ctx.theme
+  // Tables on the cover are set with a little less cell padding than in the body.
+  ctx.theme = {...saved, spacing: {...saved.spacing, cellPadding: Math.min(saved.spacing.cellPadding, 2.5)}}
+  try {
+    drawCoverPage(ctx, report, date)
+  } finally {
+    ctx.theme = saved
+  }
+}
+
+function drawCoverPage(ctx: RenderContext, report: ReportDocument, date: Date): void {
   const {doc, theme} = ctx
   const {meta} = report
   const title = meta.title ?? 'Untitled design note'
   const titleStyle = {font: 'bold' as const, size: theme.fontSizes.title, color: theme.colours.text}
   ctx.outline?.stack.push({depth: 1, item: doc.outline.addItem('Cover and sign-off')})
-  doc.y = doc.page.margins.top + theme.spacing.headingBefore
+  doc.y = doc.page.margins.top + theme.spacing.headingBefore / 2
   drawText(ctx, title, titleStyle, ctx.frame.x, doc.y, ctx.frame.width)
   doc.y += 4
   if (meta.project !== null) {
     drawText(ctx, meta.project, {font: 'regular', size: theme.fontSizes.h3, color: theme.colours.muted}, ctx.frame.x, doc.y, ctx.frame.width)
   }
-  doc.y += theme.spacing.headingBefore
+  doc.y += theme.spacing.headingBefore * 0.75
   const particulars: [string, string][] = [
     ['Document', meta.document ?? '—'],
     ['Revision', meta.revision ?? '—'],
@@ -120,7 +140,15 @@ export function drawCover(ctx: RenderContext, report: ReportDocument, date: Date
     ['Author', meta.author ?? '—'],
     ['Status', STATUS_WORDS[meta.status]],
   ]
-  drawTable(ctx, {header: null, rows: particulars.map(([k, v]) => [{text: k, font: 'bold'}, {text: v}]), align: ['left', 'left']})
+  // Three particulars a row: the cover keeps its room for the verdicts, notes and signatures.
+  const rows3: Cell[][] = []
+  for (let i = 0; i < particulars.length; i += 3) {
+    const row: Cell[] = []
+    for (const [k, v] of particulars.slice(i, i + 3)) row.push({text: k, font: 'bold'}, {text: v})
+    while (row.length < 6) row.push({text: ''})
+    rows3.push(row)
+  }
+  drawTable(ctx, {header: null, rows: rows3, align: ['left', 'left', 'left', 'left', 'left', 'left'], fractions: [0.12, 0.26, 0.1, 0.2, 0.08, 0.24]})
   doc.y += theme.spacing.paragraph
   heading(ctx, 'Requirement verdicts', 2)
   if (report.cover.verdicts.length > 0) {
@@ -148,5 +176,14 @@ export function drawCover(ctx: RenderContext, report: ReportDocument, date: Date
     fractions: [0.2, 0.3, 0.32, 0.18],
   })
   doc.y += theme.spacing.paragraph
-  ctx.blocks.render(ctx, report.closing.children)
+  // The closing statements in the table size, their headings one level smaller: the whole
+  // cover fits on one page for an ordinary note; a long one still flows on.
+  const saved = ctx.theme
+  const f = saved.fontSizes
+  ctx.theme = {...saved, fontSizes: {...f, body: f.small, h1: f.h4, h2: f.h4, h3: f.h4}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore / 3, headingAfter: saved.spacing.headingAfter / 2, paragraph: saved.spacing.paragraph / 2}}
+  try {
+    ctx.blocks.render(ctx, report.closing.children)
+  } finally {
+    ctx.theme = saved
+  }
 }

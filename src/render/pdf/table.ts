@@ -139,9 +139,22 @@ export function drawTable(ctx: RenderContext, spec: TableSpec): void {
   const firstH = first === undefined ? 0 : Math.min(rowHeight(ctx, layout, first, false, minRow), 60)
   if (headerH + firstH > spaceLeft(ctx) && !atPageTop(ctx)) newPage(ctx)
   drawHeader()
+  // Keep-with-next for totals: the trailing rows whose first cell is bold (a table's totals)
+  // move to the next page together with the row before them, never alone.
+  let tail = spec.rows.length
+  while (tail > 0 && spec.rows[tail - 1]?.[0]?.font === 'bold') tail--
+  const keepFrom = tail < spec.rows.length ? Math.max(tail - 1, 0) : -1
   spec.rows.forEach((original, r) => {
     const kind = r % 2 === 0 ? 'even' : 'odd'
     let row = original
+    if (r === keepFrom && r > 0) {
+      const fresh = doc.page.height - doc.page.margins.top - doc.page.margins.bottom - headerH
+      const together = spec.rows.slice(r).reduce((sum, x) => sum + rowHeight(ctx, layout, x, false, minRow, fresh), 0)
+      if (together <= fresh && together > spaceLeft(ctx)) {
+        newPage(ctx)
+        drawHeader()
+      }
+    }
     for (;;) {
       const fresh = doc.page.height - doc.page.margins.top - doc.page.margins.bottom - headerH
       const h = rowHeight(ctx, layout, row, false, minRow, fresh)
