@@ -4,7 +4,7 @@
  * value does not exist.
  */
 import {describe, expect, it} from 'vitest'
-import {readdirSync} from 'node:fs'
+import {readdirSync, readFileSync} from 'node:fs'
 import {join} from 'node:path'
 import {ROOT, runCli} from './cli/helpers.js'
 
@@ -71,6 +71,19 @@ describe('sample designs', () => {
     expect(Object.keys(f)).toEqual(['file', 'sourceSha256', 'diagnostics', 'stages'])
     expect((f['stages'] as Json[]).length).toBeGreaterThan(0)
     for (const s of f['stages'] as Json[]) checkStage(s)
+  })
+
+  it('are described truthfully by the demo script: exit 0, the baseline stage it names misses its own on purpose', () => {
+    const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as {scripts: Record<string, string>}
+    const demo = pkg.scripts['demo'] ?? ''
+    // No fallback that turns a failing build into a message: the demo fails when a sample does.
+    expect(demo).not.toMatch(/\|\|/)
+    expect(demo).toContain('every sample meets its requirements (exit 0)')
+    const named = /baseline stage ([a-z0-9-]+) in ([a-z0-9-]+\.md)/.exec(demo)
+    expect(named).not.toBeNull()
+    const r = runCli(['check', join('sample-designs', named![2]!)])
+    expect(r.status).toBe(0)
+    expect(r.stderr).toContain(`of baseline stage \`${named![1]}\` not met`)
   })
 
   it('include a baseline stage whose requirements are deliberately not met: shown, yet the run passes', () => {
