@@ -7,17 +7,27 @@ import {ARCHETYPE_DISCLAIMER} from '../../engine/archetypes.js'
 import type {OpampParams} from '../../engine/types.js'
 import type {BlockEntry, DefaultedValue} from '../../note/types.js'
 import {q} from '../format.js'
+import {dimensionOfKey, echoValue} from '../echo.js'
 import {callout, code, emphasis, paragraph, table} from '../mdast.js'
 
-/** Keys as written, then the defaults applied, marked as such. */
 /** A 1/f corner, or "none" when there is none (0 Hz is no corner, not a frequency). */
 const corner = (f: number): string => (f > 0 ? q(f, 'Hz') : 'none')
 
-export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[]): Table {
-  const rows = [
-    ...entries.map((e) => [[code(e.key)], e.raw, 'as written']),
-    ...defaulted.map((d) => [[code(d.key)], d.value, [emphasis('default applied')]])
+/** The sentence that stands once for every "as written" row of a parameter table. */
+export const AS_WRITTEN = 'Values are as written in the note (prefix kept, unit added) unless the Source column says otherwise.'
+
+/**
+ * Keys as written (Source left empty: `AS_WRITTEN` says it once), then the defaults applied,
+ * marked as such; for a stage, then the op-amp's values as the engine uses them.
+ */
+export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[], block: 'stage' | 'opamp' = 'stage', op: OpampParams | null = null): Table {
+  const rows: (string | ReturnType<typeof code>[] | ReturnType<typeof emphasis>[])[][] = [
+    ...entries.map((e) => [[code(e.key)], echoValue(e.raw, dimensionOfKey(e.key.replace(/^require\./, ''), block)), '']),
+    ...defaulted.map((d) => [[code(d.key)], echoValue(d.value, null), [emphasis('default applied')]])
   ]
+  if (op !== null) {
+    for (const [name, value] of opampRows(op)) rows.push([name, value, [emphasis('op-amp, used')]])
+  }
   return table(['Key', 'Value', 'Source'], rows)
 }
 
@@ -25,7 +35,11 @@ const dbOf = (linear: number): string => `${(20 * Math.log10(linear)).toFixed(1)
 
 /** An op-amp's values as the engine uses them. */
 export function opampValuesTable(op: OpampParams): Table {
-  const rows: string[][] = [
+  return table(['Parameter', 'Value used'], opampRows(op), ['left', 'right'])
+}
+
+function opampRows(op: OpampParams): string[][] {
+  return [
     ['Input type', op.inputType],
     ['Offset voltage, max at 25 °C', q(op.vos, 'V')],
     ['Offset drift, max', q(op.vosDrift, 'V/K')],
@@ -42,7 +56,6 @@ export function opampValuesTable(op: OpampParams): Table {
     ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F')} / ${q(op.cinCm, 'F')}`],
     ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')]
   ]
-  return table(['Parameter', 'Value used'], rows, ['left', 'right'])
 }
 
 /** The archetype disclaimer, wherever an archetype is used. */

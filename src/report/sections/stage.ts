@@ -13,7 +13,7 @@ import {formatRange} from '../../units/format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
 import {dcTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
 import {dcFigure, loopFigure, noiseFigures} from './figures.js'
-import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
+import {AS_WRITTEN, archetypeNotice, entriesTable} from './parameters.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
@@ -60,9 +60,9 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   ]
   out.push(schematicBlock(ctx, input))
   if (op.archetype) out.push(archetypeNotice(op))
-  out.push(heading(3, 'Parameters'), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
-    entriesTable(ev.block.entries, ev.block.defaulted))
-  if (op.archetype) out.push(caption(nextTable(ctx, `Archetype ${op.name}, values used`)), opampValuesTable(op))
+  // One table: the stage's keys, the defaults applied and the op-amp's values as used.
+  out.push(heading(3, 'Parameters'), paragraph(AS_WRITTEN), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
+    entriesTable(ev.block.entries, ev.block.defaulted, 'stage', op))
   out.push(heading(3, 'Results summary'), caption(nextTable(ctx, `Results of stage ${input.id}`)), summaryTable(result))
   out.push(...swingBlocks(ev))
 
@@ -87,8 +87,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
 
 /** An opamp block's section: its datasheet values as written and as used. */
 export function opampSection(ctx: ReportContext, node: import('../../note/types.js').OpampBlockNode): BlockContent[] {
-  const out: BlockContent[] = [heading(3, 'Op-amp ', code(node.id)),
-    caption(nextTable(ctx, `Datasheet values of op-amp ${node.id}, as written`)), entriesTable(node.entries, node.defaulted)]
-  if (node.opamp) out.push(caption(nextTable(ctx, `Op-amp ${node.id}, values used by the engine`)), opampValuesTable(node.opamp))
-  return out
+  // The values as written; the values the engine uses are in each stage's parameter table.
+  return [heading(3, 'Op-amp ', code(node.id)), paragraph(AS_WRITTEN),
+    caption(nextTable(ctx, `Datasheet values of op-amp ${node.id}`)), entriesTable(node.entries, node.defaulted, 'opamp')]
 }
