@@ -53,7 +53,8 @@ function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<St
 
 /** Build the report tree: synchronous, no I/O, no chart library. */
 export function buildReport(input: ReportInput): ReportOutput {
-  const ctx: ReportContext = {figure: 0, table: 0, warnings: [], coverNotes: []}
+  const ctx: ReportContext = {figure: 0, table: 0, warnings: [], coverNotes: [],
+    opampEntries: new Map(input.parsed.opamps.map((o) => [o.id, o.entries] as const))}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
   // Notes that several stages share word for word are printed once, before the prose.
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))

@@ -3,6 +3,7 @@
  * numbers, and the build warnings collected on the way.
  */
 import type {CoverNote} from './types.js'
+import type {BlockEntry} from '../note/types.js'
 
 export interface ReportContext {
   /** Last figure number used. */
@@ -13,6 +14,8 @@ export interface ReportContext {
   warnings: string[]
   /** The open notes, in document order, as the sections place them (for the cover). */
   coverNotes: CoverNote[]
+  /** The entries of each opamp block by id, so a stage echoes its op-amp's values as written. */
+  opampEntries?: ReadonlyMap<string, readonly BlockEntry[]>
 }
 
 /** Take the next table number and return its caption text. */

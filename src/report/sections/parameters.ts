@@ -6,12 +6,12 @@ import type {BlockContent, Table} from 'mdast'
 import {ARCHETYPE_DISCLAIMER} from '../../engine/archetypes.js'
 import type {OpampParams} from '../../engine/types.js'
 import type {BlockEntry, DefaultedValue} from '../../note/types.js'
-import {q} from '../format.js'
+import {q as fq} from '../format.js'
+import {OPAMP_KEYS} from '../../note/keys.js'
 import {dimensionOfKey, echoValue} from '../echo.js'
 import {callout, code, emphasis, paragraph, table} from '../mdast.js'
 
 /** A 1/f corner, or "none" when there is none (0 Hz is no corner, not a frequency). */
-const corner = (f: number): string => (f > 0 ? q(f, 'Hz') : 'none')
 
 /** The sentence that stands once for every "as written" row of a parameter table. */
 export const AS_WRITTEN = 'Values are as written in the note (prefix kept, unit added) unless the Source column says otherwise.'
@@ -20,41 +20,51 @@ export const AS_WRITTEN = 'Values are as written in the note (prefix kept, unit 
  * Keys as written (Source left empty: `AS_WRITTEN` says it once), then the defaults applied,
  * marked as such; for a stage, then the op-amp's values as the engine uses them.
  */
-export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[], block: 'stage' | 'opamp' = 'stage', op: OpampParams | null = null): Table {
+export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[], block: 'stage' | 'opamp' = 'stage', op: OpampParams | null = null,
+  opEntries: readonly BlockEntry[] = []): Table {
   const rows: (string | ReturnType<typeof code>[] | ReturnType<typeof emphasis>[])[][] = [
     ...entries.map((e) => [[code(e.key)], echoValue(e.raw, dimensionOfKey(e.key.replace(/^require\./, ''), block)), '']),
     ...defaulted.map((d) => [[code(d.key)], echoValue(d.value, null), [emphasis('default applied')]])
   ]
   if (op !== null) {
-    for (const [name, value] of opampRows(op)) rows.push([name, value, [emphasis('op-amp, used')]])
+    for (const [name, value] of opampRows(op, opEntries)) rows.push([name, value, [emphasis('op-amp, used')]])
   }
   return table(['Key', 'Value', 'Source'], rows)
 }
 
-const dbOf = (linear: number): string => `${(20 * Math.log10(linear)).toFixed(1)} dB`
+const dbOfLinear = (linear: number): string => `${(20 * Math.log10(linear)).toFixed(1)} dB`
 
 /** An op-amp's values as the engine uses them. */
 export function opampValuesTable(op: OpampParams): Table {
   return table(['Parameter', 'Value used'], opampRows(op), ['left', 'right'])
 }
 
-function opampRows(op: OpampParams): string[][] {
+/** The op-amp's values; a value its block wrote is echoed as written (the author's prefix kept). */
+function opampRows(op: OpampParams, written: readonly BlockEntry[] = []): string[][] {
+  const raw = new Map<string, string>()
+  for (const e of written) {
+    const spec = (OPAMP_KEYS as Record<string, {field: string} | undefined>)[e.key]
+    if (spec !== undefined) raw.set(spec.field, echoValue(e.raw, dimensionOfKey(e.key, 'opamp')))
+  }
+  const q = (value: number | null, unit: string, field?: string): string => (field !== undefined ? raw.get(field) : undefined) ?? fq(value, unit)
+  const corner = (f: number, field: string): string => raw.get(field) ?? (f > 0 ? fq(f, 'Hz') : 'none')
+  const dbOf = (linear: number, field: string): string => raw.get(field) ?? dbOfLinear(linear)
   return [
     ['Input type', op.inputType],
-    ['Offset voltage, max at 25 °C', q(op.vos, 'V')],
-    ['Offset drift, max', q(op.vosDrift, 'V/K')],
-    ['Bias current, max at 25 °C', q(op.ib, 'A')],
-    ['Offset current, max at 25 °C', q(op.ios, 'A')],
-    ['Bias current, max over temperature', op.ibMax === null ? 'not entered' : q(op.ibMax, 'A')],
-    ['Offset current, max over temperature', op.iosMax === null ? 'not entered' : q(op.iosMax, 'A')],
-    ['Voltage noise density (white) / 1/f corner', `${q(op.en, 'V/√Hz')} / ${corner(op.enCorner)}`],
-    ['Current noise density (white) / 1/f corner', `${q(op.in, 'A/√Hz')} / ${corner(op.inCorner)}`],
-    ['Gain-bandwidth product', q(op.gbw, 'Hz')],
-    ['Open-loop gain', dbOf(op.aol)],
+    ['Offset voltage, max at 25 °C', q(op.vos, 'V', 'vos')],
+    ['Offset drift, max', q(op.vosDrift, 'V/K', 'vosDrift')],
+    ['Bias current, max at 25 °C', q(op.ib, 'A', 'ib')],
+    ['Offset current, max at 25 °C', q(op.ios, 'A', 'ios')],
+    ['Bias current, max over temperature', op.ibMax === null ? 'not entered' : q(op.ibMax, 'A', 'ibMax')],
+    ['Offset current, max over temperature', op.iosMax === null ? 'not entered' : q(op.iosMax, 'A', 'iosMax')],
+    ['Voltage noise density (white) / 1/f corner', `${q(op.en, 'V/√Hz', 'en')} / ${corner(op.enCorner, 'enCorner')}`],
+    ['Current noise density (white) / 1/f corner', `${q(op.in, 'A/√Hz', 'in')} / ${corner(op.inCorner, 'inCorner')}`],
+    ['Gain-bandwidth product', q(op.gbw, 'Hz', 'gbw')],
+    ['Open-loop gain', dbOf(op.aol, 'aol')],
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
-    ['CMRR / PSRR', `${dbOf(op.cmrr)} / ${dbOf(op.psrr)}`],
-    ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F')} / ${q(op.cinCm, 'F')}`],
-    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')]
+    ['CMRR / PSRR', `${dbOf(op.cmrr, 'cmrr')} / ${dbOf(op.psrr, 'psrr')}`],
+    ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F', 'cinDiff')} / ${q(op.cinCm, 'F', 'cinCm')}`],
+    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V', 'swingHeadroom')]
   ]
 }
 

@@ -62,7 +62,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   if (op.archetype) out.push(archetypeNotice(op))
   // One table: the stage's keys, the defaults applied and the op-amp's values as used.
   out.push(heading(3, 'Parameters'), paragraph(AS_WRITTEN), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
-    entriesTable(ev.block.entries, ev.block.defaulted, 'stage', op))
+    entriesTable(ev.block.entries, ev.block.defaulted, 'stage', op, ctx.opampEntries?.get(op.name) ?? []))
   out.push(heading(3, 'Results summary'), caption(nextTable(ctx, `Results of stage ${input.id}`)), summaryTable(result))
   out.push(...swingBlocks(ev))
 
