@@ -105,7 +105,19 @@ export function bodyStyle(ctx: RenderContext): TextStyle {
  * than the line cut into line-wide pieces (long-words.ts: pdfkit's own cutting is quadratic).
  */
 export function layoutText(ctx: RenderContext, text: string, font: FontKey, size: number, width: number, report = true): string {
-  return breakLongWords(ctx.glyphs.clean(text, font, report), width, size, (ch) => ctx.doc.widthOfString(ch))
+  return breakLongWords(ctx.glyphs.clean(keepTogether(text), font, report), width, size, (ch) => ctx.doc.widthOfString(ch))
+}
+
+/** A unit symbol (with its prefix) that follows a number, for `keepTogether`. */
+const UNIT_AFTER_NUMBER = /(\d) (?=[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|ppm|s|×)(?![A-Za-z]))/g
+
+/**
+ * No line break between a number and its unit ("12.4 mV" stays on one line): the space
+ * becomes a no-break space (U+00A0, which DejaVu Sans, Bold and Mono all carry; checked in
+ * test/render/keep-together.test.ts with fontkit). A reader copying the text gets a space.
+ */
+export function keepTogether(text: string): string {
+  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0')
 }
 
 /** Height of a one-style string `width` wide, measured as drawn. */
