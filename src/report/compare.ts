@@ -19,7 +19,8 @@ interface StageJson {
   dc: {contributors: {key: string; output: number}[]; worstCaseOutput: number; rssOutput: number; worstCaseInput: number; rssInput: number}
   noise: {outputRms: number; outputPeakToPeak: number; inputRms: number; contributors: {key: string; outputRms: number}[]}
   stability: {phaseMargin: number | null; crossover: number | null; bandwidth: number | null; peaking: number; suggestedCf: number | null}
-  requirements: {key: string; limit: number; value: number | null; met: boolean}[]
+  /** `kind` is absent in runs from before the limits (DESIGN §4.6): those rows are requirements. */
+  requirements: {key: string; kind?: string; limit: unknown; value: unknown; met: boolean | null}[]
 }
 
 export interface ValueChange {
@@ -67,7 +68,8 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   m.set('stability.peaking', {unit: 'dB', v: s.stability.peaking})
   m.set('stability.suggestedCf', {unit: 'F', v: s.stability.suggestedCf})
   for (const r of s.requirements) {
-    m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: r.value})
+    if (r.kind !== 'limit') m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: typeof r.value === 'number' ? r.value : null})
+    else if (typeof r.value === 'number') m.set(`limit.${r.key}`, {unit: r.key === 'slew' ? 'V/s' : r.key === 'output-current' ? 'A' : 'V', v: r.value})
   }
   return m
 }
@@ -109,7 +111,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
   const removedStages = [...a.keys()].filter((k) => !b.has(k))
   const addedStages = [...b.keys()].filter((k) => !a.has(k))
   const regressed = flips.some((f) => f.old === true && f.new === false) ||
-    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met))
+    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met === true))
   return {changes, flips, addedStages, removedStages, regressed}
 }
 
