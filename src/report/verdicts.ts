@@ -4,8 +4,8 @@
  * whose data is not entered is skipped: shown as such, and left out of the overall verdict.
  */
 import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine/types.js'
-import type {StageEvaluation} from './evaluate.js'
-import {LIMIT_LABELS, REQUIREMENT_LABELS, requirementUnit} from './labels.js'
+import type {StageEvaluation} from '../evaluate/index.js'
+import {LIMIT_LABELS, REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
 import type {CoverVerdict, Verdict} from './types.js'
 

@@ -2,7 +2,7 @@
  * The stage's requirement verdicts: value, limit, margin and a verdict word with its mark.
  */
 import type {BlockContent} from 'mdast'
-import type {StageEvaluation} from '../evaluate.js'
+import type {StageEvaluation} from '../../evaluate/index.js'
 import {verdictText} from '../format.js'
 import {callout, code, paragraph, table} from '../mdast.js'
 import {combine, counted, isSkipped, limitText, margin, requirementLabel, requirementValue, verdictOf} from '../verdicts.js'
