@@ -86,6 +86,8 @@ export const noteMessages = {
     key === 'rshunt'
       ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
       : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
+  implausible: (key: string, what: string, value: string, bound: string) =>
+    `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>
