@@ -61,6 +61,14 @@ export const limitText = (r: RequirementResult, t: Topology): string => {
   return `≤ ${requirementValue(r, 'limit', t)}`
 }
 
+/** The margin as a share of the limit, " (16 %)"; beyond ±10 000 % it says so rather than print an exponent. */
+function relative(m: number, limit: number): string {
+  if (limit === 0) return ''
+  const p = (m / Math.abs(limit)) * 100
+  if (!Number.isFinite(p)) return ''
+  return Math.abs(p) >= 1e4 ? ` (${p < 0 ? 'below −' : 'over '}10 000 %)` : ` (${p.toFixed(0)} %)`
+}
+
 /** Margin to the limit, signed so that positive is good, in the requirement's unit. */
 export function margin(r: RequirementResult, t: Topology): string {
   if (r.kind === 'limit') {
@@ -72,7 +80,7 @@ export function margin(r: RequirementResult, t: Topology): string {
     }
     if (r.key === 'slew' || r.key === 'output-current') {
       const m = r.limit - r.value
-      const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+      const rel = relative(m, r.limit)
       const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
       return q(m, unit) + rel + fpbw
     }
@@ -82,7 +90,7 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  const rel = relative(m, r.limit)
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 
