@@ -23,7 +23,7 @@ import {evaluateNote, type StageEvaluation} from '../evaluate/index.js'
 import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
-import {requirementValue} from '../report/verdicts.js'
+import {limitText, requirementValue} from '../report/verdicts.js'
 import {recordOf, type OutputRecord} from './cache.js'
 import {reportDate} from './dates.js'
 import {cliDiagnostic, diagnosticsOf, hasErrors, strictly, type Diagnostic} from './diagnostics.js'
@@ -159,9 +159,16 @@ function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
       else file.message(`Stage \`${ev.input.id}\`: ${n.text}`, opts)
     }
     for (const r of ev.result.requirements) {
-      if (r.met) continue
-      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
+      if (r.met !== false) continue
       const t = ev.input.topology
+      if (r.kind === 'limit') {
+        const text = `Limit \`${r.key}\` of ${baseline ? 'baseline ' : ''}stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${limitText(r, t)}`
+        const opts = {place: ev.block.position?.start, ruleId: 'limit-not-met', source: 'ampreview'}
+        if (baseline) file.info(`${text} (a baseline stage: shown, not counted)`, opts)
+        else file.message(text, opts)
+        continue
+      }
+      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
       const sense = REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
       const text = `Requirement \`${r.key}\` of ${baseline ? 'baseline ' : ''}stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${sense} ${requirementValue(r, 'limit', t)}`
       const opts = {place: entry ? {line: entry.line, column: entry.column} : ev.block.position?.start, ruleId: 'requirement-not-met', source: 'ampreview'}
@@ -199,13 +206,14 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = strictly(diagnostics)
-  // Baseline stages are shown but not counted (exit code, summary).
+  // Baseline stages are shown but not counted (exit code, summary). A limit not met fails
+  // like a requirement (exit 1); a skipped limit (met null) counts neither way.
   const requirements = evaluations.filter((ev) => ev.role !== 'baseline').flatMap((ev) => ev.result.requirements)
-  const notMet = requirements.filter((r) => !r.met).length
+  const notMet = requirements.filter((r) => r.met === false).length
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
     file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
-    met: requirements.length - notMet, notMet, exitCode, outputs: [], inputs
+    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: [], inputs
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
 

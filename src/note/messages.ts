@@ -82,8 +82,10 @@ export const noteMessages = {
     'Unexpected `ccomp` without `rcomp`, expected `rcomp` beside it (ccomp bypasses the compensation resistor): add `rcomp` or remove `ccomp`',
   cfWithoutRf: () =>
     'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
-  shuntParts: () =>
-    'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
+  shuntParts: (key = 'rshunt') =>
+    key === 'rshunt'
+      ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
+      : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
   implausible: (key: string, what: string, value: string, bound: string) =>
     `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>

@@ -4,7 +4,7 @@
  * look at several keys, defaults and the assembly of `StageInput` are in `stage-block.ts`.
  */
 import type {Point} from 'unist'
-import {REQUIREMENT_KEYS, TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
+import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, type Calibration, type RequirementKey, type Topology} from '../engine/types.js'
 import type {Dimension} from '../units/index.js'
 import type {Field} from './block-yaml.js'
 import type {Reporter} from './diagnostics.js'
@@ -33,6 +33,10 @@ export interface StageRead {
   resistors: Partial<Record<ResistorKey, ReadResistor>>
   quantities: Partial<Record<QuantityKey, number>>
   rshunt: number | null
+  rload: number | null
+  /** True when the supply was written as one value (`15 V`, read as 0 … 15 V). */
+  supplySingle: boolean
+  calibration: Calibration | null
   input: [number, number] | null
   supply: [number, number] | null
   temperature: [number, number] | null
@@ -101,7 +105,9 @@ function readResistor(field: Field, key: ResistorKey, read: StageRead, report: R
     report.error(problem, r.s.at(0), 'bad-value')
     return
   }
-  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && value < 1) {
+  // `rs: 10 mΩ` with the unit written out says milli plainly (a source or shunt of milliohms is
+  // real); a bare `10m`, or rf/rg under 1 Ω however written, is suspicious.
+  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && (r.value.unit === '' || key !== 'rs') && value < 1) {
     report.warn(noteMessages.milliOhm(key, formatQuantity(value, 'Ω')), r.s.at(0), 'suspicious-milliohm')
   }
   implausibleResistor(key, value, tempco, r.s.at(0), report)
@@ -130,9 +136,12 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
   const text = q.s.text.trim()
   // vref and noise-temperature may be negative; currents, capacitances and tolerances not.
   const signed = dim === 'voltage' || dim === 'temperature'
-  const what = dim === 'current' ? 'a current' : dim === 'fraction' ? 'a tolerance' : 'a capacitance'
+  const what = dim === 'current' ? 'a current' : dim === 'fraction' ? 'a tolerance' : dim === 'frequency' ? 'a frequency'
+    : dim === 'temperature-interval' ? 'a temperature interval' : 'a capacitance'
+  const mustBePositive = key === 'idark-doubling' || key === 'signal-frequency'
   const problem = !signed && q.value < 0
     ? noteMessages.negative(key, text, what)
+    : mustBePositive && q.value === 0 ? noteMessages.notPositive(key, text, what)
     : key === 'supply-tolerance' && q.value >= 1 ? noteMessages.supplyTolerance(text) : null
   if (problem !== null) {
     report.error(problem, q.s.at(0), 'bad-value')
@@ -144,7 +153,7 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null,
+    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
@@ -187,11 +196,15 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         const r = resistorOf(field, report)
         if (r === null) break
         const text = r.s.text.trim()
-        if (r.value.hasParts) report.error(noteMessages.shuntParts(), r.s.at(r.value.partsOffset), 'bad-value')
+        if (r.value.hasParts) report.error(noteMessages.shuntParts(key), r.s.at(r.value.partsOffset), 'bad-value')
         else if (r.value.value.value <= 0) report.error(noteMessages.notPositive(key, text, 'a resistance'), r.s.at(0), 'bad-value')
+        else if (key === 'rload') read.rload = r.value.value.value
         else read.rshunt = r.value.value.value
         break
       }
+      case 'calibration':
+        read.calibration = choiceOf(field, CALIBRATIONS, report)
+        break
       case 'quantity':
         readQuantityKey(field, key as QuantityKey, kind.dim, read, report)
         break
@@ -203,7 +216,11 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'supply': {
         const r = supplyOf(field, report)
-        if (r !== null) read.supply = r.value
+        if (r !== null) {
+          read.supply = r.value
+          const t = r.s.text.trim()
+          read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
+        }
         if (r !== null && Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
           report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
         }

@@ -13,7 +13,9 @@ const plural = (n: number, one: string, many: string): string => `${n} ${n === 1
 export function overallSentence(c: CoverSummary): string {
   const {stages, requirements, notMet} = c.counted
   const of = `${plural(requirements, 'requirement', 'requirements')} of ${plural(stages, 'stage', 'stages')}`
-  const left = c.baseline.length === 0 ? '' : ` (baseline ${c.baseline.length === 1 ? 'stage' : 'stages'} ${c.baseline.join(', ')} not counted)`
+  const baseline = c.baseline.length === 0 ? '' : ` (baseline ${c.baseline.length === 1 ? 'stage' : 'stages'} ${c.baseline.join(', ')} not counted)`
+  // Checked physical limits (DESIGN §4.6) count with the requirements; say so when there are any.
+  const left = (c.verdicts.some((v) => v.counted && v.requirement.endsWith('(limit)')) ? ' (physical limits included)' : '') + baseline
   if (requirements === 0) return `Overall: no requirements stated for the ${plural(stages, 'counted stage', 'counted stages')}${left}`
   switch (c.overall) {
     case 'met': return `Overall: all ${of} met${left}`

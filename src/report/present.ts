@@ -21,6 +21,7 @@ export function noisePresent(input: StageInput, key: NoiseKey): boolean {
     case 'r:rcomp': return has(input.rcomp)
     case 'r:rshunt': return input.rshunt !== null
     case 'shot': return input.idark > 0
+    case 'shot-signal': return input.topology === 'transimpedance' && (input.input[0] !== 0 || input.input[1] !== 0)
     case 'en':
     case 'in+':
     case 'in-':

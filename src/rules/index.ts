@@ -14,6 +14,7 @@ import eSeriesValues from './e-series-values.js'
 import fetBiasHotEnd from './fet-bias-hot-end.js'
 import followerFeedbackResistor from './follower-feedback-resistor.js'
 import hazardousVoltage from './hazardous-voltage.js'
+import limitDataMissing from './limit-data-missing.js'
 import lowValueResistor from './low-value-resistor.js'
 import lowerBiasInputType from './lower-bias-input-type.js'
 import matchedDcResistance from './matched-dc-resistance.js'
@@ -21,6 +22,7 @@ import outputSwing from './output-swing.js'
 import patientConnected from './patient-connected.js'
 import phaseMarginLow from './phase-margin-low.js'
 import resistorNoiseDominant from './resistor-noise-dominant.js'
+import temperatureNotEntered from './temperature-not-entered.js'
 import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
 import {RULE_IDS, type RuleId} from './ids.js'
 import type {Rule, RuleContext} from './rule.js'
@@ -39,12 +41,14 @@ export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'transimpedance-feedback-cap': transimpedanceFeedbackCap,
   'follower-feedback-resistor': followerFeedbackResistor,
   'output-swing': outputSwing,
+  'limit-data-missing': limitDataMissing,
   'bandwidth-margin': bandwidthMargin,
   'bias-compensation-resistor': biasCompensationResistor,
   'matched-dc-resistance': matchedDcResistance,
   'lower-bias-input-type': lowerBiasInputType,
   'fet-bias-hot-end': fetBiasHotEnd,
   'bias-over-temperature-missing': biasOverTemperatureMissing,
+  'temperature-not-entered': temperatureNotEntered,
   'resistor-noise-dominant': resistorNoiseDominant,
   'low-value-resistor': lowValueResistor,
   'e-series-values': eSeriesValues

@@ -19,6 +19,7 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
     vos: 75e-6, vosDrift: 0.8e-6, ib: 3e-9, ios: 1.5e-9, ibMax: null, iosMax: null, ibDoubling: null,
     en: 9e-9, enCorner: 5, in: 0.3e-12, inCorner: 50, gbw: 2e6, aol: fromDb(120), pmUnity: 60,
     cmrr: fromDb(110), psrr: fromDb(105), vcmRef: null, cinDiff: 3e-12, cinCm: 5e-12, slew: 1e6, swingHeadroom: 1.3,
+    swingHeadroomNeg: null, swingHeadroomPos: null, cmHeadroom: null, cmHeadroomNeg: null, cmHeadroomPos: null, ioutMax: null, rout: null,
     ...overrides
   }
 }
@@ -26,8 +27,8 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
 /** The fields every preset starts from: no optional element, no requirement. */
 const BLANK: Omit<StageInput, 'opamp' | 'rf' | 'rg' | 'rs' | 'input' | 'supply' | 'temperature' | 'band'> = {
   id: 'test-stage', title: 'Test stage', topology: 'noninverting',
-  rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0,
-  supplyTolerance: 0.05, noiseTemperature: 25, require: {}
+  rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, idarkMax: null, idarkDoubling: 10, vref: 0,
+  supplyTolerance: 0.05, noiseTemperature: 25, signalFrequency: null, rload: null, calibration: 'none', require: {}
 }
 
 /** The named stages (functions, so that every call gets fresh objects). */

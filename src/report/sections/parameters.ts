@@ -64,9 +64,17 @@ function opampRows(op: OpampParams, written: readonly BlockEntry[] = []): string
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
     ['CMRR / PSRR', `${dbOf(op.cmrr, 'cmrr')} / ${dbOf(op.psrr, 'psrr')}`],
     ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F', 'cinDiff')} / ${q(op.cinCm, 'F', 'cinCm')}`],
-    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V', 'swingHeadroom')]
+    ['Slew rate', op.slew === null ? 'not entered' : q(op.slew, 'V/s', 'slew')],
+    ['Output swing headroom, negative / positive rail',
+      `${entered(op.swingHeadroomNeg ?? op.swingHeadroom, 'V')} / ${entered(op.swingHeadroomPos ?? op.swingHeadroom, 'V')}`],
+    ['Input common-mode headroom, negative / positive rail',
+      `${entered(op.cmHeadroomNeg ?? op.cmHeadroom, 'V')} / ${entered(op.cmHeadroomPos ?? op.cmHeadroom, 'V')}`],
+    ['Output current, max', entered(op.ioutMax, 'A')],
+    ['Open-loop output resistance', entered(op.rout, 'Ω')]
   ]
 }
+
+const entered = (v: number | null, unit: string): string => (v === null ? 'not entered' : fq(v, unit))
 
 /** The archetype disclaimer, wherever an archetype is used. */
 export const archetypeNotice = (op: OpampParams): BlockContent =>

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {coincidingCurves, noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {coincidingCurves, noiseDensitySpec, TOTAL_LABEL, ZERO_SIGNAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, attributeValues, stageCurves, svgTexts} from './helpers.js'
@@ -11,11 +11,11 @@ const chartOf = (curves = stageCurves(), minShare?: number) =>
 
 describe('noiseDensitySpec()', () => {
   it('omits zero contributors and those under 0.1 % of the total everywhere', () => {
-    expect(chartOf().omitted).toEqual(['in+', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+    expect(chartOf().omitted).toEqual(['in+', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'])
   })
 
   it('keeps a small contributor when the share is lowered', () => {
-    expect(chartOf(stageCurves(), 1e-9).omitted).toEqual(['r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+    expect(chartOf(stageCurves(), 1e-9).omitted).toEqual(['r:rs', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'])
   })
 
   it('renders without warnings', async () => {
@@ -68,5 +68,16 @@ describe('coincidingCurves()', () => {
     const twin = {...curves, noiseDensity: {...curves.noiseDensity, 'r:rg': same}}
     expect(coincidingCurves(twin, ['en', 'r:rf', 'r:rg'])).toEqual([['r:rf', 'r:rg']])
     expect(coincidingCurves(curves, ['en', 'r:rf', 'r:rg'])).toEqual([])
+  })
+})
+
+describe('noiseDensitySpec() with a signal-dependent source', () => {
+  it('draws the zero-signal floor only when the signal\'s shot noise shows', () => {
+    const plain = stageCurves()
+    const series = (c: ReturnType<typeof stageCurves>): unknown[] =>
+      [...new Set(((noiseDensitySpec(c, {labels: {}}).spec as {data: {values: {series: string}[]}}).data.values).map((v) => v.series))]
+    expect(series(plain)).not.toContain(ZERO_SIGNAL_LABEL)
+    const floor = plain.noiseTotal.map((v) => v / 2)
+    expect(series({...plain, noiseTotalZeroSignal: floor})).toContain(ZERO_SIGNAL_LABEL)
   })
 })
