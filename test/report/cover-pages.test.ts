@@ -1,8 +1,10 @@
 /**
- * The cover and sign-off fit on one page for an ordinary note: every sample (open notes,
- * archetype and baseline lines included) and the starting note of every topology (no
- * open note). Read back with pdfjs: the closing statements are on page 1 and the body
- * starts on page 2. The sample's calibration code block is not split across pages.
+ * The cover and sign-off fit on one page for an ordinary note: the load-cell and photodiode
+ * samples (open notes and archetype lines included) and the starting note of every topology
+ * (no open note). Read back with pdfjs: the closing statements are on page 1 and the body
+ * starts on page 2. The reference-buffer sample (two stages, twelve verdict rows, a baseline)
+ * is longer than a page: its closing statements flow onto page 2, whole, before the body.
+ * The load-cell sample's calibration code block is not split across pages.
  */
 import {describe, expect, it} from 'vitest'
 import {readdirSync} from 'node:fs'
@@ -10,8 +12,9 @@ import {join} from 'node:path'
 import {readPdf} from '../render/helpers.js'
 import {pdfOf, ROOT} from './helpers.js'
 
+const LONG_COVER = 'reference-buffer.md'
 const NOTES = [
-  ...readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).map((f) => join(ROOT, 'sample-designs', f)),
+  ...readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md') && f !== LONG_COVER).map((f) => join(ROOT, 'sample-designs', f)),
   ...readdirSync(join(ROOT, 'test', 'fixtures', 'topologies')).filter((f) => f.endsWith('.md')).map((f) => join(ROOT, 'test', 'fixtures', 'topologies', f)),
 ].sort()
 
@@ -25,6 +28,16 @@ describe('the cover on one page', () => {
     expect(cover).toMatch(/page 1 of \d+/)
     expect(pages[1] ?? '').not.toContain('Limits of this report')
     expect(pages[1] ?? '').not.toContain('Sign-off statement')
+  }, 60_000)
+})
+
+describe('a cover longer than a page', () => {
+  it('flows its closing statements onto page 2, whole, and the body starts on page 3', async () => {
+    const pages = (await readPdf((await pdfOf(join(ROOT, 'sample-designs', LONG_COVER))).pdf)).pages
+    expect(pages[0]).toContain('Requirement verdicts')
+    expect(pages[1]).toContain('Limits of this report')
+    expect(pages[1]).not.toContain('Purpose')
+    expect(pages[2]).not.toContain('Limits of this report')
   }, 60_000)
 })
 
