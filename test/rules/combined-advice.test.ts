@@ -2,6 +2,7 @@
  * Rules must not contradict each other on one stage: a transimpedance stage whose rf noise
  * dominates and whose bandwidth margin is short gets one recommendation from both rules
  * (more gain-bandwidth), never "less gain in this stage" beside "more of the gain in rf".
+ * The input current is small (10 nA) so that its own shot noise does not outweigh rf's noise.
  */
 import {describe, expect, it} from 'vitest'
 import {evaluateStage} from '../../src/engine/index.js'
@@ -14,7 +15,7 @@ opamp: precision-jfet
 rf: 1M
 cf: 2.2p
 csource: 50p
-input: 0 .. 2u A
+input: 0 .. 10n A
 supply: ±5 V
 band: ${band}
 \`\`\`
