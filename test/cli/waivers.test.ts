@@ -18,6 +18,7 @@ csource: 50p
 input: 0 .. 2u A
 supply: ±5 V
 band: 10 .. 20k Hz
+temperature: 0 .. 50 °C
 require:
   phase-margin: 45 deg
 ${extra}\`\`\`
@@ -64,7 +65,7 @@ describe('rule ids and waivers', () => {
     const r = runCli(['check', join(dir, 'n.md')])
     expect(r.status).toBe(2)
     // The accept entry sits on line 20 of the note, indented by two spaces.
-    expect(r.stderr).toContain(`${join(dir, 'n.md')}:20:3: error: Unexpected rule \`bandwith-margin\` in \`accept\`, expected a rule id; did you mean \`bandwidth-margin\`?`)
+    expect(r.stderr).toContain(`${join(dir, 'n.md')}:21:3: error: Unexpected rule \`bandwith-margin\` in \`accept\`, expected a rule id; did you mean \`bandwidth-margin\`?`)
   })
 
   it('refuses an accepted rule without a reason', () => {
