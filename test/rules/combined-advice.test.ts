@@ -8,13 +8,15 @@ import {evaluateStage} from '../../src/engine/index.js'
 import {runRules} from '../../src/rules/index.js'
 import {inputOf} from '../note/helpers.js'
 
+// A small full-scale current (2 nA): the signal's own shot noise, √(2q·2 nA)·1 MΩ ≈ 25 nV/√Hz,
+// stays well under rf's 128 nV/√Hz, so the resistor noise dominates.
 const tia = (band: string): string => `\`\`\`stage rx
 topology: transimpedance
 opamp: precision-jfet
 rf: 1M
 cf: 2.2p
 csource: 50p
-input: 0 .. 2u A
+input: 0 .. 2n A
 supply: ±5 V
 band: ${band}
 \`\`\`
