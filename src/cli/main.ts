@@ -5,6 +5,7 @@
  * exits the process, so the tests can run it in-process; `index.ts` is the executable.
  */
 import {parseCliArgs, USAGE, UsageError, type CliArgs} from './args.js'
+import {printable} from './diagnostics.js'
 import {runBatch} from './batch.js'
 import {CompareInputError, compareCommand} from './compare.js'
 import {mergeCommand} from './merge.js'
@@ -77,11 +78,11 @@ export async function main(argv: string[], io: CliIO, abort: AbortController = n
     return await run(parseCliArgs(argv), abort, io)
   } catch (error) {
     if (error instanceof UsageError) {
-      err(`ampreview: ${error.message}\n\n${USAGE}\n`)
+      err(`ampreview: ${printable(error.message)}\n\n${USAGE}\n`)
     } else if (error instanceof CompareInputError || error instanceof MergeError) {
-      err(`ampreview: ${error.message}\n`)
+      err(`ampreview: ${printable(error.message)}\n`)
     } else {
-      err(`ampreview: ${error instanceof Error ? error.message : String(error)}\n`)
+      err(`ampreview: ${printable(error instanceof Error ? error.message : String(error))}\n`)
       if (debug && error instanceof Error && error.stack) err(`${error.stack}\n`)
     }
     return 2

@@ -84,6 +84,8 @@ export const noteMessages = {
     'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
   shuntParts: () =>
     'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
+  implausible: (key: string, what: string, value: string, bound: string) =>
+    `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>
