@@ -6,7 +6,8 @@ import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine
 import type {StageEvaluation} from '../evaluate/index.js'
 import {REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
-import type {CoverVerdict, Verdict} from './types.js'
+import {formatNumber} from '../units/format.js'
+import type {CoverNote, CoverSummary, CoverVerdict, Verdict} from './types.js'
 
 export const verdictOf = (r: RequirementResult): Verdict => (r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met')
 
@@ -30,7 +31,12 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  // Above 100 % a margin reads better as a ratio of value to limit ("15 ×") than as "1396 %".
+  const share = r.limit !== 0 ? m / Math.abs(r.limit) : null
+  const ratio = share === null ? null : sense === 'max' ? r.limit / r.value : r.value / r.limit
+  const rel = share === null ? '' : share > 1 && ratio !== null && Number.isFinite(ratio)
+    ? ` (${formatNumber(ratio, {digits: 2})} ×)`
+    : ` (${(share * 100).toFixed(0)} %)`
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 
@@ -40,6 +46,21 @@ export function coverRows(evaluations: StageEvaluation[]): CoverVerdict[] {
     requirement: REQUIREMENT_LABELS[r.key],
     value: requirementValue(r, 'value', ev.input.topology),
     limit: `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', ev.input.topology)}`,
-    verdict: verdictOf(r)
+    verdict: verdictOf(r),
+    counted: ev.role !== 'baseline'
   })))
+}
+
+/** The cover's summary of a note's evaluations; `notes` comes from the sections (their anchors). */
+export function coverSummary(evaluations: readonly StageEvaluation[], notes: CoverNote[]): CoverSummary {
+  const counted = evaluations.filter((ev) => ev.role !== 'baseline')
+  const requirements = counted.flatMap((ev) => ev.result.requirements)
+  return {
+    verdicts: coverRows([...evaluations]),
+    overall: combine(requirements.map(verdictOf)),
+    counted: {stages: counted.length, requirements: requirements.length, notMet: requirements.filter((r) => !r.met).length},
+    baseline: evaluations.filter((ev) => ev.role === 'baseline').map((ev) => ev.input.id),
+    archetypes: evaluations.filter((ev) => ev.input.opamp.archetype).map((ev) => ({stage: ev.input.id, opamp: ev.input.opamp.name})),
+    notes
+  }
 }

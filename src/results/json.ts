@@ -4,6 +4,9 @@
  * not exist is null (never NaN or Infinity).
  */
 import type {StageEvaluation} from '../evaluate/index.js'
+import type {Topology} from '../engine/types.js'
+import type {StageRole} from '../note/types.js'
+import type {RuleId} from '../rules/index.js'
 
 /** One diagnostic of a note, as the contract carries it. */
 export interface JsonDiagnostic {
@@ -11,6 +14,10 @@ export interface JsonDiagnostic {
   message: string
   line: number
   column: number
+  /** What raised it: a rule id, `requirement-not-met`, `unknown-key`, …; null when none. */
+  rule: string | null
+  /** `input`, `note` (a rule's note), `requirement` or `build`. */
+  kind: 'input' | 'note' | 'requirement' | 'build'
 }
 
 /** One note of a run: the path as given, the source's hash, its diagnostics and stages. */
@@ -28,7 +35,7 @@ export interface JsonRun {
 
 export interface JsonStage {
   id: string
-  topology: string
+  topology: Topology
   opamp: string
   gain: number
   noiseGain: number
@@ -36,7 +43,10 @@ export interface JsonStage {
   noise: StageEvaluation['result']['noise']
   stability: StageEvaluation['result']['stability']
   requirements: StageEvaluation['result']['requirements']
-  notes: {rule: string; severity: string; text: string}[]
+  /** Practice and safety notes; `accepted` is the author's reason when the stage's `accept:` accepts the rule, else null. */
+  notes: {rule: RuleId; severity: string; text: string; accepted: string | null}[]
+  /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
+  role: StageRole
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -75,7 +85,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       suggestedCf: finite(r.stability.suggestedCf)
     },
     requirements: r.requirements.map((q) => ({key: q.key, limit: q.limit, value: finite(q.value), met: q.met})),
-    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
+    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
+    role: ev.role
   }
 }
 
@@ -83,7 +94,7 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
 export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,
   sourceSha256: o.sourceSha256,
-  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
+  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column, rule: d.rule, kind: d.kind})),
   stages: o.stages
 })
 

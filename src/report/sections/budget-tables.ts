@@ -2,7 +2,8 @@
  * The stage's computed tables: results summary, DC error budget, noise budget, stability.
  */
 import type {Table} from 'mdast'
-import type {StageResult} from '../../engine/types.js'
+import type {StageInput, StageResult} from '../../engine/types.js'
+import {dcPresent, noisePresent} from '../present.js'
 import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../../results/labels.js'
 import {db, deg, pct, q} from '../format.js'
 import {code, strong} from '../mdast.js'
@@ -23,11 +24,11 @@ export function summaryTable(r: StageResult): Table {
   ], ['left', 'right'])
 }
 
-/** Every DC contributor, output- and input-referred, with its share of the worst case. */
-export function dcTable(r: StageResult): Table {
+/** Every DC contributor the circuit has, output- and input-referred, with its share of the worst case. */
+export function dcTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
-  const rows = r.dc.contributors.map((c) => [
+  const rows = r.dc.contributors.filter((c) => dcPresent(input, c.key)).map((c) => [
     [DC_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.output, 'V'),
     q(g > 0 ? c.output / g : null, iu),
@@ -41,12 +42,12 @@ export function dcTable(r: StageResult): Table {
     ['left', 'right', 'right', 'right'])
 }
 
-/** Every noise contributor's rms over the band, with its share of the total power. */
-export function noiseTable(r: StageResult): Table {
+/** Every noise contributor the circuit has: rms over the band, with its share of the total power. */
+export function noiseTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const total2 = r.noise.outputRms ** 2
-  const rows = r.noise.contributors.map((c) => [
+  const rows = r.noise.contributors.filter((c) => noisePresent(input, c.key)).map((c) => [
     [NOISE_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.outputRms, 'V'),
     q(g > 0 ? c.outputRms / g : null, iu),

@@ -26,9 +26,12 @@ export function requirementBlocks(ev: StageEvaluation): BlockContent[] {
   ])
   const overall = combine(reqs.map(verdictOf))
   const failed = reqs.filter((r) => verdictOf(r) === 'not-met').map((r) => r.key)
+  const baseline = ev.role === 'baseline'
+  const word = overall === 'met' ? 'ALL MET' : overall === 'not-met' ? 'NOT MET' : 'NOT EVALUATED'
   return [
     table(['Requirement', 'Value', 'Limit', 'Margin', 'Verdict'], rows, ['left', 'right', 'right', 'right', 'left']),
-    callout(overall, overall === 'met' ? 'ALL MET' : overall === 'not-met' ? 'NOT MET' : 'NOT EVALUATED', [
+    ...(baseline ? [paragraph('This is a baseline stage (', code('role: baseline'), '), kept for comparison: its verdicts are shown but count toward neither the overall verdict nor the exit code.')] : []),
+    callout(overall, baseline ? `${word} (BASELINE, NOT COUNTED)` : word, [
       paragraph(overall === 'met'
         ? `Stage ${ev.input.id} meets all ${reqs.length} of its requirements.`
         : overall === 'not-met'
