@@ -20,7 +20,7 @@ export interface CliArgs {
   force: boolean
   quiet: boolean
   watch: boolean
-  /** Worker threads; null = one per core. */
+  /** Worker threads; null = one per free core. */
   jobs: number | null
   markdown: boolean
   /** compare: relative change below which a value is left out, a fraction (default 0.001 = 0.1 %). */
@@ -54,7 +54,7 @@ Options:
   --format LIST  build outputs, comma-separated: pdf (default), json, md (Markdown + SVG charts)
   --force        rebuild notes even when their outputs are up to date
   --watch        keep running and rebuild a note each time it is saved
-  --jobs N       worker threads for a batch (default: one per core)
+  --jobs N       worker threads for a batch (default: one per free core)
   --shard I/N    only the notes of shard I of N (split by a hash of each note's path)
   --json         check: print one JSON object on stdout; diagnostics also go to stderr
   --markdown     compare: print the comparison as Markdown (for a CI comment)

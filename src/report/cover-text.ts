@@ -12,10 +12,11 @@ const plural = (n: number, one: string, many: string): string => `${n} ${n === 1
 /** "Overall: all 4 requirements of 1 stage met (baseline stage ref-buffer not counted)". */
 export function overallSentence(c: CoverSummary): string {
   const {stages, requirements, notMet} = c.counted
-  const of = `${plural(requirements, 'requirement', 'requirements')} of ${plural(stages, 'stage', 'stages')}`
-  const baseline = c.baseline.length === 0 ? '' : ` (baseline ${c.baseline.length === 1 ? 'stage' : 'stages'} ${c.baseline.join(', ')} not counted)`
-  // Checked physical limits (DESIGN §4.6) count with the requirements; say so when there are any.
-  const left = (c.verdicts.some((v) => v.counted && v.requirement.endsWith('(limit)')) ? ' (physical limits included)' : '') + baseline
+  // Checked physical limits (DESIGN §4.6) count with the requirements; the sentence says so.
+  const limits = c.verdicts.some((v) => v.counted && v.requirement.endsWith('(limit)'))
+  const what = limits ? plural(requirements, 'requirement or physical limit', 'requirements and physical limits') : plural(requirements, 'requirement', 'requirements')
+  const of = `${what} of ${plural(stages, 'stage', 'stages')}`
+  const left = c.baseline.length === 0 ? '' : ` (baseline ${c.baseline.length === 1 ? 'stage' : 'stages'} ${c.baseline.join(', ')} not counted)`
   if (requirements === 0) return `Overall: no requirements stated for the ${plural(stages, 'counted stage', 'counted stages')}${left}`
   switch (c.overall) {
     case 'met': return `Overall: all ${of} met${left}`

@@ -8,7 +8,10 @@ import {join} from 'node:path'
 import {describe, expect, it} from 'vitest'
 import {runCli, tempNotes} from './helpers.js'
 
-/** A transimpedance stage whose closed-loop bandwidth is only about 5 × the band's top (bandwidth-margin warns). */
+/**
+ * A transimpedance stage whose closed-loop bandwidth is only about 5 × the band's top
+ * (bandwidth-margin warns); its temperature range is entered so that no other caution fires.
+ */
 const stage = (id: string, extra = ''): string => `\`\`\`stage ${id}
 topology: transimpedance
 opamp: precision-jfet
@@ -18,7 +21,7 @@ csource: 50p
 input: 0 .. 2u A
 supply: ±5 V
 band: 10 .. 20k Hz
-temperature: 0 .. 50 °C
+temperature: 20 .. 30 °C
 require:
   phase-margin: 45 deg
 ${extra}\`\`\`
@@ -64,7 +67,7 @@ describe('rule ids and waivers', () => {
     const dir = tempNotes({'n.md': note(stage('rx', 'accept:\n  bandwith-margin: "typo"\n'))})
     const r = runCli(['check', join(dir, 'n.md')])
     expect(r.status).toBe(2)
-    // The accept entry sits on line 20 of the note, indented by two spaces.
+    // The accept entry sits on line 21 of the note, indented by two spaces.
     expect(r.stderr).toContain(`${join(dir, 'n.md')}:21:3: error: Unexpected rule \`bandwith-margin\` in \`accept\`, expected a rule id; did you mean \`bandwidth-margin\`?`)
   })
 

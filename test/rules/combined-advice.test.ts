@@ -2,20 +2,21 @@
  * Rules must not contradict each other on one stage: a transimpedance stage whose rf noise
  * dominates and whose bandwidth margin is short gets one recommendation from both rules
  * (more gain-bandwidth), never "less gain in this stage" beside "more of the gain in rf".
- * The input current is small (10 nA) so that its own shot noise does not outweigh rf's noise.
  */
 import {describe, expect, it} from 'vitest'
 import {evaluateStage} from '../../src/engine/index.js'
 import {runRules} from '../../src/rules/index.js'
 import {inputOf} from '../note/helpers.js'
 
+// A small full-scale current (2 nA): the signal's own shot noise, √(2q·2 nA)·1 MΩ ≈ 25 nV/√Hz,
+// stays well under rf's 128 nV/√Hz, so the resistor noise dominates.
 const tia = (band: string): string => `\`\`\`stage rx
 topology: transimpedance
 opamp: precision-jfet
 rf: 1M
 cf: 2.2p
 csource: 50p
-input: 0 .. 10n A
+input: 0 .. 2n A
 supply: ±5 V
 band: ${band}
 \`\`\`
