@@ -24,7 +24,11 @@ export const ARCHETYPE_DISCLAIMER =
 
 const dB = (x: number): number => 10 ** (x / 20)
 
-const base = {archetype: true, ibMax: null, iosMax: null, ibDoubling: null, vcmRef: null} as const
+const base = {
+  archetype: true, ibMax: null, iosMax: null, ibDoubling: null, vcmRef: null,
+  swingHeadroomNeg: null, swingHeadroomPos: null, cmHeadroom: null, cmHeadroomNeg: null, cmHeadroomPos: null,
+  ioutMax: null, rout: null
+} as const
 
 /** The archetypes, SI. Invented values (demo only), typical of each class. */
 export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {

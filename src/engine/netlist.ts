@@ -10,11 +10,11 @@
 import type {OpampPoles} from './opamp-model.js'
 
 /** Node names used by the topologies. */
-export const NODE_NAMES = ['gnd', 'src', 'x', 'p', 'm', 'o'] as const
+export const NODE_NAMES = ['gnd', 'src', 'ref', 'x', 'p', 'm', 'o'] as const
 export type NodeName = (typeof NODE_NAMES)[number]
 
 /** Labels of the elements; resistor labels double as noise keys `r:<label>`. */
-export type ElementLabel = 'rf' | 'rg' | 'rs' | 'rcomp' | 'rshunt' | 'cf' | 'ccomp' | 'cin-cm+' | 'cin-cm-' | 'cin-diff' | 'cstray' | 'csource'
+export type ElementLabel = 'rf' | 'rg' | 'rs' | 'rcomp' | 'rshunt' | 'rload' | 'cf' | 'ccomp' | 'cin-cm+' | 'cin-cm-' | 'cin-diff' | 'cstray' | 'csource'
 
 /** A two-terminal element as a topology writes it. */
 export interface SpecElement {
@@ -33,6 +33,12 @@ export interface NetlistSpec {
   wires: [NodeName, NodeName][]
   /** The signal source: a voltage at a node (to ground), or a current into a node. */
   drive: {kind: 'voltage' | 'current'; node: NodeName}
+  /**
+   * Ideal DC sources (vref and the like): each node is held at `volts` for the DC solve
+   * (`dc/solve.ts`) and is an AC ground for the small-signal circuit (an ideal, noiseless
+   * source). Absent = none.
+   */
+  dcSources?: {node: NodeName; volts: number}[]
   opamp: OpampPoles
 }
 
@@ -53,15 +59,22 @@ export interface Netlist {
   minus: number
   out: number
   drive: {kind: 'voltage' | 'current'; node: number}
+  /** Nodes held at a DC voltage (only when built with `keepDcSources`; else empty). */
+  dcSources: {node: number; volts: number}[]
   opamp: OpampPoles
 }
 
 // Merge priority: ground, then the driven source node, then the op-amp output, so that a
 // merged node keeps the role that fixes its voltage.
-const PRIORITY: Record<NodeName, number> = {gnd: 0, src: 1, o: 2, p: 3, m: 4, x: 5}
+// A DC source node ranks after the signal source for the same reason.
+const PRIORITY: Record<NodeName, number> = {gnd: 0, src: 1, ref: 2, o: 3, p: 4, m: 5, x: 6}
 
-/** Merge wired nodes, number the rest and compile the elements. */
-export function buildNetlist(spec: NetlistSpec): Netlist {
+/**
+ * Merge wired nodes, number the rest and compile the elements. For the small-signal circuit
+ * (the default) the `dcSources` nodes are joined to ground; `keepDcSources` leaves them as
+ * nodes of their own (the DC solve fixes their voltage).
+ */
+export function buildNetlist(spec: NetlistSpec, keepDcSources = false): Netlist {
   const parent = new Map<NodeName, NodeName>(NODE_NAMES.map((n) => [n, n]))
   const find = (n: NodeName): NodeName => {
     let r = n
@@ -76,6 +89,7 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
     else parent.set(ra, rb)
   }
   for (const [a, b] of spec.wires) join(a, b)
+  if (!keepDcSources) for (const d of spec.dcSources ?? []) join('gnd', d.node)
   for (const e of spec.elements) if (e.kind === 'r' && e.value === 0) join(e.a, e.b)
 
   const index = new Map<NodeName, number>([['gnd', 0]])
@@ -92,6 +106,7 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
   const minus = indexOf('m')
   const out = indexOf('o')
   const drive = {kind: spec.drive.kind, node: indexOf(spec.drive.node)}
+  const dcSources = keepDcSources ? (spec.dcSources ?? []).map((d) => ({node: indexOf(d.node), volts: d.volts})) : []
   const elements: NetElement[] = []
   for (const e of spec.elements) {
     if (e.kind === 'r' && e.value === 0) continue
@@ -101,5 +116,5 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
     if (a === b) continue
     elements.push({label: e.label, kind: e.kind === 'r' ? 'g' : 'c', a, b, value: e.kind === 'r' ? 1 / e.value : e.value})
   }
-  return {nodeCount: index.size, elements, plus, minus, out, drive, opamp: spec.opamp}
+  return {nodeCount: index.size, elements, plus, minus, out, drive, dcSources, opamp: spec.opamp}
 }

@@ -82,8 +82,10 @@ export const noteMessages = {
     'Unexpected `ccomp` without `rcomp`, expected `rcomp` beside it (ccomp bypasses the compensation resistor): add `rcomp` or remove `ccomp`',
   cfWithoutRf: () =>
     'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
-  shuntParts: () =>
-    'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
+  shuntParts: (key = 'rshunt') =>
+    key === 'rshunt'
+      ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
+      : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>

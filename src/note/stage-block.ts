@@ -22,7 +22,9 @@ export const STAGE_DEFAULTS = {
   /** Our decision: DESIGN is silent. 0.1 Hz .. 10 kHz covers a precision stage's usual band. */
   band: [0.1, 10e3] as const,
   noiseTemperature: 25,
-  vref: 0
+  vref: 0,
+  /** DESIGN §4.2: common practice for silicon photodiodes. */
+  idarkDoubling: 10
 } as const
 
 /** How a stage's `opamp:` is resolved; null after an error or when the opamp block has errors. */
@@ -93,6 +95,13 @@ function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedV
   for (const key of ['ccomp', 'cf', 'cstray', 'csource'] as const) add(key, formatQuantity(0, 'F'))
   add('rshunt', 'open')
   add('idark', formatQuantity(0, 'A'))
+  if ((read.quantities.idark ?? 0) > 0) {
+    add('idark-max', 'not entered (idark doubled every idark-doubling above 25 °C)')
+    add('idark-doubling', formatQuantity(STAGE_DEFAULTS.idarkDoubling, 'K'))
+  }
+  add('signal-frequency', 'the band’s top')
+  add('rload', 'none')
+  add('calibration', 'none')
   add('vref', formatQuantity(STAGE_DEFAULTS.vref, 'V'))
   add('supply-tolerance', formatPercent(STAGE_DEFAULTS.supplyTolerance))
   add('temperature', formatTemperatureRange(...STAGE_DEFAULTS.temperature))
@@ -134,13 +143,19 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     rshunt: read.rshunt,
     csource: q.csource ?? 0,
     idark: q.idark ?? 0,
+    idarkMax: q['idark-max'] ?? null,
+    idarkDoubling: q['idark-doubling'] ?? STAGE_DEFAULTS.idarkDoubling,
     vref: q.vref ?? STAGE_DEFAULTS.vref,
     input,
     supply,
     supplyTolerance: q['supply-tolerance'] ?? STAGE_DEFAULTS.supplyTolerance,
     temperature: read.temperature ?? [...STAGE_DEFAULTS.temperature],
+    temperatureEntered: read.temperature !== null,
     band: read.band ?? [...STAGE_DEFAULTS.band],
     noiseTemperature: q['noise-temperature'] ?? STAGE_DEFAULTS.noiseTemperature,
+    signalFrequency: q['signal-frequency'] ?? null,
+    rload: read.rload,
+    calibration: read.calibration ?? 'none',
     require: read.require
   }
   return {input: stage, defaulted: defaultsOf(read, topology, ctx.id)}

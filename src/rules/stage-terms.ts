@@ -3,7 +3,7 @@
  * largest DC contributor, the DC resistances at each input (DESIGN §4.1), and the
  * requirements that were not met. Plain reads; nothing here decides whether a rule fires.
  */
-import type {DcKey, NoiseKey, RequirementKey, RequirementResult, StageInput, StageResult} from '../engine/types.js'
+import type {DcKey, NoiseKey, RequirementKey, RequireResult, StageInput, StageResult} from '../engine/types.js'
 
 /** Output-referred magnitude of one DC contributor, V (0 when the topology does not list it). */
 export function dcTerm(result: StageResult, key: DcKey): number {
@@ -49,7 +49,7 @@ export function dcResistances(input: StageInput): {rn: number; rp: number} {
 }
 
 /** Requirements among `keys` that the stage does not meet. */
-export function unmetRequirements(result: StageResult, keys: readonly RequirementKey[]): RequirementResult[] {
-  return result.requirements.filter((r) => !r.met && keys.includes(r.key))
+export function unmetRequirements(result: StageResult, keys: readonly RequirementKey[]): RequireResult[] {
+  return result.requirements.filter((r): r is RequireResult => r.kind === 'require' && !r.met && keys.includes(r.key))
 }
 

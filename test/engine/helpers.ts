@@ -37,6 +37,13 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
     cinCm: 5e-12,
     slew: 1e6,
     swingHeadroom: 1.3,
+    swingHeadroomNeg: null,
+    swingHeadroomPos: null,
+    cmHeadroom: null,
+    cmHeadroomNeg: null,
+    cmHeadroomPos: null,
+    ioutMax: null,
+    rout: null,
     ...overrides
   }
 }
@@ -58,6 +65,8 @@ export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
     rshunt: null,
     csource: 0,
     idark: 0,
+    idarkMax: null,
+    idarkDoubling: 10,
     vref: 0,
     input: [-0.05, 0.05],
     supply: [-12, 12],
@@ -65,6 +74,9 @@ export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
     temperature: [-20, 70],
     band: [0.1, 1e3],
     noiseTemperature: 25,
+    signalFrequency: null,
+    rload: null,
+    calibration: 'none',
     require: {},
     ...overrides
   }

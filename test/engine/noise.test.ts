@@ -10,7 +10,7 @@ const KEYS: Record<StageInput['topology'], string[]> = {
   noninverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   inverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   follower: ['en', 'in+', 'in-', 'r:rf', 'r:rs', 'r:rcomp'],
-  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot']
+  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal']
 }
 
 describe('noiseAnalysis()', () => {

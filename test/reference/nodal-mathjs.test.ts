@@ -36,7 +36,7 @@ describe('engine nodal solve vs mathjs reference (Source: independent MNA with m
           let complexCompare = true
           if (key === 'en') ex = {en: 1}
           else if (key === 'in+') ex = {currents: [['p', 'gnd', 1]]}
-          else if (key === 'in-' || key === 'shot') ex = {currents: [['m', 'gnd', 1]]}
+          else if (key === 'in-' || key === 'shot' || key === 'shot-signal') ex = {currents: [['m', 'gnd', 1]]}
           else {
             const r = circ.r.find((e) => e[3] === key.slice(2))
             // An absent resistor has no noise: transfer 0.

@@ -32,6 +32,8 @@ export function stageInput(over: Partial<StageInput> = {}): StageInput {
     rshunt: null,
     csource: 0,
     idark: 0,
+    idarkMax: null,
+    idarkDoubling: 10,
     vref: 0,
     input: [-0.1, 0.1],
     supply: [-15, 15],
@@ -39,6 +41,9 @@ export function stageInput(over: Partial<StageInput> = {}): StageInput {
     temperature: [25, 25],
     band: [0.1, 100],
     noiseTemperature: 25,
+    signalFrequency: null,
+    rload: null,
+    calibration: 'none',
     require: {},
     ...over
   }
@@ -81,22 +86,23 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
     noiseGain: parts.noiseGain ?? Math.abs(gain),
     dc: {
       temperatureSpan: 0, fullScaleOutput, contributors: dcContributors,
-      worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain)
+      worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain),
+      calibrated: null
     },
     noise: {
-      band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, outputPeakToPeak: 6.6 * rms,
+      band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, zeroSignalOutputRms: rms, outputPeakToPeak: 6.6 * rms,
       inputRms: rms / Math.abs(gain), contributors: noiseContributors
     },
     stability: {phaseMargin: 60, crossover: 90e3, bandwidth: 90e3, peaking: 0, suggestedCf: null, ...parts.stability},
     requirements: parts.requirements ?? [],
     curves: {
       noiseFrequency: [], noiseDensity: emptyDensity(),
-      noiseTotal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: []
+      noiseTotal: [], noiseTotalZeroSignal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: []
     },
     swing: {outputSpan: [-1.1, 1.1], allowed: [-13.8, 13.8], excess: [0, 0], fits: true, ...parts.swing},
     bias: {
       ibMax: input.opamp.ib, iosMax: input.opamp.ios, ibSource: 'datasheet-25C', iosSource: 'datasheet-25C',
-      overTemperatureMissing: false, ...parts.bias
+      overTemperatureMissing: false, idarkMax: input.idark, idarkSource: 'doubling', ...parts.bias
     }
   }
 }

@@ -89,7 +89,8 @@ export const NOISE_STYLES: Record<NoiseKey, LineStyle> = {
   'r:rs': {colour: '#0e8c8c', dash: [12, 4], width: CONTRIBUTOR_WIDTH},
   'r:rcomp': {colour: '#a3234d', dash: [1, 3], width: CONTRIBUTOR_WIDTH},
   'r:rshunt': {colour: '#6b5a2a', dash: [6, 2, 2, 2, 2, 2], width: CONTRIBUTOR_WIDTH},
-  shot: {colour: '#5a6b7d', dash: [12, 3, 3, 3], width: CONTRIBUTOR_WIDTH}
+  shot: {colour: '#5a6b7d', dash: [12, 3, 3, 3], width: CONTRIBUTOR_WIDTH},
+  'shot-signal': {colour: '#b0306a', dash: [3, 2, 8, 2], width: CONTRIBUTOR_WIDTH}
 }
 
 /** The style of the total noise line: black, the only solid line, thicker than any contributor. */
