@@ -23,6 +23,8 @@ export interface ChainEvaluation {
   input: ChainInput
   result: ChainResult
   notes: RuleNote[]
+  /** The stages' topologies, in signal order (the first one sets the input's unit). */
+  topologies: string[]
 }
 
 /** The output span [low, high] of a stage over its input range (V). */
@@ -102,7 +104,7 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
       })
       const result = evaluateChain(input, views)
       const notes = runChainRules({input, result, stages: evaluated as EvaluatedStage[]})
-      out.push({block, input, result, notes})
+      out.push({block, input, result, notes, topologies: (evaluated as EvaluatedStage[]).map((s) => s.input.topology)})
     } catch (error) {
       const m = file.message(`Could not evaluate chain \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,
         {place: block.position?.start, ruleId: 'evaluation-failed', source: 'ampreview'})

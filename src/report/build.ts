@@ -12,12 +12,20 @@ import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
 import type {RuleNote} from '../rules/types.js'
-import {combine, coverRows, verdictOf} from './verdicts.js'
+import {combine, counted, coverRows, verdictOf} from './verdicts.js'
+import {paragraph} from './mdast.js'
+import {q} from './format.js'
 import type {ReportDocument} from './types.js'
+import type {ChainEvaluation} from '../evaluate/chains.js'
+import type {ChainBlockNode} from '../note/chain-types.js'
+import {adcSection, chainSection, failedChainSection} from './sections/chain.js'
+import {chainCoverRows, chainVerdictOf} from './chain-verdicts.js'
 
 export interface ReportInput {
   parsed: ParsedNote
   evaluations: StageEvaluation[]
+  /** Evaluated chains (DESIGN §8.6); none when absent. */
+  chains?: ChainEvaluation[]
   fonts: ChartFonts
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
   fragments: {method: Root; closing: Root}
@@ -36,21 +44,59 @@ type Parent = {children: RootContent[]}
 const hasChildren = (n: RootContent): n is RootContent & Parent =>
   'children' in n && Array.isArray((n as Partial<Parent>).children)
 
-async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[]): Promise<RootContent[]> {
+/** What the chain sections need besides the stage evaluations. */
+interface ChainsInReport {
+  byBlock: Map<ChainBlockNode, ChainEvaluation>
+  /** Stage id → its evaluation. */
+  stages: Map<string, StageEvaluation>
+  /** Stage id → where its input comes from, for a later stage of a chain. */
+  fed: Map<string, {chain: string; previous: string}>
+}
+
+/** A line at the top of a later chain stage's section: where its input range came from. */
+function fedLine(ev: StageEvaluation, chains: ChainsInReport): RootContent[] {
+  const fed = chains.fed.get(ev.input.id)
+  if (fed === undefined) return []
+  const [lo, hi] = ev.input.input
+  return [paragraph(`Input range ${q(lo, 'V')} … ${q(hi, 'V')}: the output of stage ${fed.previous} in chain ${fed.chain} (DESIGN §8.6), used throughout this section.`)]
+}
+
+async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[], chains: ChainsInReport): Promise<RootContent[]> {
   const out: RootContent[] = []
   for (const node of nodes) {
     if (node.type === 'stageBlock') {
       const ev = byBlock.get(node)
-      out.push(...(ev ? await stageSection(ctx, ev, shared) : failedStageSection(node)))
+      if (ev) {
+        const section = await stageSection(ctx, ev, shared)
+        out.push(...section.slice(0, 1), ...fedLine(ev, chains), ...section.slice(1))
+      } else out.push(...failedStageSection(node))
+    } else if (node.type === 'chainBlock') {
+      const ev = chains.byBlock.get(node)
+      out.push(...(ev ? await chainSection(ctx, ev, chains.stages) : failedChainSection(node)))
+    } else if (node.type === 'adcBlock') {
+      out.push(...adcSection(ctx, node))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
     } else if (hasChildren(node)) {
-      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock, shared)} as RootContent)
+      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
     } else {
       out.push(node)
     }
   }
   return out
+}
+
+function chainsInReport(input: ReportInput): ChainsInReport {
+  const chains = input.chains ?? []
+  const fed = new Map<string, {chain: string; previous: string}>()
+  for (const ev of chains) ev.result.stages.forEach((id, i) => {
+    if (i > 0) fed.set(id, {chain: ev.input.id, previous: ev.result.stages[i - 1]!})
+  })
+  return {
+    byBlock: new Map(chains.map((ev) => [ev.block, ev] as const)),
+    stages: new Map(input.evaluations.map((ev) => [ev.input.id, ev] as const)),
+    fed
+  }
 }
 
 export async function buildReport(input: ReportInput): Promise<ReportOutput> {
@@ -60,10 +106,14 @@ export async function buildReport(input: ReportInput): Promise<ReportOutput> {
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
   const body: Root = {type: 'root', children: [
     ...sharedNoteBlocks(shared),
-    ...(await replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared))
+    ...(await replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared, chainsInReport(input)))
   ]}
-  const verdicts = coverRows(input.evaluations)
-  const overall = combine(input.evaluations.flatMap((ev) => ev.result.requirements.map(verdictOf)))
+  const chains = input.chains ?? []
+  const verdicts = [...coverRows(input.evaluations), ...chainCoverRows(chains)]
+  const overall = combine([
+    ...input.evaluations.flatMap((ev) => counted(ev.result.requirements).map(verdictOf)),
+    ...chains.flatMap((ev) => ev.result.requirements.filter((r) => !(r.kind === 'limit' && r.met === null)).map(chainVerdictOf))
+  ])
   const document: ReportDocument = {
     meta: input.parsed.meta,
     cover: {verdicts, overall},

@@ -5,6 +5,9 @@
  */
 import type {RequirementResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
+import type {JsonChain} from './chain-json.js'
+
+export {jsonChain, type JsonChain} from './chain-json.js'
 
 /** One diagnostic of a note, as the contract carries it. */
 export interface JsonDiagnostic {
@@ -20,6 +23,8 @@ export interface JsonNote {
   sourceSha256: string
   diagnostics: JsonDiagnostic[]
   stages: JsonStage[]
+  /** Measurement chains (DESIGN §8.6); absent in results written before chains existed. */
+  chains?: JsonChain[]
 }
 
 /** The whole result of a run (`--json`, `<note>.json`, what `compare` and `merge` read). */
@@ -110,7 +115,8 @@ export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,
   sourceSha256: o.sourceSha256,
   diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
-  stages: o.stages
+  stages: o.stages,
+  chains: o.chains ?? []
 })
 
 /** JSON text with non-finite numbers as null (JSON.stringify already writes them as null; this makes it explicit). */

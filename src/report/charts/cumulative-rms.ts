@@ -17,7 +17,7 @@ import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logFrequencyX, plottablePoi
  * @param curves
  *   The stage's curves: `noiseFrequency` (Hz) and `cumulativeRms` (V) on it.
  */
-export function cumulativeRmsSpec(curves: StageCurves): TopLevelSpec {
+export function cumulativeRmsSpec(curves: Pick<StageCurves, 'noiseFrequency' | 'cumulativeRms'>, opts: {axisTitle?: string} = {}): TopLevelSpec {
   const points = plottablePoints(curves.noiseFrequency, curves.cumulativeRms, false)
   const xDomain = extent(points.map((p) => p.x), 'cumulative rms curve')
   const last = points[points.length - 1] as {x: number; y: number}
@@ -33,7 +33,7 @@ export function cumulativeRmsSpec(curves: StageCurves): TopLevelSpec {
         field: 'rms',
         type: 'quantitative',
         scale: {zero: true, nice: true},
-        axis: {title: 'Cumulative output noise (V rms)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
+        axis: {title: opts.axisTitle ?? 'Cumulative output noise (V rms)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
       }
     },
     layer: [
