@@ -31,7 +31,7 @@ const fixed = (v: number | null, unit: string, digits: number): string => (v ===
 
 /** A value in its unit: SI prefixes for V and A, fixed decimals for LSB, bits and dB. */
 export function chainQuantity(v: number | null, unit: string): string {
-  if (unit === 'LSB') return fixed(v, 'LSB', 1)
+  if (unit === 'LSB') return fixed(v, 'LSB', v === null || Math.abs(v) < 10 ? 2 : Math.abs(v) < 100 ? 1 : 0)
   if (unit === 'bits') return fixed(v, 'bits', 2)
   if (unit === 'dB') return fixed(v, 'dB', 1)
   return q(v, unit)

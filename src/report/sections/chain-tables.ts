@@ -20,7 +20,7 @@ const CONVERTER_LABELS: Record<string, string> = {
 const label = (source: string, key: string, converter: string | null): string =>
   source === converter ? CONVERTER_LABELS[key] ?? key : (DC_LABELS as Record<string, string>)[key] ?? key
 
-const lsbText = (v: number | null): string => (v === null ? '—' : `${v.toFixed(v < 10 ? 2 : 1)} LSB`)
+const lsbText = (v: number | null): string => (v === null ? '—' : `${v.toFixed(v < 10 ? 2 : v < 100 ? 1 : 0)} LSB`)
 
 export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows: {key: string; output: number}[]; contributors: Table; zeros: BlockContent[]} {
   const r = ev.result

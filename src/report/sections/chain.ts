@@ -126,6 +126,6 @@ export async function chainSection(ctx: ReportContext, ev: ChainEvaluation, stag
       'Both are capped at the converter’s bits; an ideal converter shows about bits − 0.93 noise-free bits from its own quantisation (LSB/√12).'))
   }
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
-  out.push(heading(3, 'Practice notes'), ...noteBlocks(ev.notes))
+  out.push(heading(3, 'Practice notes'), ...(ev.notes.length === 0 ? [paragraph('No chain rule was triggered by this chain.')] : noteBlocks(ev.notes)))
   return out
 }
