@@ -41,7 +41,8 @@ export function referenceCircuit(s: StageInput): RefCircuit {
     r.push(['m', 'o', rf, 'rf'])
     c.push(['m', 'o', s.cf])
   }
-  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : 'gnd'
+  // Inverting and transimpedance: the + pin returns to the vref source ('ref', 0 V unless excited).
+  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : 'ref'
   series(plusFrom, 'p', s.rcomp?.value, 'rcomp')
   if (s.rcomp) c.push([plusFrom, 'p', s.ccomp])
   switch (s.topology) {
@@ -74,9 +75,10 @@ export function referenceA(s: StageInput, f: number): Complex {
   return divide(complex(op.aol, 0), cmulm(p1, p2)) as Complex
 }
 
-/** Excitation: a voltage at 'src' (V), currents into nodes (A), en at the op-amp's input (V). */
+/** Excitation: a voltage at 'src' (V), vref at 'ref' (V), currents into nodes (A), en at the op-amp's input (V). */
 export interface Excitation {
   vsrc?: number
+  vref?: number
   currents?: [into: Node, from: Node, amps: number][]
   en?: number
 }
@@ -98,6 +100,7 @@ export function referenceOutput(s: StageInput, f: number, ex: Excitation): Compl
   // Unknowns: node voltages, then one branch current per voltage source (wires, src, VCVS).
   const vsrcs: {p: Node; n: Node; value: Complex; vcvs?: boolean}[] = circ.wires.map(([a, b]) => ({p: a, n: b, value: complex(0, 0)}))
   if (hasSrc) vsrcs.push({p: 'src', n: 'gnd', value: complex(ex.vsrc ?? 0, 0)})
+  if (names.has('ref')) vsrcs.push({p: 'ref', n: 'gnd', value: complex(ex.vref ?? 0, 0)})
   vsrcs.push({p: 'o', n: 'gnd', value: complex(0, 0), vcvs: true})
   const size = nodes.length + vsrcs.length
   const m: Complex[][] = Array.from({length: size}, () => Array.from({length: size}, () => complex(0, 0)))
