@@ -183,3 +183,17 @@ describe('converter range', () => {
     expect(outside.requirements.find((x) => x.key === 'converter-range')!.met).toBe(false)
   })
 })
+
+describe('chain bandwidth', () => {
+  // Analytic: two equal one-pole stages at fp give |H|² = 1/(1 + (f/fp)²)², which falls to
+  // 1/2 at f = fp·√(√2 − 1) (about 0.644·fp).
+  it('is fp·√(√2 − 1) for two equal one-pole stages', () => {
+    const r = evaluateChain(chainInput(['a', 'b'], null, [1, 10]), [syntheticStage('a', 2, 1e-9, 1e3), syntheticStage('b', 3, 1e-9, 1e3)])
+    expect(r.bandwidth! / (1e3 * Math.sqrt(Math.SQRT2 - 1))).toBeCloseTo(1, 6)
+  })
+
+  it('is the pole of a single one-pole stage', () => {
+    const r = evaluateChain(chainInput(['a'], null, [1, 10]), [syntheticStage('a', 1, 1e-9, 250)])
+    expect(r.bandwidth! / 250).toBeCloseTo(1, 6)
+  })
+})
