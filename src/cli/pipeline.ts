@@ -14,7 +14,7 @@
  * stops before the report and writes nothing.
  */
 import {createHash} from 'node:crypto'
-import {readFile, stat} from 'node:fs/promises'
+import {lstat, readFile, stat} from 'node:fs/promises'
 import {basename, dirname, extname, join, resolve} from 'node:path'
 import type {Root} from 'mdast'
 import {VFile} from 'vfile'
@@ -26,9 +26,10 @@ import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
+import {recordOf, type OutputRecord} from './cache.js'
 import {reportDate} from './dates.js'
 import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
-import {readImages} from './images.js'
+import {readImages, type ImageInput, type NoteImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
 import {writeAllAtomic} from './write.js'
 import type {Format} from './formats.js'
@@ -51,7 +52,7 @@ export interface NoteResources {
   version: string
   template: (name: string) => Promise<Template>
   /** The images the note's tree names (messages for refused ones go on `file`). */
-  images: (tree: Root, file: VFile) => Promise<Map<string, Uint8Array>>
+  images: (tree: Root, file: VFile) => Promise<NoteImages>
 }
 
 export interface RunOptions {
@@ -62,6 +63,11 @@ export interface RunOptions {
   /** Treat warnings as errors. */
   strict: boolean
   sourceDateEpoch: string | undefined
+  /**
+   * Existing files the outputs may replace (the cache's record of this note's outputs);
+   * any other existing file at an output path is refused. (optional: no check)
+   */
+  owned?: readonly string[]
 }
 
 export interface NoteOutcome {
@@ -80,6 +86,10 @@ export interface NoteOutcome {
   exitCode: 0 | 1 | 2
   /** Paths of the files written (absolute), if any. */
   outputs: string[]
+  /** The images the outputs embed, as read (for the build cache). (optional: none) */
+  inputs?: ImageInput[]
+  /** Size and hash of each file written (for the build cache). (optional: none) */
+  records?: OutputRecord[]
 }
 
 /** A run of one note before anything is written: the outcome and each output's name and contents. */
@@ -210,7 +220,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   markUnmet(file, evaluations)
   markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')
-  const images = wantPdf ? await res.images(parsed.tree, file) : new Map<string, Uint8Array>()
+  const {images, inputs} = wantPdf ? await res.images(parsed.tree, file) : {images: new Map<string, Uint8Array>(), inputs: []}
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') && !d.message.startsWith('Limit ') ? {...d, severity: 'error'} : d))
@@ -220,7 +230,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
     file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage), chains: chains.map(jsonChain),
-    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: []
+    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: [], inputs
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
 
@@ -228,34 +238,36 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   // A JSON-only build needs neither the report tree nor the charts.
   if (opts.formats.every((f) => f === 'json')) return {outcome, files: [jsonFile(outcome)]}
 
-  // 3. Report: the tree with each block replaced by its section. The report and render
-  //    modules (vega, pdfkit) load only when something is to be drawn, keeping `check` fast.
-  const [{buildReport}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
-    import('../report/build.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
+  // 3. Report: the tree with each block replaced by its section (synchronous, no chart
+  //    library). The render modules (vega, pdfkit) load only when something is to be
+  //    drawn, keeping `check` fast; the charts compile once for every format.
+  const [{buildReport}, {compileFigures}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
+    import('../report/build.js'), import('../render/chart/compile.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
   ])
-  const report = await buildReport({
-    parsed, evaluations, chains, fonts: {regular: fonts.regular, bold: fonts.bold},
+  const report = buildReport({
+    parsed, evaluations, chains,
     fragments: {method: template.method, closing: template.closing},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })
 
   // 4. Render every format asked for.
+  const figures = await compileFigures(report.document, {regular: fonts.regular, bold: fonts.bold})
   const files: NoteResult['files'] = []
   let renderWarnings: string[] = []
   if (wantPdf) {
     const rendered = await renderPdf(report.document, {
-      theme: template.theme, fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
+      theme: template.theme, fonts, images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
     files.push({name: outputName(name, 'pdf'), data: rendered.pdf})
   }
-  const warnings = [...report.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
+  const warnings = [...report.warnings, ...figures.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
   const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
   if (opts.formats.includes('json')) files.push(jsonFile(final))
   if (opts.formats.includes('md')) {
     const mdName = outputName(name, 'md')
     const stem = basename(mdName, '.md')
-    const md = reportToMarkdown(report.document, (n) => `${stem}.fig${n}.svg`)
+    const md = reportToMarkdown(report.document, figures, (n) => `${stem}.fig${n}.svg`)
     files.push({name: mdName, data: md.markdown}, ...md.figures.map((f) => ({name: f.name, data: f.svg})))
   }
   return {outcome: final, files}
@@ -265,14 +277,22 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
  * Write a result's files into `outDir` (null: beside the note), all or nothing. A failed
  * write becomes an error diagnostic (exit code 2) and replaces no earlier output.
  */
-export async function writeOutputs(result: NoteResult, outDir: string | null): Promise<NoteOutcome> {
+export async function writeOutputs(result: NoteResult, outDir: string | null, owned?: readonly string[]): Promise<NoteOutcome> {
   const o = result.outcome
   if (result.files.length === 0) return o
   const dir = outDir === null ? dirname(resolve(o.file)) : resolve(outDir)
   const files = result.files.map((f): [string, Uint8Array | string] => [join(dir, f.name), f.data])
+  if (owned !== undefined) {
+    for (const [path] of files) {
+      if (owned.includes(path) || !(await lstat(path).then(() => true, () => false))) continue
+      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
+        message: `Not written: ${path} exists and was not written by ampreview for this note; no output file was replaced (remove it, build into another folder with --out, or replace it with --force)`}
+      return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
+    }
+  }
   try {
     await writeAllAtomic(files)
-    return {...o, outputs: files.map(([p]) => p)}
+    return {...o, outputs: files.map(([p]) => p), records: files.map(([p, data]) => recordOf(p, data))}
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code
     const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
@@ -288,5 +308,5 @@ export async function writeOutputs(result: NoteResult, outDir: string | null): P
 export async function processNote(path: string, res: Resources, opts: RunOptions): Promise<NoteOutcome> {
   const read = await readNote(path, res)
   if (!read.ok) return read.outcome
-  return writeOutputs(await runNote(read.bytes, path, read.resources, opts), opts.outDir)
+  return writeOutputs(await runNote(read.bytes, path, read.resources, opts), opts.outDir, opts.owned)
 }

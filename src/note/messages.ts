@@ -8,8 +8,8 @@
 const q = (s: string): string => `\`${s}\``
 const hint = (suggestion: string | null): string => (suggestion === null ? '' : `; did you mean ${q(suggestion)}?`)
 
-/** A block kind's name, as in the one table of kinds. */
-export type BlockKind = import('./block-kinds.js').BlockLang
+/** A block kind's name, a key of the one table of kinds (./block-kinds.ts; not imported here, so no import loop). */
+export type BlockKind = string
 
 /** "stage `bridge-amp`", "front matter". */
 export const blockName = (kind: BlockKind, id: string | null): string => (id === null ? `${kind} block` : `${kind} ${q(id)}`)
@@ -84,6 +84,8 @@ export const noteMessages = {
     key === 'rshunt'
       ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
       : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
+  implausible: (key: string, what: string, value: string, bound: string) =>
+    `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>

@@ -7,7 +7,6 @@ import type {Root, RootContent} from 'mdast'
 import type {ParsedNote, StageBlockNode} from '../note/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
 import type {ReportContext} from './context.js'
-import type {ChartFonts} from './vega.js'
 import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
@@ -26,7 +25,6 @@ export interface ReportInput {
   evaluations: StageEvaluation[]
   /** Evaluated chains (DESIGN §8.6); none when absent. */
   chains?: ChainEvaluation[]
-  fonts: ChartFonts
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
   fragments: {method: Root; closing: Root}
   sourceSha256: string
@@ -36,7 +34,7 @@ export interface ReportInput {
 
 export interface ReportOutput {
   document: ReportDocument
-  /** Warnings met while building (chart warnings). */
+  /** Warnings met while building (none today; chart warnings arise where charts compile, in src/render). */
   warnings: string[]
 }
 
@@ -61,24 +59,24 @@ function fedLine(ev: StageEvaluation, chains: ChainsInReport): RootContent[] {
   return [paragraph(`Input range ${q(lo, 'V')} … ${q(hi, 'V')}: the output of stage ${fed.previous} in chain ${fed.chain} (DESIGN §8.6), used throughout this section.`)]
 }
 
-async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[], chains: ChainsInReport): Promise<RootContent[]> {
+function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[], chains: ChainsInReport): RootContent[] {
   const out: RootContent[] = []
   for (const node of nodes) {
     if (node.type === 'stageBlock') {
       const ev = byBlock.get(node)
       if (ev) {
-        const section = await stageSection(ctx, ev, shared)
+        const section = stageSection(ctx, ev, shared)
         out.push(...section.slice(0, 1), ...fedLine(ev, chains), ...section.slice(1))
       } else out.push(...failedStageSection(node))
     } else if (node.type === 'chainBlock') {
       const ev = chains.byBlock.get(node)
-      out.push(...(ev ? await chainSection(ctx, ev, chains.stages) : failedChainSection(node)))
+      out.push(...(ev ? chainSection(ctx, ev, chains.stages) : failedChainSection(node)))
     } else if (node.type === 'adcBlock') {
       out.push(...adcSection(ctx, node))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
     } else if (hasChildren(node)) {
-      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
+      out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
     } else {
       out.push(node)
     }
@@ -99,14 +97,15 @@ function chainsInReport(input: ReportInput): ChainsInReport {
   }
 }
 
-export async function buildReport(input: ReportInput): Promise<ReportOutput> {
-  const ctx: ReportContext = {fonts: input.fonts, figure: 0, table: 0, warnings: []}
+/** Build the report tree: synchronous, no I/O, no chart library. */
+export function buildReport(input: ReportInput): ReportOutput {
+  const ctx: ReportContext = {figure: 0, table: 0, warnings: []}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
   // Notes that several stages share word for word are printed once, before the prose.
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
   const body: Root = {type: 'root', children: [
     ...sharedNoteBlocks(shared),
-    ...(await replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared, chainsInReport(input)))
+    ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared, chainsInReport(input))
   ]}
   const chains = input.chains ?? []
   const verdicts = [...coverRows(input.evaluations), ...chainCoverRows(chains)]

@@ -86,7 +86,7 @@ export function failedChainSection(block: ChainBlockNode): BlockContent[] {
   return [heading(2, 'Chain ', code(block.id)), paragraph('This chain has errors and was not evaluated.')]
 }
 
-export async function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: ReadonlyMap<string, StageEvaluation>): Promise<BlockContent[]> {
+export function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: ReadonlyMap<string, StageEvaluation>): BlockContent[] {
   const r = ev.result
   const c = r.converter
   const unitIn = ev.topologies[0] === 'transimpedance' ? 'A' : 'V'
@@ -97,7 +97,7 @@ export async function chainSection(ctx: ReportContext, ev: ChainEvaluation, stag
       'Each later stage takes the previous stage’s output range as its input; stages are cascaded as ideal sources (each output impedance negligible against the next input).')
   ]
   if (c?.archetype) out.push(callout('info', 'ARCHETYPE', [paragraph(ADC_ARCHETYPE_DISCLAIMER)]))
-  out.push(await chainFigure(ctx, diagram(ev, stages), `Block diagram of chain ${ev.input.id}: stages with their gains, the range at every node`))
+  out.push(chainFigure(ctx, diagram(ev, stages), `Block diagram of chain ${ev.input.id}: stages with their gains, the range at every node`))
   out.push(heading(3, 'Signal range at every node'), caption(nextTable(ctx, `Signal range through chain ${ev.input.id}`)), nodeTable(ev))
   out.push(heading(3, 'Parameters'), caption(nextTable(ctx, `Parameters of chain ${ev.input.id}`)), entriesTable(ev.block.entries, ev.block.defaulted))
 
@@ -107,7 +107,7 @@ export async function chainSection(ctx: ReportContext, ev: ChainEvaluation, stag
       `then the converter’s own terms over ΔT = ${q(r.temperatureSpan, 'K')}` +
       (ev.input.calibration === 'none' ? '.' : `; the chain is calibrated (${ev.input.calibration}) as a whole.`)),
     caption(nextTable(ctx, `DC error of chain ${ev.input.id} by source`)), dc.bySource,
-    await chainFigure(ctx, dcBarsSpec({contributors: dc.sourceRows}, {labels: {}, axisTitle: 'Worst-case error at the converter input (V)'}),
+    chainFigure(ctx, dcBarsSpec({contributors: dc.sourceRows}, {labels: {}, axisTitle: 'Worst-case error at the converter input (V)'}),
       `DC error of chain ${ev.input.id} by source, at the converter input, largest first`),
     caption(nextTable(ctx, `DC error contributors of chain ${ev.input.id}`)), dc.contributors, ...dc.zeros)
 
@@ -116,8 +116,8 @@ export async function chainSection(ctx: ReportContext, ev: ChainEvaluation, stag
       `over ${q(r.band[0], 'Hz')} … ${q(r.band[1], 'Hz')} (brick-wall, after any digital filtering)` +
       (c === null ? '.' : `; at the converter σ = √(σchain² + noise² + LSB²/12).`)),
     caption(nextTable(ctx, `Noise of chain ${ev.input.id} by stage`)), chainNoiseTable(ev),
-    await chainFigure(ctx, chainNoiseDensitySpec(r.curves, r.stages), `Noise density of chain ${ev.input.id} at the converter input: each stage’s part and the total`),
-    await chainFigure(ctx, cumulativeRmsSpec({noiseFrequency: r.curves.frequency, cumulativeRms: r.curves.cumulativeRms}, {axisTitle: 'Cumulative noise at the converter input (V rms)'}),
+    chainFigure(ctx, chainNoiseDensitySpec(r.curves, r.stages), `Noise density of chain ${ev.input.id} at the converter input: each stage’s part and the total`),
+    chainFigure(ctx, cumulativeRmsSpec({noiseFrequency: r.curves.frequency, cumulativeRms: r.curves.cumulativeRms}, {axisTitle: 'Cumulative noise at the converter input (V rms)'}),
       `Cumulative noise of chain ${ev.input.id} from the band’s lower edge (analog chain only)`))
 
   out.push(heading(3, 'Resolution'), caption(nextTable(ctx, `Resolution figures of chain ${ev.input.id}`)), resolutionTable(ev))

@@ -40,7 +40,7 @@ export function failedStageSection(block: StageBlockNode): BlockContent[] {
   return [heading(2, 'Stage ', code(block.id)), paragraph('This block has errors and was not evaluated.')]
 }
 
-export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: readonly RuleNote[] = []): Promise<BlockContent[]> {
+export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: readonly RuleNote[] = []): BlockContent[] {
   const {input, result} = ev
   const op = input.opamp
   const out: BlockContent[] = [
@@ -58,15 +58,15 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
     paragraph(`Worst case over ${q(input.temperature[0], '°C')} … ${q(input.temperature[1], '°C')} ` +
       `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')}.`),
     ...biasBlocks(ev),
-    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), await dcFigure(ctx, ev))
+    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), dcFigure(ctx, ev))
 
   out.push(heading(3, 'Noise budget'),
     paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +
       'all sources uncorrelated, summed in power.'),
-    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...(await noiseFigures(ctx, ev)))
+    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...noiseFigures(ctx, ev))
 
   out.push(heading(3, 'Stability'), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
-    await loopFigure(ctx, ev))
+    loopFigure(ctx, ev))
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
   out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared))
