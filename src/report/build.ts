@@ -118,7 +118,7 @@ export function buildReport(input: ReportInput): ReportOutput {
     cover: {verdicts, overall},
     body,
     appendix: buildAppendix({
-      evaluations: input.evaluations, method: input.fragments.method,
+      evaluations: input.evaluations, chains, method: input.fragments.method,
       sourceSha256: input.sourceSha256, toolVersion: input.toolVersion, fileName: input.fileName
     }),
     closing: input.fragments.closing,
