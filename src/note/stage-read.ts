@@ -33,6 +33,8 @@ export interface StageRead {
   quantities: Partial<Record<QuantityKey, number>>
   rshunt: number | null
   rload: number | null
+  /** True when the supply was written as one value (`15 V`, read as 0 … 15 V). */
+  supplySingle: boolean
   calibration: Calibration | null
   input: [number, number] | null
   supply: [number, number] | null
@@ -86,7 +88,9 @@ function readResistor(field: Field, key: ResistorKey, read: StageRead, report: R
     report.error(problem, r.s.at(0), 'bad-value')
     return
   }
-  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && value < 1) {
+  // `rs: 10 mΩ` with the unit written out says milli plainly (a source or shunt of milliohms is
+  // real); a bare `10m`, or rf/rg under 1 Ω however written, is suspicious.
+  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && (r.value.unit === '' || key !== 'rs') && value < 1) {
     report.warn(noteMessages.milliOhm(key, formatQuantity(value, 'Ω')), r.s.at(0), 'suspicious-milliohm')
   }
   implausibleResistor(key, value, tempco, r.s.at(0), report)
@@ -132,7 +136,7 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, calibration: null,
+    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
@@ -195,9 +199,13 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'supply': {
         const r = supplyOf(field, report)
-        if (r !== null) read.supply = r.value
-        if (r !== null && Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
-          report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+        if (r !== null) {
+          read.supply = r.value
+          const t = r.s.text.trim()
+          read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
+          if (Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
+            report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+          }
         }
         break
       }

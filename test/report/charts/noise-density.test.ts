@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {noiseDensitySpec, TOTAL_LABEL, ZERO_SIGNAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, attributeValues, stageCurves, svgTexts} from './helpers.js'
@@ -11,11 +11,11 @@ const chartOf = (curves = stageCurves(), minShare?: number) =>
 
 describe('noiseDensitySpec()', () => {
   it('omits zero contributors and those under 0.1 % of the total everywhere', () => {
-    expect(chartOf().omitted).toEqual(['in+', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+    expect(chartOf().omitted).toEqual(['in+', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'])
   })
 
   it('keeps a small contributor when the share is lowered', () => {
-    expect(chartOf(stageCurves(), 1e-9).omitted).toEqual(['r:rs', 'r:rcomp', 'r:rshunt', 'shot'])
+    expect(chartOf(stageCurves(), 1e-9).omitted).toEqual(['r:rs', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'])
   })
 
   it('renders without warnings', async () => {
@@ -57,5 +57,16 @@ describe('noiseDensitySpec()', () => {
     const curves = stageCurves()
     curves.noiseTotal = curves.noiseTotal.map(() => 0)
     expect(() => noiseDensitySpec(curves, {labels: LABELS})).toThrow(RangeError)
+  })
+})
+
+describe('noiseDensitySpec() with a signal-dependent source', () => {
+  it('draws the zero-signal floor only when the signal\'s shot noise shows', () => {
+    const plain = stageCurves()
+    const series = (c: ReturnType<typeof stageCurves>): unknown[] =>
+      [...new Set(((noiseDensitySpec(c, {labels: {}}).spec as {data: {values: {series: string}[]}}).data.values).map((v) => v.series))]
+    expect(series(plain)).not.toContain(ZERO_SIGNAL_LABEL)
+    const floor = plain.noiseTotal.map((v) => v / 2)
+    expect(series({...plain, noiseTotalZeroSignal: floor})).toContain(ZERO_SIGNAL_LABEL)
   })
 })
