@@ -6,6 +6,7 @@
 import {CHAIN_REQUIREMENT_KEYS, type ChainRequirementKey, type ChainRequirementResult} from '../engine/chain/types.js'
 import type {ChainEvaluation} from '../evaluate/chains.js'
 import {q} from './format.js'
+import {relativeMargin} from './verdicts.js'
 import type {CoverVerdict, Verdict} from './types.js'
 
 export const CHAIN_REQUIREMENT_LABELS: Record<ChainRequirementKey, string> = {
@@ -61,7 +62,7 @@ export function chainMargin(ev: Pick<ChainEvaluation, 'topologies'>, r: ChainReq
   }
   if (r.value === null) return '—'
   const m = CHAIN_REQUIREMENT_KEYS[r.key].sense === 'max' ? r.limit - r.value : r.value - r.limit
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  const rel = relativeMargin(m, r.limit)
   return chainQuantity(m, chainUnit(ev, r.key)) + rel
 }
 

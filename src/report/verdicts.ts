@@ -61,6 +61,15 @@ export const limitText = (r: RequirementResult, t: Topology): string => {
   return `≤ ${requirementValue(r, 'limit', t)}`
 }
 
+/**
+ * The margin as a percentage of the limit, " (12 %)"; left out when there is no limit to
+ * divide by or when it would pass 100 000 % (an absurd input: the figure itself is flagged).
+ */
+export const relativeMargin = (m: number, limit: number): string => {
+  const pct = (m / Math.abs(limit)) * 100
+  return limit !== 0 && Number.isFinite(pct) && Math.abs(pct) < 1e5 ? ` (${pct.toFixed(0)} %)` : ''
+}
+
 /** Margin to the limit, signed so that positive is good, in the requirement's unit. */
 export function margin(r: RequirementResult, t: Topology): string {
   if (r.kind === 'limit') {
@@ -72,7 +81,7 @@ export function margin(r: RequirementResult, t: Topology): string {
     }
     if (r.key === 'slew' || r.key === 'output-current') {
       const m = r.limit - r.value
-      const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+      const rel = relativeMargin(m, r.limit)
       const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
       return q(m, unit) + rel + fpbw
     }
@@ -82,7 +91,7 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  const rel = relativeMargin(m, r.limit)
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 
