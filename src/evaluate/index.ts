@@ -5,18 +5,24 @@
 import type {VFile} from 'vfile'
 import {evaluateStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
-import type {ParsedNote, StageBlockNode} from '../note/types.js'
+import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
 import type {RuleNote} from '../rules/types.js'
 import {chainedInput, chainPlan, evaluateChains, type ChainEvaluation} from './chains.js'
 
 export {chainPlan, chainedInput, evaluateChains, outputSpanOf, type ChainEvaluation, type ChainPlan, type EvaluatedStage} from './chains.js'
+import {applyWaivers, roleOf, waiversOf} from './waivers.js'
+
+export {evaluateMessages, roleOf} from './waivers.js'
 
 export interface StageEvaluation {
   block: StageBlockNode
   input: StageInput
   result: StageResult
+  /** The rules' notes, those of accepted rules marked with the author's reason. */
   notes: RuleNote[]
+  /** `baseline` stages are shown but count toward neither the verdict nor the exit code. */
+  role: StageRole
 }
 
 /**
@@ -58,10 +64,11 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages
 }
 
 function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNote, file: VFile): StageEvaluation | null {
+  const waivers = waiversOf(block, file)
   try {
     const result = evaluateStage(input)
-    const notes = runRules({input, result, context: parsed.meta.context})
-    return {block, input, result, notes}
+    const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
+    return {block, input, result, notes, role: roleOf(block)}
   } catch (error) {
     const m = file.message(
       `Could not evaluate stage \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,

@@ -14,6 +14,7 @@ import {
   type QuantityKey, type ResistorKey
 } from './keys.js'
 import {noteMessages} from './messages.js'
+import {STAGE_ROLES} from './types.js'
 import {choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
 import {formatQuantity, formatRange, formatTempco} from '../units/index.js'
 
@@ -72,6 +73,22 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
       continue
     }
     read.require[key] = q.value
+  }
+}
+
+/** `accept:` must be a map whose every value is a reason; the rule ids are checked by src/evaluate. */
+function readAccept(field: Field, report: Reporter): void {
+  const v = field.value
+  if (v.type === 'scalar' && v.text === null) return
+  if (v.type !== 'map') {
+    report.error(noteMessages.acceptNotMap(), v.type === 'scalar' ? v.at(0) : v.at, 'bad-value')
+    return
+  }
+  for (const sub of v.fields) {
+    const rule = sub.key.slice('accept.'.length)
+    if (sub.value.type !== 'scalar' || sub.value.text === null || sub.value.text.trim() === '') {
+      report.error(noteMessages.acceptNoReason(rule), sub.keyAt, 'bad-value')
+    }
   }
 }
 
@@ -224,6 +241,16 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'require':
         readRequire(field, read, report)
+        break
+      case 'role': {
+        const s = scalarOf(field, '`design` or `baseline`', report)
+        if (s === null) break
+        const value = s.text.trim()
+        if (!(STAGE_ROLES as readonly string[]).includes(value)) report.error(noteMessages.unknownRole(value, didYouMean(value, STAGE_ROLES)), s.at(0), 'bad-value')
+        break
+      }
+      case 'accept':
+        readAccept(field, report)
         break
     }
   }

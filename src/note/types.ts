@@ -12,6 +12,14 @@ export type HazardContext = (typeof HAZARD_CONTEXTS)[number]
 export const DOCUMENT_STATUSES = ['draft', 'for-review', 'approved'] as const
 export type DocumentStatus = (typeof DOCUMENT_STATUSES)[number]
 
+/**
+ * What a stage is in the review: `design` (the default) counts toward the verdict and the
+ * exit code; `baseline` (e.g. the circuit as drawn, kept for comparison) is evaluated and
+ * shown, but its verdicts do not count.
+ */
+export const STAGE_ROLES = ['design', 'baseline'] as const
+export type StageRole = (typeof STAGE_ROLES)[number]
+
 export interface Reviewer {
   /** Person's name; may be empty (a row to fill in by hand). */
   name: string

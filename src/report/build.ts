@@ -11,7 +11,7 @@ import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
 import type {RuleNote} from '../rules/types.js'
-import {combine, counted, coverRows, verdictOf} from './verdicts.js'
+import {coverSummary} from './verdicts.js'
 import {paragraph} from './mdast.js'
 import {q} from './format.js'
 import type {ReportDocument} from './types.js'
@@ -99,23 +99,18 @@ function chainsInReport(input: ReportInput): ChainsInReport {
 
 /** Build the report tree: synchronous, no I/O, no chart library. */
 export function buildReport(input: ReportInput): ReportOutput {
-  const ctx: ReportContext = {figure: 0, table: 0, warnings: []}
+  const ctx: ReportContext = {figure: 0, table: 0, warnings: [], coverNotes: []}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
   // Notes that several stages share word for word are printed once, before the prose.
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
   const body: Root = {type: 'root', children: [
-    ...sharedNoteBlocks(shared),
+    ...sharedNoteBlocks(shared, ctx.coverNotes),
     ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared, chainsInReport(input))
   ]}
   const chains = input.chains ?? []
-  const verdicts = [...coverRows(input.evaluations), ...chainCoverRows(chains)]
-  const overall = combine([
-    ...input.evaluations.flatMap((ev) => counted(ev.result.requirements).map(verdictOf)),
-    ...chains.flatMap((ev) => ev.result.requirements.filter((r) => !(r.kind === 'limit' && r.met === null)).map(chainVerdictOf))
-  ])
   const document: ReportDocument = {
     meta: input.parsed.meta,
-    cover: {verdicts, overall},
+    cover: coverSummary(input.evaluations, ctx.coverNotes, chainCoverRows(chains)),
     body,
     appendix: buildAppendix({
       evaluations: input.evaluations, chains, method: input.fragments.method,

@@ -6,7 +6,7 @@
 import {CHAIN_REQUIREMENT_KEYS, type ChainRequirementKey, type ChainRequirementResult} from '../engine/chain/types.js'
 import type {ChainEvaluation} from '../evaluate/chains.js'
 import {q} from './format.js'
-import {relativeMargin} from './verdicts.js'
+import {relative as relativeMargin} from './verdicts.js'
 import type {CoverVerdict, Verdict} from './types.js'
 
 export const CHAIN_REQUIREMENT_LABELS: Record<ChainRequirementKey, string> = {
@@ -73,6 +73,7 @@ export function chainCoverRows(chains: readonly ChainEvaluation[]): CoverVerdict
     requirement: chainRequirementLabel(r),
     value: chainRequirementValue(ev, r, 'value'),
     limit: chainLimitText(ev, r),
-    verdict: chainVerdictOf(r)
+    verdict: chainVerdictOf(r),
+    counted: true
   })))
 }

@@ -102,8 +102,14 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   return m
 }
 
-const differs = (a: number | null, b: number | null): boolean =>
-  a === null || b === null ? a !== b : Math.abs(a - b) > REL * Math.max(Math.abs(a), Math.abs(b), 1e-30)
+/** A change worth printing: appeared or vanished, or moved by more than `threshold` (relative; at least rounding noise). */
+const differs = (a: number | null, b: number | null, threshold: number): boolean =>
+  a === null || b === null ? a !== b : Math.abs(a - b) > Math.max(threshold, REL) * Math.max(Math.abs(a), Math.abs(b), 1e-30)
+
+export interface CompareOptions {
+  /** Relative change below which a value is left out, a fraction (default 0: every change). Verdict flips are always listed. */
+  threshold?: number
+}
 
 /** Stages by id; prefixed by the note's file name when either side holds several notes. */
 function stagesOf(run: RunJson, multi: boolean): Map<string, StageJson> {
@@ -112,7 +118,8 @@ function stagesOf(run: RunJson, multi: boolean): Map<string, StageJson> {
   return out
 }
 
-export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
+export function compareRuns(oldRun: RunJson, newRun: RunJson, opts: CompareOptions = {}): Comparison {
+  const threshold = opts.threshold ?? 0
   const multi = oldRun.files.length > 1 || newRun.files.length > 1
   const a = stagesOf(oldRun, multi)
   const b = stagesOf(newRun, multi)
@@ -126,7 +133,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
     for (const name of new Set([...vo.keys(), ...vn.keys()])) {
       const o = vo.get(name)?.v ?? null
       const n = vn.get(name)?.v ?? null
-      if (differs(o, n)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+      if (differs(o, n, threshold)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
     }
     const ro = new Map(so.requirements.map((r) => [r.key, r.met]))
     const rn = new Map(sn.requirements.map((r) => [r.key, r.met]))
@@ -146,7 +153,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
     for (const name of new Set([...vo.keys(), ...vn.keys()])) {
       const o = vo.get(name)?.v ?? null
       const n = vn.get(name)?.v ?? null
-      if (differs(o, n)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+      if (differs(o, n, threshold)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
     }
     const ro = new Map(co.requirements.map((r) => [r.key, r.met] as const))
     const rn = new Map(cn.requirements.map((r) => [r.key, r.met] as const))

@@ -8,6 +8,9 @@ import type {StageEvaluation} from '../evaluate/index.js'
 import type {JsonChain} from './chain-json.js'
 
 export {jsonChain, type JsonChain} from './chain-json.js'
+import type {Topology} from '../engine/types.js'
+import type {StageRole} from '../note/types.js'
+import type {NoteRuleId} from '../rules/index.js'
 
 /** One diagnostic of a note, as the contract carries it. */
 export interface JsonDiagnostic {
@@ -15,6 +18,10 @@ export interface JsonDiagnostic {
   message: string
   line: number
   column: number
+  /** What raised it: a rule id, `requirement-not-met`, `unknown-key`, …; null when none. */
+  rule: string | null
+  /** `input`, `note` (a rule's note), `requirement` or `build`. */
+  kind: 'input' | 'note' | 'requirement' | 'build'
 }
 
 /** One note of a run: the path as given, the source's hash, its diagnostics and stages. */
@@ -34,7 +41,7 @@ export interface JsonRun {
 
 export interface JsonStage {
   id: string
-  topology: string
+  topology: Topology
   opamp: string
   gain: number
   noiseGain: number
@@ -42,7 +49,10 @@ export interface JsonStage {
   noise: StageEvaluation['result']['noise']
   stability: StageEvaluation['result']['stability']
   requirements: StageEvaluation['result']['requirements']
-  notes: {rule: string; severity: string; text: string}[]
+  /** Practice and safety notes; `accepted` is the author's reason when the stage's `accept:` accepts the rule, else null. */
+  notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
+  /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
+  role: StageRole
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -90,7 +100,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       suggestedCf: finite(r.stability.suggestedCf)
     },
     requirements: r.requirements.map(jsonRequirement),
-    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
+    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
+    role: ev.role
   }
 }
 
@@ -114,7 +125,7 @@ function jsonRequirement(q: RequirementResult): RequirementResult {
 export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,
   sourceSha256: o.sourceSha256,
-  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
+  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column, rule: d.rule, kind: d.kind})),
   stages: o.stages,
   chains: o.chains ?? []
 })

@@ -9,7 +9,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {StageCurves} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, FONT_SIZE, INK, TOTAL_STYLE} from './theme.js'
-import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logFrequencyX, plottablePoints, siTextExpr} from './scales.js'
+import {extent, logFrequencyX, plottablePoints, prefixedAxis, siTextExpr} from './scales.js'
 
 /**
  * Spec of the cumulative-rms chart.
@@ -33,7 +33,7 @@ export function cumulativeRmsSpec(curves: Pick<StageCurves, 'noiseFrequency' | '
         field: 'rms',
         type: 'quantitative',
         scale: {zero: true, nice: true},
-        axis: {title: opts.axisTitle ?? 'Cumulative output noise (V rms)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
+        axis: {...prefixedAxis(opts.axisTitle ?? 'Cumulative output noise, rms', 'V', Math.max(0, extent(points.map((p) => p.y), 'cumulative rms')[1])), grid: true, tickCount: 6}
       }
     },
     layer: [

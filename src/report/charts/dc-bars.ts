@@ -9,7 +9,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {DcBudget} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_OUTER_WIDTH, FONT_SIZE, INK} from './theme.js'
-import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, siTextExpr} from './scales.js'
+import {prefixedAxis, siTextExpr} from './scales.js'
 
 export interface DcBarsOptions {
   /** Readable name of each contributor key (e.g. `vos` → "Offset voltage"); the key itself when absent. */
@@ -70,7 +70,7 @@ export function dcBarsSpec(dc: {contributors: DcBudget['contributors'] | readonl
         field: 'output',
         type: 'quantitative',
         scale: {domain: [0, xMax], nice: false, zero: true},
-        axis: {title: opts.axisTitle ?? 'Output-referred error (V)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
+        axis: {...prefixedAxis(opts.axisTitle ?? 'Output-referred error', 'V', largest), grid: true, tickCount: 6}
       }
     },
     layer: [

@@ -107,7 +107,7 @@ export function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: Re
       `then the converter’s own terms over ΔT = ${q(r.temperatureSpan, 'K')}` +
       (ev.input.calibration === 'none' ? '.' : `; the chain is calibrated (${ev.input.calibration}) as a whole.`)),
     caption(nextTable(ctx, `DC error of chain ${ev.input.id} by source`)), dc.bySource,
-    chainFigure(ctx, dcBarsSpec({contributors: dc.sourceRows}, {labels: {}, axisTitle: 'Worst-case error at the converter input (V)'}),
+    chainFigure(ctx, dcBarsSpec({contributors: dc.sourceRows}, {labels: {}, axisTitle: 'Worst-case error at the converter input'}),
       `DC error of chain ${ev.input.id} by source, at the converter input, largest first`),
     caption(nextTable(ctx, `DC error contributors of chain ${ev.input.id}`)), dc.contributors, ...dc.zeros)
 
@@ -117,7 +117,7 @@ export function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: Re
       (c === null ? '.' : `; at the converter σ = √(σchain² + noise² + LSB²/12).`)),
     caption(nextTable(ctx, `Noise of chain ${ev.input.id} by stage`)), chainNoiseTable(ev),
     chainFigure(ctx, chainNoiseDensitySpec(r.curves, r.stages), `Noise density of chain ${ev.input.id} at the converter input: each stage’s part and the total`),
-    chainFigure(ctx, cumulativeRmsSpec({noiseFrequency: r.curves.frequency, cumulativeRms: r.curves.cumulativeRms}, {axisTitle: 'Cumulative noise at the converter input (V rms)'}),
+    chainFigure(ctx, cumulativeRmsSpec({noiseFrequency: r.curves.frequency, cumulativeRms: r.curves.cumulativeRms}, {axisTitle: 'Cumulative noise at the converter input, rms'}),
       `Cumulative noise of chain ${ev.input.id} from the band’s lower edge (analog chain only)`))
 
   out.push(heading(3, 'Resolution'), caption(nextTable(ctx, `Resolution figures of chain ${ev.input.id}`)), resolutionTable(ev))

@@ -11,8 +11,9 @@ import type {ChainRule, ChainRuleContext} from './rule.js'
 
 export type {ChainRule, ChainRuleContext} from './rule.js'
 
-export const CHAIN_RULE_IDS = ['chain-aliasing', 'chain-range-underused', 'chain-later-stage-noise', 'chain-converter-noise'] as const
-export type ChainRuleId = (typeof CHAIN_RULE_IDS)[number]
+import {CHAIN_RULE_IDS, type ChainRuleId} from '../ids.js'
+
+export {CHAIN_RULE_IDS, type ChainRuleId} from '../ids.js'
 
 export const CHAIN_RULES: {readonly [Id in ChainRuleId]: ChainRule<Id>} = {
   'chain-aliasing': chainAliasing,
