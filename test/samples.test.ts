@@ -87,7 +87,12 @@ describe('sample designs', () => {
     const out = JSON.parse(r.stdout) as {files: Json[]}
     expect(out.files).toHaveLength(1)
     const f = out.files[0]!
-    expect(Object.keys(f)).toEqual(['file', 'sourceSha256', 'diagnostics', 'stages'])
+    expect(Object.keys(f)).toEqual(['file', 'sourceSha256', 'diagnostics', 'stages', 'chains'])
+    for (const c of f['chains'] as Json[]) {
+      expect(Object.keys(c)).toEqual(['id', 'stages', 'gain', 'bandwidth', 'rangeUsed', 'dc', 'noise', 'aliasRejection', 'requirements', 'notes'])
+      expect(Object.keys(c['dc'] as Json)).toEqual(['contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'worstCaseLsb', 'calibrated'])
+      expect(Object.keys(c['noise'] as Json)).toEqual(['outputRms', 'zeroSignalOutputRms', 'inputRms', 'converterRms', 'noiseFreeBits', 'effectiveBits', 'widebandRms'])
+    }
     expect((f['stages'] as Json[]).length).toBeGreaterThan(0)
     for (const s of f['stages'] as Json[]) checkStage(s)
   })

@@ -4,7 +4,7 @@
  */
 import type {VFile} from 'vfile'
 import type {VFileMessage} from 'vfile-message'
-import {isRuleId} from '../rules/index.js'
+import {isNoteRuleId} from '../rules/index.js'
 
 export type DiagnosticSeverity = 'error' | 'warning' | 'info'
 
@@ -28,7 +28,7 @@ export interface Diagnostic {
 
 /** The kind of a message with this rule id. */
 export const kindOf = (rule: string | null): DiagnosticKind =>
-  rule === null ? 'input' : isRuleId(rule) ? 'note' : rule === 'requirement-not-met' || rule === 'limit-not-met' ? 'requirement' : rule === 'build' ? 'build' : 'input'
+  rule === null ? 'input' : isNoteRuleId(rule) ? 'note' : rule === 'requirement-not-met' || rule === 'limit-not-met' ? 'requirement' : rule === 'build' ? 'build' : 'input'
 
 /** A diagnostic made by the CLI itself (not from a VFile message). */
 export const cliDiagnostic = (severity: DiagnosticSeverity, message: string, rule: string | null = null, kind: DiagnosticKind = kindOf(rule)): Diagnostic =>

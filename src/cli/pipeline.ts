@@ -19,8 +19,10 @@ import {basename, dirname, extname, join, resolve} from 'node:path'
 import type {Root} from 'mdast'
 import {VFile} from 'vfile'
 import {decodeNote, parseNote} from '../note/index.js'
-import {evaluateNote, type StageEvaluation} from '../evaluate/index.js'
-import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
+import {evaluateNoteWithChains, type ChainEvaluation, type StageEvaluation} from '../evaluate/index.js'
+import {jsonChain, jsonStage, noteJson, toJson, type JsonChain, type JsonStage} from '../results/json.js'
+import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
+import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js'
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
@@ -75,7 +77,9 @@ export interface NoteOutcome {
   diagnostics: Diagnostic[]
   /** The DESIGN §6 result of each evaluated stage. */
   stages: JsonStage[]
-  /** Requirements met and not met, over all stages. */
+  /** The DESIGN §8.6 result of each evaluated chain (absent where nothing was evaluated). */
+  chains?: JsonChain[]
+  /** Requirements met and not met, over all stages and chains. */
   met: number
   notMet: number
   /** 0 all met, 1 a requirement not met, 2 could not be evaluated. */
@@ -96,7 +100,7 @@ export interface NoteResult {
 }
 
 export const failedOutcome = (file: string, message: string, sha = ''): NoteOutcome => ({
-  file, sourceSha256: sha, diagnostics: [cliDiagnostic('error', message)], stages: [], met: 0, notMet: 0, exitCode: 2, outputs: []
+  file, sourceSha256: sha, diagnostics: [cliDiagnostic('error', message)], stages: [], chains: [], met: 0, notMet: 0, exitCode: 2, outputs: []
 })
 
 /** A file beside a note's outputs: `<outDir or the note's folder>/<name>.<ext>`. */
@@ -178,6 +182,29 @@ function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
   }
 }
 
+/** The same for chains: a note at the chain block for each practice note and each verdict not met. */
+function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
+  for (const ev of chains) {
+    const place = ev.block.position?.start
+    for (const n of ev.notes) {
+      if (n.severity !== 'warning' && n.severity !== 'caution') continue
+      file.message(`Chain \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place, ruleId: n.rule, source: 'ampreview'})
+    }
+    for (const r of ev.result.requirements) {
+      if (r.met !== false) continue
+      if (r.kind === 'limit') {
+        file.message(`Limit \`${r.key}\` of chain \`${ev.input.id}\` not met: ${chainRequirementValue(ev, r, 'value')}, expected ${chainLimitText(ev, r)}`,
+          {place, ruleId: 'limit-not-met', source: 'ampreview'})
+        continue
+      }
+      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
+      const sense = CHAIN_REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
+      file.message(`Requirement \`${r.key}\` of chain \`${ev.input.id}\` not met: ${chainRequirementValue(ev, r, 'value')}, expected ${sense} ${chainRequirementValue(ev, r, 'limit')}`,
+        {place: entry ? {line: entry.line, column: entry.column} : place, ruleId: 'requirement-not-met', source: 'ampreview'})
+    }
+  }
+}
+
 /**
  * Run one note from its bytes: `name` is the path as given (diagnostics, JSON `file`,
  * output names); nothing is read but through `res`, nothing is written.
@@ -199,20 +226,25 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   }
 
   // 2. Evaluate: engine and rules, per stage.
-  const evaluations = evaluateNote(parsed, file)
+  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file)
   markUnmet(file, evaluations)
+  markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')
   const {images, inputs} = wantPdf ? await res.images(parsed.tree, file) : {images: new Map<string, Uint8Array>(), inputs: []}
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = strictly(diagnostics)
   // Baseline stages are shown but not counted (exit code, summary). A limit not met fails
-  // like a requirement (exit 1); a skipped limit (met null) counts neither way.
-  const requirements = evaluations.filter((ev) => ev.role !== 'baseline').flatMap((ev) => ev.result.requirements)
+  // like a requirement (exit 1); a skipped limit (met null) counts neither way. Chain
+  // verdicts count like a stage's.
+  const requirements: {met: boolean | null}[] = [
+    ...evaluations.filter((ev) => ev.role !== 'baseline').flatMap((ev) => ev.result.requirements),
+    ...chains.flatMap((ev) => ev.result.requirements)
+  ]
   const notMet = requirements.filter((r) => r.met === false).length
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
-    file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
+    file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage), chains: chains.map(jsonChain),
     met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: [], inputs
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
@@ -228,7 +260,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
     import('../report/build.js'), import('../render/chart/compile.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
   ])
   const report = buildReport({
-    parsed, evaluations,
+    parsed, evaluations, chains,
     fragments: {method: template.method, closing: template.closing},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })

@@ -43,3 +43,4 @@ export {
   type TopologyModel,
   type TopologyTerms
 } from './topology/index.js'
+export * from './chain/index.js'

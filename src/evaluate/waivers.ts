@@ -50,7 +50,7 @@ export function applyWaivers(block: StageBlockNode, notes: readonly RuleNote[], 
     file.info(evaluateMessages.unusedWaiver(id, block.id), {place: e ? {line: e.line, column: e.column} : block.position?.start, ruleId: 'unused-waiver', source: SOURCE})
   }
   return notes.map((n) => {
-    const reason = waivers.get(n.rule)
+    const reason = isRuleId(n.rule) ? waivers.get(n.rule) : undefined
     return reason === undefined ? n : {...n, accepted: reason}
   })
 }

@@ -42,8 +42,6 @@ export const noteMessages = {
   duplicateId: (kind: BlockKind, id: string) =>
     `Unexpected second ${kind} ${q(id)}, expected each ${kind} id once: rename one`,
   firstId: (kind: BlockKind, id: string) => `First ${kind} ${q(id)} defined here`,
-  chainUnsupported: () =>
-    'Unexpected `chain` block, expected `stage` or `opamp`: chains are not supported yet; printed as code',
   swallowedBlock: (inner: string, where: string) =>
     `Unexpected \`${inner}\` fence inside the unclosed ${where}, expected ${where} closed before it (as written it swallows the rest of the note): add \`\`\` after its last key (a closing fence needs at least as many backticks as the opening one)`,
   unclosedFence: (where: string) =>

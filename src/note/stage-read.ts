@@ -220,9 +220,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
           read.supply = r.value
           const t = r.s.text.trim()
           read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
-        }
-        if (r !== null && Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
-          report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+          if (Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
+            report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+          }
         }
         break
       }

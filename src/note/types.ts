@@ -68,6 +68,8 @@ export interface StageBlockNode {
   /** Null when the block had errors. */
   input: StageInput | null
   defaulted: DefaultedValue[]
+  /** True when the block gives no `input`: a chain supplies it (DESIGN §8.6; `input` is then a placeholder). */
+  inputFromChain?: true
   position?: Position
 }
 
@@ -87,6 +89,10 @@ export interface ParsedNote {
   tree: import('mdast').Root
   stages: StageBlockNode[]
   opamps: OpampBlockNode[]
+  /** Converter blocks (DESIGN §8.5), in document order. */
+  adcs?: import('./chain-types.js').AdcBlockNode[]
+  /** Chain blocks (DESIGN §8.6), in document order. */
+  chains?: import('./chain-types.js').ChainBlockNode[]
 }
 
 declare module 'mdast' {

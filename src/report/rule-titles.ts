@@ -2,9 +2,13 @@
  * A short title per rule, for the cover's list of open notes ("Bandwidth margin"). A closed
  * map over the rule ids, so a rule added without a title fails to compile.
  */
-import type {RuleId} from '../rules/index.js'
+import type {NoteRuleId} from '../rules/index.js'
 
-export const RULE_TITLES: Record<RuleId, string> = {
+export const RULE_TITLES: Record<NoteRuleId, string> = {
+  'chain-aliasing': 'Chain bandwidth above half the sample rate',
+  'chain-range-underused': 'Converter range under-used',
+  'chain-later-stage-noise': 'A later stage dominates the chain noise',
+  'chain-converter-noise': 'Converter noise dominates',
   'hazardous-voltage': 'Hazardous voltage or mains',
   'patient-connected': 'Patient-connected equipment',
   'battery-stored-energy': 'Battery stored energy',

@@ -5,7 +5,7 @@
  */
 import type {BlockContent, Root} from 'mdast'
 import type {DocumentMeta} from '../note/types.js'
-import type {RuleId} from '../rules/index.js'
+import type {NoteRuleId} from '../rules/index.js'
 import type {Severity} from '../rules/types.js'
 import type {Drawing} from './schematic/types.js'
 import type {TopLevelSpec} from 'vega-lite'
@@ -93,7 +93,7 @@ export interface CoverVerdict {
 export interface CoverNote {
   /** Stage id, or null for a note shared by every stage. */
   stage: string | null
-  rule: RuleId
+  rule: NoteRuleId
   severity: Exclude<Severity, 'info'>
   title: string
   /** The author's reason when the stage accepts the rule, else null. */
@@ -108,7 +108,7 @@ export interface CoverSummary {
   /** Verdict over the counted requirements only. */
   overall: Verdict
   /** Counted stages (role `design`) and their requirements. */
-  counted: {stages: number; requirements: number; notMet: number}
+  counted: {stages: number; chains: number; requirements: number; notMet: number}
   /** Ids of the baseline stages (shown, not counted). */
   baseline: string[]
   /** Stages whose op-amp is an archetype: figures for the class, not a part. */

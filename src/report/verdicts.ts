@@ -63,7 +63,7 @@ export const limitText = (r: RequirementResult, t: Topology): string => {
 }
 
 /** The margin as a share of the limit, " (16 %)"; beyond ±10 000 % it says so rather than print an exponent. */
-function relative(m: number, limit: number): string {
+export function relative(m: number, limit: number): string {
   if (limit === 0) return ''
   const p = (m / Math.abs(limit)) * 100
   if (!Number.isFinite(p)) return ''
@@ -113,13 +113,15 @@ export function coverRows(evaluations: StageEvaluation[]): CoverVerdict[] {
 }
 
 /** The cover's summary of a note's evaluations; `notes` comes from the sections (their anchors). */
-export function coverSummary(evaluations: readonly StageEvaluation[], notes: CoverNote[]): CoverSummary {
+export function coverSummary(evaluations: readonly StageEvaluation[], notes: CoverNote[], chainRows: readonly CoverVerdict[] = []): CoverSummary {
   const counted = evaluations.filter((ev) => ev.role !== 'baseline')
   const requirements = counted.flatMap((ev) => ev.result.requirements).filter((r) => !isSkipped(r))
+  const verdicts = [...requirements.map(verdictOf), ...chainRows.map((v) => v.verdict)]
+  const chains = new Set(chainRows.map((v) => v.stage)).size
   return {
-    verdicts: coverRows([...evaluations]),
-    overall: combine(requirements.map(verdictOf)),
-    counted: {stages: counted.length, requirements: requirements.length, notMet: requirements.filter((r) => r.met === false).length},
+    verdicts: [...coverRows([...evaluations]), ...chainRows],
+    overall: combine(verdicts),
+    counted: {stages: counted.length, chains, requirements: verdicts.length, notMet: verdicts.filter((v) => v === 'not-met').length},
     baseline: evaluations.filter((ev) => ev.role === 'baseline').map((ev) => ev.input.id),
     archetypes: evaluations.filter((ev) => ev.input.opamp.archetype).map((ev) => ({stage: ev.input.id, opamp: ev.input.opamp.name})),
     notes

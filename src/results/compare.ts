@@ -7,6 +7,8 @@ import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js
 import {formatQuantity} from '../units/format.js'
 import {gainUnit, inputUnit, requirementUnit} from './labels.js'
 import type {JsonStage} from './json.js'
+import type {JsonChain} from './chain-json.js'
+import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 
 /** The parts of a stage's §6 object that a comparison reads (older result files may lack the topology). */
 type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> & {
@@ -18,7 +20,35 @@ type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> &
 
 /** The parts of a run (`JsonRun`, declared once in ./json.ts) that a comparison reads. */
 export interface RunJson {
-  files: {file: string; stages: StageJson[]}[]
+  files: {file: string; stages: StageJson[]; chains?: ChainJson[]}[]
+}
+
+/** The parts of a chain's §8.6 object that a comparison reads. */
+type ChainJson = Pick<JsonChain, 'id' | 'gain' | 'bandwidth' | 'rangeUsed' | 'aliasRejection' | 'requirements'> & {
+  dc: Pick<JsonChain['dc'], 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'worstCaseLsb'>
+  noise: JsonChain['noise']
+}
+
+/** A chain's values by dotted name (units: V at the converter, LSB, bits, dB). */
+function chainValues(c: ChainJson): Map<string, {unit: string; v: number | null}> {
+  const m = new Map<string, {unit: string; v: number | null}>()
+  m.set('gain', {unit: 'V/V', v: c.gain})
+  m.set('bandwidth', {unit: 'Hz', v: c.bandwidth})
+  m.set('rangeUsed', {unit: '', v: c.rangeUsed})
+  for (const k of ['worstCaseOutput', 'rssOutput', 'worstCaseInput'] as const) m.set(`dc.${k}`, {unit: 'V', v: c.dc[k]})
+  m.set('dc.worstCaseLsb', {unit: 'LSB', v: c.dc.worstCaseLsb})
+  for (const k of ['outputRms', 'zeroSignalOutputRms', 'inputRms', 'converterRms', 'widebandRms'] as const) m.set(`noise.${k}`, {unit: 'V', v: c.noise[k]})
+  for (const k of ['noiseFreeBits', 'effectiveBits'] as const) m.set(`noise.${k}`, {unit: 'bits', v: c.noise[k]})
+  m.set('aliasRejection', {unit: 'dB', v: c.aliasRejection})
+  for (const r of c.requirements) if (r.kind === 'require') m.set(`require.${r.key}`, {unit: CHAIN_REQUIREMENT_KEYS[r.key]?.unit === 'input' ? 'V' : CHAIN_REQUIREMENT_KEYS[r.key]?.unit ?? '', v: r.value})
+  return m
+}
+
+/** Chains by `chain <id>`; prefixed by the note's file name when either side holds several notes. */
+function chainsOf(run: RunJson, multi: boolean): Map<string, ChainJson> {
+  const out = new Map<string, ChainJson>()
+  for (const f of run.files) for (const c of f.chains ?? []) out.set(`${multi ? `${f.file.split('/').pop()}/` : ''}chain ${c.id}`, c)
+  return out
 }
 
 export interface ValueChange {
@@ -113,15 +143,36 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson, opts: CompareOptio
       if (o !== n) flips.push({stage: id, requirement: key, old: o, new: n})
     }
   }
-  const removedStages = [...a.keys()].filter((k) => !b.has(k))
-  const addedStages = [...b.keys()].filter((k) => !a.has(k))
+  const ca = chainsOf(oldRun, multi)
+  const cb = chainsOf(newRun, multi)
+  for (const [id, co] of ca) {
+    const cn = cb.get(id)
+    if (!cn) continue
+    const vo = chainValues(co)
+    const vn = chainValues(cn)
+    for (const name of new Set([...vo.keys(), ...vn.keys()])) {
+      const o = vo.get(name)?.v ?? null
+      const n = vn.get(name)?.v ?? null
+      if (differs(o, n, threshold)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+    }
+    const ro = new Map(co.requirements.map((r) => [r.key, r.met] as const))
+    const rn = new Map(cn.requirements.map((r) => [r.key, r.met] as const))
+    for (const key of new Set([...ro.keys(), ...rn.keys()])) {
+      const o = ro.get(key) ?? null
+      const n = rn.get(key) ?? null
+      if (o !== n) flips.push({stage: id, requirement: key, old: o, new: n})
+    }
+  }
+  const removedStages = [...[...a.keys()].filter((k) => !b.has(k)), ...[...ca.keys()].filter((k) => !cb.has(k))]
+  const addedStages = [...[...b.keys()].filter((k) => !a.has(k)), ...[...cb.keys()].filter((k) => !ca.has(k))]
   const regressed = flips.some((f) => f.old === true && f.new === false) ||
-    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met === true))
+    removedStages.some((id) => (a.get(id)?.requirements ?? ca.get(id)?.requirements ?? []).some((r) => r.met === true))
   return {changes, flips, addedStages, removedStages, regressed}
 }
 
 const show = (v: number | null, unit: string): string =>
-  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB` : formatQuantity(v, unit, {digits: 4})
+  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB`
+    : unit === 'LSB' || unit === 'bits' ? `${v.toFixed(2)} ${unit}` : unit === '' ? v.toFixed(4) : formatQuantity(v, unit, {digits: 4})
 
 const delta = (c: ValueChange): string => {
   if (c.old === null || c.new === null) return ''

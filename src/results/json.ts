@@ -5,9 +5,12 @@
  */
 import type {RequirementResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
+import type {JsonChain} from './chain-json.js'
+
+export {jsonChain, type JsonChain} from './chain-json.js'
 import type {Topology} from '../engine/types.js'
 import type {StageRole} from '../note/types.js'
-import type {RuleId} from '../rules/index.js'
+import type {NoteRuleId} from '../rules/index.js'
 
 /** One diagnostic of a note, as the contract carries it. */
 export interface JsonDiagnostic {
@@ -27,6 +30,8 @@ export interface JsonNote {
   sourceSha256: string
   diagnostics: JsonDiagnostic[]
   stages: JsonStage[]
+  /** Measurement chains (DESIGN §8.6); absent in results written before chains existed. */
+  chains?: JsonChain[]
 }
 
 /** The whole result of a run (`--json`, `<note>.json`, what `compare` and `merge` read). */
@@ -45,7 +50,7 @@ export interface JsonStage {
   stability: StageEvaluation['result']['stability']
   requirements: StageEvaluation['result']['requirements']
   /** Practice and safety notes; `accepted` is the author's reason when the stage's `accept:` accepts the rule, else null. */
-  notes: {rule: RuleId; severity: string; text: string; accepted: string | null}[]
+  notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
   /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
   role: StageRole
 }
@@ -121,7 +126,8 @@ export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,
   sourceSha256: o.sourceSha256,
   diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column, rule: d.rule, kind: d.kind})),
-  stages: o.stages
+  stages: o.stages,
+  chains: o.chains ?? []
 })
 
 /** JSON text with non-finite numbers as null (JSON.stringify already writes them as null; this makes it explicit). */

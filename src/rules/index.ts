@@ -30,7 +30,7 @@ import type {RuleNote} from './types.js'
 
 export type {Rule, RuleContext, RuleFinding} from './rule.js'
 
-export {RULE_IDS, isRuleId, type RuleId} from './ids.js'
+export {CHAIN_RULE_IDS, RULE_IDS, isNoteRuleId, isRuleId, type ChainRuleId, type NoteRuleId, type RuleId} from './ids.js'
 
 /** Every rule under its own id. */
 export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {

@@ -2,7 +2,7 @@
  * What a practice or safety rule returns. Each rule is a pure function of a stage's inputs
  * and results; `src/rules/index.ts` stamps the rule id and runs them in order.
  */
-import type {RuleId} from './ids.js'
+import type {NoteRuleId} from './ids.js'
 
 export const SEVERITIES = ['info', 'caution', 'warning', 'safety'] as const
 export type Severity = (typeof SEVERITIES)[number]
@@ -15,7 +15,7 @@ export interface NoteTable {
 
 export interface RuleNote {
   /** Rule id (`src/rules/ids.ts`). */
-  rule: RuleId
+  rule: NoteRuleId
   severity: Severity
   /** One paragraph quoting the numbers that triggered it and what to consider. */
   text: string

@@ -77,7 +77,7 @@ export function coverOf(verdicts: CoverVerdict[], overall: Verdict, extra: Parti
   const counted = verdicts.filter((v) => v.counted)
   return {
     verdicts, overall, baseline: [], archetypes: [], notes: [],
-    counted: {stages: new Set(counted.map((v) => v.stage)).size, requirements: counted.length, notMet: counted.filter((v) => v.verdict === 'not-met').length},
+    counted: {stages: new Set(counted.map((v) => v.stage)).size, chains: 0, requirements: counted.length, notMet: counted.filter((v) => v.verdict === 'not-met').length},
     ...extra
   }
 }

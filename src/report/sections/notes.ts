@@ -6,7 +6,7 @@
  */
 import type {BlockContent} from 'mdast'
 import type {RuleNote, Severity} from '../../rules/types.js'
-import type {RuleId} from '../../rules/index.js'
+import type {NoteRuleId} from '../../rules/index.js'
 import {callout, code, paragraph, strong, table} from '../mdast.js'
 import {RULE_TITLES} from '../rule-titles.js'
 import type {CalloutNode, CoverNote} from '../types.js'
@@ -16,7 +16,7 @@ const LABEL: Record<Severity, string> = {info: 'INFO', caution: 'CAUTION', warni
 const noteKey = (n: RuleNote): string => `${n.rule}\u0000${n.text}`
 
 /** Anchor of a note's callout, for the cover's list. */
-export const noteAnchor = (stage: string | null, rule: RuleId, index: number): string => `note:${stage ?? '*'}:${rule}:${index}`
+export const noteAnchor = (stage: string | null, rule: NoteRuleId, index: number): string => `note:${stage ?? '*'}:${rule}:${index}`
 
 /** Notes the cover lists: cautions, warnings and safety notes (info notes are not open items). */
 export const isOpen = (n: RuleNote): n is RuleNote & {severity: Exclude<Severity, 'info'>} => n.severity !== 'info'
