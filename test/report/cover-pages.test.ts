@@ -2,8 +2,8 @@
  * The cover and sign-off fit on one page for an ordinary note: the load-cell and photodiode
  * samples (open notes and archetype lines included) and the starting note of every topology
  * (no open note). Read back with pdfjs: the closing statements are on page 1 and the body
- * starts on page 2. The reference-buffer sample (two stages, twelve verdict rows, a baseline)
- * is longer than a page: its closing statements flow onto page 2, whole, before the body.
+ * starts on page 2. The reference-buffer and weigh-scale-chain samples (twelve and thirteen verdict
+ * rows) are longer than a page: its closing statements flow onto page 2, whole, before the body.
  * The load-cell sample's calibration code block is not split across pages.
  */
 import {describe, expect, it} from 'vitest'
@@ -12,9 +12,10 @@ import {join} from 'node:path'
 import {readPdf} from '../render/helpers.js'
 import {pdfOf, ROOT} from './helpers.js'
 
-const LONG_COVER = 'reference-buffer.md'
+/** Samples whose verdict table (twelve rows or more) makes the cover longer than a page. */
+const LONG_COVERS = ['reference-buffer.md', 'weigh-scale-chain.md']
 const NOTES = [
-  ...readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md') && f !== LONG_COVER).map((f) => join(ROOT, 'sample-designs', f)),
+  ...readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md') && !LONG_COVERS.includes(f)).map((f) => join(ROOT, 'sample-designs', f)),
   ...readdirSync(join(ROOT, 'test', 'fixtures', 'topologies')).filter((f) => f.endsWith('.md')).map((f) => join(ROOT, 'test', 'fixtures', 'topologies', f)),
 ].sort()
 
@@ -32,8 +33,8 @@ describe('the cover on one page', () => {
 })
 
 describe('a cover longer than a page', () => {
-  it('flows its closing statements onto page 2, whole, and the body starts on page 3', async () => {
-    const pages = (await readPdf((await pdfOf(join(ROOT, 'sample-designs', LONG_COVER))).pdf)).pages
+  it.each(LONG_COVERS)('%s flows its closing statements onto page 2, whole, and the body starts on page 3', async (name) => {
+    const pages = (await readPdf((await pdfOf(join(ROOT, 'sample-designs', name))).pdf)).pages
     expect(pages[0]).toContain('Requirement verdicts')
     expect(pages[1]).toContain('Limits of this report')
     expect(pages[1]).not.toContain('Purpose')
