@@ -7,6 +7,7 @@
  * Pure: no I/O, clock or randomness; the same input gives the same result.
  */
 import {dcAnalysis} from './dc/budget.js'
+import {filterFigures} from './filter.js'
 import {noiseAnalysis} from './noise/budget.js'
 import {checkRequirements} from './requirements.js'
 import {stabilityAnalysis} from './stability.js'
@@ -22,8 +23,16 @@ export function assertEvaluable(input: StageInput): void {
   const needs = (key: 'rf' | 'rg', ok: boolean): void => {
     if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a resistor for a ${input.topology} stage`)
   }
-  if (input.topology !== 'follower') needs('rf', input.rf !== null && input.rf.value > 0)
-  if (input.topology === 'noninverting' || input.topology === 'inverting') needs('rg', input.rg !== null && input.rg.value > 0)
+  const t = input.topology
+  const needsRf = t === 'noninverting' || t === 'inverting' || t === 'transimpedance' || t === 'difference'
+  if (needsRf) needs('rf', input.rf !== null && input.rf.value > 0)
+  if (t === 'noninverting' || t === 'inverting' || t === 'difference') needs('rg', input.rg !== null && input.rg.value > 0)
+  const part = (key: 'rp' | 'rref' | 'r1' | 'r2' | 'r3' | 'c1' | 'c2', ok: boolean): void => {
+    if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a value > 0 for a ${t} stage`)
+  }
+  if (t === 'difference') for (const k of ['rp', 'rref'] as const) part(k, (input[k]?.value ?? 0) > 0)
+  if (t === 'lowpass-sallen-key' || t === 'lowpass-mfb') for (const k of ['r1', 'r2', 'c1', 'c2'] as const) part(k, (input[k]?.value ?? 0) > 0)
+  if (t === 'lowpass-mfb') part('r3', (input.r3?.value ?? 0) > 0)
   const [fL, fH] = input.band
   if (!(fL > 0 && fH > fL)) throw new RangeError(`Unexpected band ${fL} .. ${fH} Hz in stage \`${input.id}\`, expected 0 < fL < fH`)
   if (!(input.opamp.gbw > 0 && input.opamp.aol > 0)) throw new RangeError(`Unexpected gbw or aol in stage \`${input.id}\`, expected positive values`)
@@ -44,6 +53,7 @@ export function evaluateStage(input: StageInput): StageResult {
     gain: terms.gain,
     noiseGain: terms.noiseGain,
     ...figures,
+    filter: filterFigures(input),
     requirements: checkRequirements(input, figures),
     curves: {...noise.curves, ...loop.curves},
     swing: swingCheck(input),

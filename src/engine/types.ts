@@ -7,8 +7,8 @@
  * Notes (`notes` in the JSON) come from `src/rules`, not from the engine.
  */
 
-/** Stage topologies (DESIGN §3.3). */
-export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance'] as const
+/** Stage topologies (DESIGN §3.3, §8.1, §8.4). */
+export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance', 'difference', 'lowpass-sallen-key', 'lowpass-mfb'] as const
 export type Topology = (typeof TOPOLOGIES)[number]
 export const isTopology = (s: string): s is Topology => (TOPOLOGIES as readonly string[]).includes(s)
 
@@ -37,6 +37,14 @@ export interface Resistor {
   tolerance: number
   /** Temperature coefficient, 1/K (25e-6 for 25 ppm/K); 0 when not given. */
   tempco: number
+}
+
+/** A capacitor: value with tolerance (DESIGN §8.4). */
+export interface Capacitor {
+  /** Capacitance, F (> 0). */
+  value: number
+  /** Tolerance as a fraction; 0 when not given. Shown in the parameters table only. */
+  tolerance: number
 }
 
 /** An op-amp's datasheet values, SI. */
@@ -88,6 +96,10 @@ export interface OpampParams {
   slew: number
   /** Output swing headroom to each rail, V. */
   swingHeadroom: number
+  /** Open-loop output resistance, Ω (DESIGN §8.3; 0 = an ideal source). */
+  rout: number
+  /** Maximum output current, A; null when not entered (DESIGN §4.6). */
+  ioutMax: number | null
 }
 
 /** An inclusive range [low, high]. */
@@ -119,8 +131,28 @@ export interface StageInput {
   csource: number
   /** Transimpedance source DC current at the hot end, A. */
   idark: number
-  /** Voltage on the + input of inverting and transimpedance stages, V. */
+  /** Voltage on the + input of inverting and transimpedance stages, and the reference node of `difference` and `lowpass-mfb` stages, V. */
   vref: number
+  /** Difference: + leg resistor, source + to the + pin (DESIGN §8.1). */
+  rp: Resistor | null
+  /** Difference: + pin to the reference node at vref. */
+  rref: Resistor | null
+  /** Low-pass filters (DESIGN §8.4): r1, r2, r3 (MFB only), c1, c2. */
+  r1: Resistor | null
+  r2: Resistor | null
+  r3: Resistor | null
+  c1: Capacitor | null
+  c2: Capacitor | null
+  /** Series isolation resistor between the output pin and the load (DESIGN §8.3); null = none. */
+  riso: Resistor | null
+  /** Load resistance from the load node to ground, Ω; null = open. */
+  rload: number | null
+  /** Load capacitance from the load node to ground, F. */
+  cload: number
+  /** Capacitance from the + pin to ground, F. */
+  cstrayPlus: number
+  /** Difference: common-mode range of the input, V (default 0 .. 0). */
+  inputCm: Range
   /** Signal range at the stage input: V, or A for transimpedance. */
   input: Range
   /** Supply rails [negative, positive], V. */
@@ -142,7 +174,9 @@ export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr'
 export type DcKey = (typeof DC_KEYS)[number]
 
 /** Noise contributor keys (DESIGN §4.3). */
-export const NOISE_KEYS = ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot'] as const
+export const NOISE_KEYS = [
+  'en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot'
+] as const
 export type NoiseKey = (typeof NOISE_KEYS)[number]
 
 export interface DcBudget {
@@ -212,6 +246,8 @@ export interface StageCurves {
   loopGainPhase: number[]
   /** |H(f)| signal gain (V/V, or Ω for transimpedance). */
   closedLoopMagnitude: number[]
+  /** ∠H(f), degrees, unwrapped from DC (the low-pass response chart). */
+  closedLoopPhase: number[]
 }
 
 /** Output operating point and swing check (DESIGN §4.1). */
@@ -236,6 +272,16 @@ export interface BiasUsed {
   overTemperatureMissing: boolean
 }
 
+/** Low-pass figures from the solved response (DESIGN §8.4). */
+export interface FilterFigures {
+  /** Where the phase of H(f)/H(0) passes −90°, Hz; null when it never does in the span. */
+  f0: number | null
+  /** |H(f0)/H(0)|; null with f0. */
+  q: number | null
+  /** H(0), signed, V/V. */
+  passbandGain: number
+}
+
 export interface StageResult {
   id: string
   topology: Topology
@@ -248,6 +294,8 @@ export interface StageResult {
   dc: DcBudget
   noise: NoiseBudget
   stability: Stability
+  /** Low-pass stages only; null for other topologies (DESIGN §8.4). */
+  filter: FilterFigures | null
   requirements: RequirementResult[]
   /** Report-only. */
   curves: StageCurves

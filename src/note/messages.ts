@@ -77,8 +77,12 @@ export const noteMessages = {
     'Unexpected `ccomp` without `rcomp`, expected `rcomp` beside it (ccomp bypasses the compensation resistor): add `rcomp` or remove `ccomp`',
   cfWithoutRf: () =>
     'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
-  shuntParts: () =>
-    'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them',
+  shuntParts: (key = 'rshunt') =>
+    `Unexpected tolerance or tempco on \`${key}\`, expected its value alone (${key === 'rload' ? 'the load is not a part of the stage' : 'the source shunt is not a chosen part'}): remove them`,
+  capacitorExtra: (text: string) =>
+    `Unexpected ${q(text)} after the capacitance, expected at most a tolerance (\`10 nF 5%\`)`,
+  rgWithoutRf: () =>
+    'Unexpected `rg` without `rf` on a Sallen-Key stage, expected both (gain 1 + rf/rg) or neither (unity gain): add `rf` or remove `rg`',
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>

@@ -34,7 +34,8 @@ const NOT_ENTERED: Partial<Record<OpampKey, string>> = {
   'ib-max': 'not entered (ib, or the doubling rule for FET/CMOS inputs)',
   'ios-max': 'not entered (ios, or the doubling rule for FET/CMOS inputs)',
   'ib-doubling': 'not entered (10 K for jfet and cmos inputs)',
-  'vcm-ref': 'not entered (the supply midpoint)'
+  'vcm-ref': 'not entered (the supply midpoint)',
+  'iout-max': 'not entered (the output-current limit is not checked)'
 }
 
 type OpampKeyField = (typeof OPAMP_KEYS)[OpampKey]['field']
@@ -102,7 +103,7 @@ export function buildOpamp(fields: readonly Field[], ctx: OpampContext): BuiltOp
     en: num('en'), enCorner: num('enCorner'), in: num('in'), inCorner: num('inCorner'),
     gbw: num('gbw'), aol: num('aol'), pmUnity: num('pmUnity'), cmrr: num('cmrr'), psrr: num('psrr'),
     vcmRef: opt('vcmRef'), cinDiff: num('cinDiff'), cinCm: num('cinCm'), slew: num('slew'),
-    swingHeadroom: num('swingHeadroom')
+    swingHeadroom: num('swingHeadroom'), rout: num('rout'), ioutMax: opt('ioutMax')
   }
   return {opamp, defaulted}
 }

@@ -45,7 +45,7 @@ export interface BuiltStage {
   defaulted: DefaultedValue[]
 }
 
-const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp']
+const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso']
 
 function reportMissing(read: StageRead, ctx: StageContext): void {
   for (const key of Object.keys(STAGE_KEYS) as StageKey[]) {
@@ -75,6 +75,10 @@ function checkCombinations(read: StageRead, ctx: StageContext): void {
   if (read.topology === 'follower' && cf !== undefined && (read.quantities.cf ?? 0) > 0 && (read.resistors.rf?.value ?? 0) === 0) {
     ctx.report.error(noteMessages.cfWithoutRf(), cf.keyAt, 'inconsistent-keys')
   }
+  const rg = read.given.get('rg')
+  if (read.topology === 'lowpass-sallen-key' && rg !== undefined && !read.given.has('rf')) {
+    ctx.report.error(noteMessages.rgWithoutRf(), rg.keyAt, 'inconsistent-keys')
+  }
 }
 
 const toResistor = (r: ReadResistor | undefined): Resistor | null =>
@@ -90,8 +94,18 @@ function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedV
   if (topology === 'follower') add('rf', '0 Ω (a wire)')
   add('rs', 'none (0 Ω)')
   add('rcomp', 'none (0 Ω)')
-  for (const key of ['ccomp', 'cf', 'cstray', 'csource'] as const) add(key, formatQuantity(0, 'F'))
+  for (const key of ['ccomp', 'cf', 'cstray', 'cstray-plus', 'csource'] as const) add(key, formatQuantity(0, 'F'))
   add('rshunt', 'open')
+  // The load (DESIGN §8.3): one line when none of its keys is given.
+  if (!read.given.has('riso') && !read.given.has('rload') && !read.given.has('cload')) out.push({key: 'riso, rload, cload', value: 'none (output unloaded)'})
+  else {
+    add('riso', 'none (a wire)')
+    add('rload', 'open')
+    add('cload', formatQuantity(0, 'F'))
+  }
+  if (topology === 'lowpass-sallen-key') add('rf', '0 Ω (unity gain)')
+  add('input-cm', formatQuantity(0, 'V'))
+  for (const key of ['c1', 'c2'] as const) if (read.capacitors[key]?.defaulted === true) out.push({key: `${key}.tolerance`, value: formatPercent(0)})
   add('idark', formatQuantity(0, 'A'))
   add('vref', formatQuantity(STAGE_DEFAULTS.vref, 'V'))
   add('supply-tolerance', formatPercent(STAGE_DEFAULTS.supplyTolerance))
@@ -132,6 +146,18 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     cf: q.cf ?? 0,
     cstray: q.cstray ?? STAGE_DEFAULTS.cstray,
     rshunt: read.rshunt,
+    rp: toResistor(read.resistors.rp),
+    rref: toResistor(read.resistors.rref),
+    r1: toResistor(read.resistors.r1),
+    r2: toResistor(read.resistors.r2),
+    r3: toResistor(read.resistors.r3),
+    c1: read.capacitors.c1 === undefined ? null : {value: read.capacitors.c1.value, tolerance: read.capacitors.c1.tolerance},
+    c2: read.capacitors.c2 === undefined ? null : {value: read.capacitors.c2.value, tolerance: read.capacitors.c2.tolerance},
+    riso: toResistor(read.resistors.riso),
+    rload: read.rload,
+    cload: q.cload ?? 0,
+    cstrayPlus: q['cstray-plus'] ?? 0,
+    inputCm: read.inputCm ?? [0, 0],
     csource: q.csource ?? 0,
     idark: q.idark ?? 0,
     vref: q.vref ?? STAGE_DEFAULTS.vref,

@@ -11,10 +11,10 @@ import type {Reporter} from './diagnostics.js'
 import {didYouMean} from './did-you-mean.js'
 import {
   MILLI_CHECKED, OPAMP_BLOCK_KEYS, STAGE_KEYS, isStageKey,
-  type QuantityKey, type ResistorKey
+  type CapacitorKey, type QuantityKey, type ResistorKey
 } from './keys.js'
 import {noteMessages} from './messages.js'
-import {choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
+import {capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
 import {formatQuantity} from '../units/index.js'
 
 export interface ReadResistor {
@@ -32,7 +32,10 @@ export interface StageRead {
   resistors: Partial<Record<ResistorKey, ReadResistor>>
   quantities: Partial<Record<QuantityKey, number>>
   rshunt: number | null
+  rload: number | null
+  capacitors: Partial<Record<CapacitorKey, {value: number; tolerance: number; defaulted: boolean}>>
   input: [number, number] | null
+  inputCm: [number, number] | null
   supply: [number, number] | null
   temperature: [number, number] | null
   band: [number, number] | null
@@ -111,6 +114,7 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
     topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null,
+    rload: null, capacitors: {}, inputCm: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
@@ -153,9 +157,22 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         const r = resistorOf(field, report)
         if (r === null) break
         const text = r.s.text.trim()
-        if (r.value.hasParts) report.error(noteMessages.shuntParts(), r.s.at(r.value.partsOffset), 'bad-value')
+        if (r.value.hasParts) report.error(noteMessages.shuntParts(key), r.s.at(r.value.partsOffset), 'bad-value')
         else if (r.value.value.value <= 0) report.error(noteMessages.notPositive(key, text, 'a resistance'), r.s.at(0), 'bad-value')
+        else if (key === 'rload') read.rload = r.value.value.value
         else read.rshunt = r.value.value.value
+        break
+      }
+      case 'capacitor': {
+        const c = capacitorOf(field, report)
+        if (c === null) break
+        if (c.value.value <= 0) report.error(noteMessages.notPositive(key, c.s.text.trim(), 'a capacitance'), c.s.at(0), 'bad-value')
+        else read.capacitors[key as CapacitorKey] = c.value
+        break
+      }
+      case 'input-cm': {
+        const r = rangeOf(field, 'voltage', report, 'point')
+        if (r !== null) read.inputCm = r.value
         break
       }
       case 'quantity':

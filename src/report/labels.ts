@@ -26,6 +26,13 @@ export const NOISE_LABELS: Record<NoiseKey, string> = {
   'r:rs': 'Thermal noise of rs',
   'r:rcomp': 'Thermal noise of rcomp',
   'r:rshunt': 'Thermal noise of rshunt',
+  'r:rp': 'Thermal noise of rp',
+  'r:rref': 'Thermal noise of rref',
+  'r:r1': 'Thermal noise of r1',
+  'r:r2': 'Thermal noise of r2',
+  'r:r3': 'Thermal noise of r3',
+  'r:riso': 'Thermal noise of riso',
+  'r:rload': 'Thermal noise of rload',
   shot: 'Shot noise of source current'
 }
 
@@ -43,7 +50,10 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
   noninverting: 'Non-inverting amplifier',
   inverting: 'Inverting amplifier',
   follower: 'Voltage follower',
-  transimpedance: 'Transimpedance amplifier'
+  transimpedance: 'Transimpedance amplifier',
+  difference: 'Difference amplifier',
+  'lowpass-sallen-key': 'Sallen-Key low-pass filter',
+  'lowpass-mfb': 'Multiple-feedback low-pass filter'
 }
 
 /** Unit of the stage's input quantity: A for transimpedance, V otherwise. */

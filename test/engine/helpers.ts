@@ -37,6 +37,8 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
     cinCm: 5e-12,
     slew: 1e6,
     swingHeadroom: 1.3,
+    rout: 0,
+    ioutMax: null,
     ...overrides
   }
 }
@@ -59,6 +61,8 @@ export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
     csource: 0,
     idark: 0,
     vref: 0,
+    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
+    riso: null, rload: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
     input: [-0.05, 0.05],
     supply: [-12, 12],
     supplyTolerance: 0.05,

@@ -10,7 +10,10 @@ const KEYS: Record<StageInput['topology'], string[]> = {
   noninverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   inverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   follower: ['en', 'in+', 'in-', 'r:rf', 'r:rs', 'r:rcomp'],
-  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot']
+  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot'],
+  difference: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rp', 'r:rref', 'r:rs'],
+  'lowpass-sallen-key': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:rf', 'r:rg'],
+  'lowpass-mfb': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:r3', 'r:rcomp']
 }
 
 describe('noiseAnalysis()', () => {

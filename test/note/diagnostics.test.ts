@@ -1,4 +1,5 @@
 import {describe, expect, it} from 'vitest'
+import {TOPOLOGIES} from '../../src/engine/types.js'
 import {noteMessages} from '../../src/note/index.js'
 import {unitsMessages} from '../../src/units/index.js'
 import {blocksOf, errorsOf, noteOf} from './helpers.js'
@@ -45,7 +46,7 @@ describe('parseNote() diagnostics', () => {
 
   it('reports an unknown topology at its value with a hint', () => {
     expect(errorsOf(noteOf(note(replaceLine(0, 'topology: non-inverting'))).diagnostics)).toEqual([
-      err(16, 11, noteMessages.unknownChoice('topology', 'non-inverting', ['noninverting', 'inverting', 'follower', 'transimpedance'], 'noninverting'))
+      err(16, 11, noteMessages.unknownChoice('topology', 'non-inverting', TOPOLOGIES, 'noninverting'))
     ])
   })
 

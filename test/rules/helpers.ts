@@ -33,6 +33,8 @@ export function stageInput(over: Partial<StageInput> = {}): StageInput {
     csource: 0,
     idark: 0,
     vref: 0,
+    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
+    riso: null, rload: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
     input: [-0.1, 0.1],
     supply: [-15, 15],
     supplyTolerance: 0.05,
@@ -87,11 +89,12 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
       band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, outputPeakToPeak: 6.6 * rms,
       inputRms: rms / Math.abs(gain), contributors: noiseContributors
     },
+    filter: null,
     stability: {phaseMargin: 60, crossover: 90e3, bandwidth: 90e3, peaking: 0, suggestedCf: null, ...parts.stability},
     requirements: parts.requirements ?? [],
     curves: {
       noiseFrequency: [], noiseDensity: emptyDensity(),
-      noiseTotal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: []
+      noiseTotal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: [], closedLoopPhase: []
     },
     swing: {outputSpan: [-1.1, 1.1], allowed: [-13.8, 13.8], excess: [0, 0], fits: true, ...parts.swing},
     bias: {

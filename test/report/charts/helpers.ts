@@ -73,7 +73,9 @@ export function stageCurves(): StageCurves {
     frequency,
     loopGainMagnitude: loop.map((l) => l.magnitude),
     loopGainPhase: loop.map((l) => l.phase),
-    closedLoopMagnitude: loop.map((l) => NOISE_GAIN * (l.magnitude / Math.hypot(1, l.magnitude)))
+    closedLoopMagnitude: loop.map((l) => NOISE_GAIN * (l.magnitude / Math.hypot(1, l.magnitude))),
+    // Not drawn by these charts (the low-pass response chart has its own data).
+    closedLoopPhase: frequency.map(() => 0)
   }
 }
 
