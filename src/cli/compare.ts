@@ -3,23 +3,25 @@
  * here, no PDF), or `REV:PATH`, a note as it is at a git revision (read with `git show`).
  */
 import {execFileSync} from 'node:child_process'
-import {mkdtempSync, rmSync, writeFileSync} from 'node:fs'
 import {readFile} from 'node:fs/promises'
-import {tmpdir} from 'node:os'
-import {basename, isAbsolute, join, relative} from 'node:path'
-import {compareRuns, comparisonText, type RunJson} from '../report/compare.js'
-import {noteJson, processNote, type Resources} from './pipeline.js'
+import {isAbsolute, relative} from 'node:path'
+import {compareRuns, comparisonText, type RunJson} from '../results/compare.js'
+import {noteJson} from '../results/json.js'
+import {noteResources, readNote, runNote, type NoteOutcome, type NoteResources, type Resources} from './pipeline.js'
 
 export class CompareInputError extends Error {}
 
-async function noteRun(path: string, shownAs: string, res: Resources): Promise<RunJson> {
-  const o = await processNote(path, res, {formats: [], outDir: null, strict: false, sourceDateEpoch: undefined})
-  if (o.exitCode === 2) {
-    const first = o.diagnostics.find((d) => d.severity === 'error')
-    throw new CompareInputError(`${shownAs} could not be evaluated${first ? `: ${first.line}:${first.column}: ${first.message}` : ''}`)
-  }
+const notEvaluated = (shownAs: string, o: NoteOutcome): CompareInputError => {
+  const first = o.diagnostics.find((d) => d.severity === 'error')
+  return new CompareInputError(`${shownAs} could not be evaluated${first ? `: ${first.line}:${first.column}: ${first.message}` : ''}`)
+}
+
+/** Evaluate a note's bytes (no output formats) as one run, shown as `shownAs`. */
+async function noteRun(bytes: Uint8Array, shownAs: string, res: NoteResources): Promise<RunJson> {
+  const o: NoteOutcome = (await runNote(bytes, shownAs, res, {formats: [], strict: false, sourceDateEpoch: undefined})).outcome
+  if (o.exitCode === 2) throw notEvaluated(shownAs, o)
   // One run of one note, as `check --json` prints it.
-  return {files: [noteJson({...o, file: shownAs}) as RunJson['files'][number]]}
+  return {files: [noteJson(o)]}
 }
 
 /** What is wrong with a parsed result file, if anything: the fields a comparison reads. */
@@ -58,24 +60,20 @@ async function load(side: string, res: Resources): Promise<RunJson> {
     }
   }
   if (rev && !(await readFile(side).then(() => true, () => false))) {
-    let text: string
+    let bytes: Uint8Array
     try {
-      text = execFileSync('git', ['show', `${rev[1]}:${gitPath(rev[2]!)}`], {encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024})
+      bytes = new Uint8Array(execFileSync('git', ['show', `${rev[1]}:${gitPath(rev[2]!)}`], {stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024}))
     } catch (error) {
       const why = (error as {stderr?: unknown}).stderr
-      const first = typeof why === 'string' ? why.trim().split('\n')[0] : ''
+      const first = why instanceof Uint8Array || typeof why === 'string' ? why.toString().trim().split('\n')[0] : ''
       throw new CompareInputError(`git could not show ${rev[2]} at revision ${rev[1]}${first ? ` (${first})` : ''}`)
     }
-    const dir = mkdtempSync(join(tmpdir(), 'ampreview-compare-'))
-    try {
-      const p = join(dir, basename(rev[2]!))
-      writeFileSync(p, text)
-      return await noteRun(p, side, res)
-    } finally {
-      rmSync(dir, {recursive: true, force: true})
-    }
+    // Straight from git's output: no temporary file. Images are never needed (no PDF).
+    return noteRun(bytes, side, noteResources(rev[2]!, res))
   }
-  return noteRun(side, side, res)
+  const read = await readNote(side, res)
+  if (!read.ok) throw notEvaluated(side, read.outcome)
+  return noteRun(read.bytes, side, read.resources)
 }
 
 /** Prints the comparison; returns the exit code (1 when a verdict went from met to not met). */

@@ -14,7 +14,7 @@ import {lazyFonts, templatesHash, toolVersion} from './resources.js'
 import {scaffoldNote} from './scaffold.js'
 import {summaryTable} from './summary.js'
 import {watchNotes} from './watch.js'
-import {toJson} from '../report/json.js'
+import {toJson} from '../results/json.js'
 
 const out = (s: string): void => { process.stdout.write(s) }
 const err = (s: string): void => { process.stderr.write(s) }

@@ -1,9 +1,14 @@
 /**
- * The pipeline for one note, DESIGN §2:
+ * The pipeline for one note, DESIGN §2, in three steps:
  *
- *   note.md ──read──▶ VFile ──parse──▶ ParsedNote ──evaluate──▶ StageEvaluation[]
- *           ──report──▶ ReportDocument ──render──▶ PDF bytes ──write (atomic)──▶ note.pdf
+ *   readNote(path)                          → bytes + the note's resources (fs)
+ *   runNote(bytes, name, resources, opts)   → NoteResult: outcome + the files' contents
+ *       decode ─▶ text ─parse─▶ ParsedNote ─evaluate─▶ StageEvaluation[]
+ *              ─report─▶ ReportDocument ─render─▶ PDF | review.md | JSON
+ *   writeOutputs(result, formats, outDir)   → NoteOutcome (atomic, all or nothing)
  *
+ * `runNote` touches nothing but what it is given (bytes, loaders for the template, fonts
+ * and images), so `compare` runs a note read from a git revision through it directly.
  * Data flows left to right only. Every phase records its problems on the VFile and goes
  * on, so that all of a file's problems are reported in one run; a note with any error
  * stops before the report and writes nothing.
@@ -11,11 +16,12 @@
 import {createHash} from 'node:crypto'
 import {readFile, stat} from 'node:fs/promises'
 import {basename, dirname, extname, join, resolve} from 'node:path'
+import type {Root} from 'mdast'
 import {VFile} from 'vfile'
-import {parseNote} from '../note/index.js'
-import {evaluateNote, type StageEvaluation} from '../report/evaluate.js'
-import {jsonStage, toJson, type JsonStage} from '../report/json.js'
-import type {FontSet} from '../render/index.js'
+import {decodeNote, parseNote} from '../note/index.js'
+import {evaluateNote, type StageEvaluation} from '../evaluate/index.js'
+import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
+import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {requirementValue} from '../report/verdicts.js'
 import {reportDate} from './dates.js'
@@ -26,16 +32,24 @@ import {writeAllAtomic} from './write.js'
 import type {Format} from './formats.js'
 
 export {FORMATS, type Format} from './formats.js'
+export {MAX_NOTE_BYTES} from '../note/index.js'
 
-/** Largest note read, bytes (time and memory stay bounded: README, Limits). */
-export const MAX_NOTE_BYTES = 20 * 2 ** 20
-
+/** What a run shares over all its notes. */
 export interface Resources {
   /** The fonts, loaded once on first use (only builds need them). */
   fonts: () => Promise<FontSet>
   version: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
+}
+
+/** What one note may read besides its own bytes: everything `runNote` gets from outside. */
+export interface NoteResources {
+  fonts: () => Promise<FontSet>
+  version: string
+  template: (name: string) => Promise<Template>
+  /** The images the note's tree names (messages for refused ones go on `file`). */
+  images: (tree: Root, file: VFile) => Promise<Map<string, Uint8Array>>
 }
 
 export interface RunOptions {
@@ -64,6 +78,13 @@ export interface NoteOutcome {
   outputs: string[]
 }
 
+/** A run of one note before anything is written: the outcome and each output's name and contents. */
+export interface NoteResult {
+  outcome: NoteOutcome
+  /** File names (no folder: `<stem>.pdf`, `<stem>.review.md`, `<stem>.review.figN.svg`, …) and contents. */
+  files: {name: string; data: Uint8Array | string}[]
+}
+
 export const failedOutcome = (file: string, message: string, sha = ''): NoteOutcome => ({
   file, sourceSha256: sha, diagnostics: [{severity: 'error', message, line: 1, column: 1}], stages: [], met: 0, notMet: 0, exitCode: 2, outputs: []
 })
@@ -79,20 +100,36 @@ export const FORMAT_EXTENSIONS: Record<Format, string> = {pdf: 'pdf', json: 'jso
 export const outputFile = (notePath: string, outDir: string | null, format: Format): string =>
   outputPath(notePath, outDir, FORMAT_EXTENSIONS[format])
 
-/** The §6 JSON object of one note. */
-export const noteJson = (o: Pick<NoteOutcome, 'file' | 'sourceSha256' | 'diagnostics' | 'stages'>): object => ({
-  file: o.file,
-  sourceSha256: o.sourceSha256,
-  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
-  stages: o.stages
-})
+/** The output file name (no folder) of a note in one format. */
+const outputName = (notePath: string, format: Format): string => `${basename(notePath, extname(notePath))}.${FORMAT_EXTENSIONS[format]}`
 
-async function templateFor(name: string, res: Resources): Promise<Template> {
-  const known = res.templates.get(name)
-  if (known) return known
-  const t = await loadTemplate(name)
-  res.templates.set(name, t)
-  return t
+export {noteJson}
+
+/** The resources of one note: shared fonts and templates, images from the note's folder. */
+export function noteResources(path: string, res: Resources): NoteResources {
+  return {
+    fonts: res.fonts,
+    version: res.version,
+    template: async (name) => {
+      const known = res.templates.get(name)
+      if (known) return known
+      const t = await loadTemplate(name)
+      res.templates.set(name, t)
+      return t
+    },
+    images: (tree, file) => readImages(tree, path, file)
+  }
+}
+
+/** Read a note's bytes: it must exist and be a file. */
+export async function readNote(path: string, res: Resources): Promise<{ok: true; bytes: Uint8Array; resources: NoteResources} | {ok: false; outcome: NoteOutcome}> {
+  try {
+    const s = await stat(path)
+    if (!s.isFile()) return {ok: false, outcome: failedOutcome(path, `Expected a Markdown file, found a ${s.isDirectory() ? 'folder' : 'special file'}`)}
+    return {ok: true, bytes: new Uint8Array(await readFile(path)), resources: noteResources(path, res)}
+  } catch {
+    return {ok: false, outcome: failedOutcome(path, 'File not found or not readable')}
+  }
 }
 
 /**
@@ -116,43 +153,31 @@ function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
   }
 }
 
-export async function processNote(path: string, res: Resources, opts: RunOptions): Promise<NoteOutcome> {
-  // 1. Read: the note must exist, be a file, and be text.
-  let bytes: Buffer
-  try {
-    const s = await stat(path)
-    if (!s.isFile()) return failedOutcome(path, `Expected a Markdown file, found a ${s.isDirectory() ? 'folder' : 'special file'}`)
-    bytes = await readFile(path)
-  } catch {
-    return failedOutcome(path, 'File not found or not readable')
-  }
+/**
+ * Run one note from its bytes: `name` is the path as given (diagnostics, JSON `file`,
+ * output names); nothing is read but through `res`, nothing is written.
+ */
+export async function runNote(bytes: Uint8Array, name: string, res: NoteResources, opts: Pick<RunOptions, 'formats' | 'strict' | 'sourceDateEpoch'>): Promise<NoteResult> {
   const sha = createHash('sha256').update(bytes).digest('hex')
-  if (bytes.length > MAX_NOTE_BYTES) {
-    return failedOutcome(path, `The note is ${(bytes.length / 2 ** 20).toFixed(2)} MiB, larger than the ${MAX_NOTE_BYTES / 2 ** 20} MiB a note may be: split it into several notes`, sha)
-  }
-  if (bytes.includes(0)) return failedOutcome(path, 'This is a binary file, not a Markdown note (it contains NUL bytes)', sha)
-  const text = bytes.toString('utf8')
-  if (text.includes('\uFFFD') && !bytes.includes(Buffer.from('\uFFFD'))) {
-    return failedOutcome(path, 'The note is not valid UTF-8 text; save it as UTF-8', sha)
-  }
-  if (text.replace(/^\uFEFF/, '').trim() === '') return failedOutcome(path, 'The note is empty: expected Markdown prose and stage blocks', sha)
-  const file = new VFile({path, value: text})
+  const decoded = decodeNote(bytes)
+  if (!decoded.ok) return {outcome: failedOutcome(name, decoded.message, sha), files: []}
+  const file = new VFile({path: name, value: decoded.text})
 
-  // 2. Parse: front matter, blocks, the stage language.
+  // 1. Parse: front matter, blocks, the stage language.
   const parsed = parseNote(file)
   const templateName = parsed.meta.template ?? 'standard'
   let template: Template | null = null
   try {
-    template = await templateFor(templateName, res)
+    template = await res.template(templateName)
   } catch (error) {
     file.message(error instanceof Error ? error.message : String(error), {place: {line: 1, column: 1}, ruleId: 'template', source: 'ampreview'}).fatal = true
   }
 
-  // 3. Evaluate: engine and rules, per stage.
+  // 2. Evaluate: engine and rules, per stage.
   const evaluations = evaluateNote(parsed, file)
   markUnmet(file, evaluations)
   const wantPdf = opts.formats.includes('pdf')
-  const images = wantPdf ? await readImages(parsed.tree, path, file) : new Map<string, Uint8Array>()
+  const images = wantPdf ? await res.images(parsed.tree, file) : new Map<string, Uint8Array>()
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') ? {...d, severity: 'error'} : d))
@@ -160,59 +185,74 @@ export async function processNote(path: string, res: Resources, opts: RunOptions
   const notMet = requirements.filter((r) => !r.met).length
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
-    file: path, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
+    file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
     met: requirements.length - notMet, notMet, exitCode, outputs: []
   }
-  if (opts.formats.length === 0 || exitCode === 2 || template === null) return outcome
+  if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
 
-  const outDir = opts.outDir === null ? null : resolve(opts.outDir)
-  const writeAll = async (o: NoteOutcome, files: [string, Uint8Array | string][]): Promise<NoteOutcome> => {
-    try {
-      await writeAllAtomic(files)
-      return {...o, outputs: files.map(([p]) => p)}
-    } catch (error) {
-      const code = (error as NodeJS.ErrnoException).code
-      const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
-        : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
-          : error instanceof Error ? error.message : String(error)
-      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
-        message: `Cannot write the outputs of this note (${why}); no output file was replaced (choose another folder with --out)`}
-      return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
-    }
-  }
-  const jsonFile = (o: NoteOutcome): [string, string] => [outputFile(path, outDir, 'json'), `${toJson({files: [noteJson(o)]})}\n`]
+  const jsonFile = (o: NoteOutcome): NoteResult['files'][number] => ({name: outputName(name, 'json'), data: `${toJson({files: [noteJson(o)]})}\n`})
   // A JSON-only build needs neither the report tree nor the charts.
-  if (opts.formats.every((f) => f === 'json')) return writeAll(outcome, [jsonFile(outcome)])
+  if (opts.formats.every((f) => f === 'json')) return {outcome, files: [jsonFile(outcome)]}
 
-  // 4. Report: the tree with each block replaced by its section. The report and render
+  // 3. Report: the tree with each block replaced by its section. The report and render
   //    modules (vega, pdfkit) load only when something is to be drawn, keeping `check` fast.
   const [{buildReport}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
-    import('../report/build.js'), import('../render/index.js'), import('../report/markdown.js'), res.fonts()
+    import('../report/build.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
   ])
   const report = await buildReport({
     parsed, evaluations, fonts: {regular: fonts.regular, bold: fonts.bold},
     fragments: {method: template.method, closing: template.closing},
-    sourceSha256: sha, toolVersion: res.version, fileName: basename(path)
+    sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })
 
-  // 5. Render, then write every format at once, all or nothing.
-  const files: [string, Uint8Array | string][] = []
+  // 4. Render every format asked for.
+  const files: NoteResult['files'] = []
   let renderWarnings: string[] = []
   if (wantPdf) {
     const rendered = await renderPdf(report.document, {
       theme: template.theme, fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
-    files.push([outputFile(path, outDir, 'pdf'), rendered.pdf])
+    files.push({name: outputName(name, 'pdf'), data: rendered.pdf})
   }
   const warnings = [...report.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
   const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
   if (opts.formats.includes('json')) files.push(jsonFile(final))
   if (opts.formats.includes('md')) {
-    const mdPath = outputFile(path, outDir, 'md')
-    const stem = basename(mdPath, '.md')
+    const mdName = outputName(name, 'md')
+    const stem = basename(mdName, '.md')
     const md = reportToMarkdown(report.document, (n) => `${stem}.fig${n}.svg`)
-    files.push([mdPath, md.markdown], ...md.figures.map((f): [string, string] => [join(dirname(mdPath), f.name), f.svg]))
+    files.push({name: mdName, data: md.markdown}, ...md.figures.map((f) => ({name: f.name, data: f.svg})))
   }
-  return writeAll(final, files)
+  return {outcome: final, files}
+}
+
+/**
+ * Write a result's files into `outDir` (null: beside the note), all or nothing. A failed
+ * write becomes an error diagnostic (exit code 2) and replaces no earlier output.
+ */
+export async function writeOutputs(result: NoteResult, outDir: string | null): Promise<NoteOutcome> {
+  const o = result.outcome
+  if (result.files.length === 0) return o
+  const dir = outDir === null ? dirname(resolve(o.file)) : resolve(outDir)
+  const files = result.files.map((f): [string, Uint8Array | string] => [join(dir, f.name), f.data])
+  try {
+    await writeAllAtomic(files)
+    return {...o, outputs: files.map(([p]) => p)}
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code
+    const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
+      : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
+        : error instanceof Error ? error.message : String(error)
+    const d: Diagnostic = {severity: 'error', line: 1, column: 1,
+      message: `Cannot write the outputs of this note (${why}); no output file was replaced (choose another folder with --out)`}
+    return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
+  }
+}
+
+/** One note from its path to its written outputs: read → run → write. */
+export async function processNote(path: string, res: Resources, opts: RunOptions): Promise<NoteOutcome> {
+  const read = await readNote(path, res)
+  if (!read.ok) return read.outcome
+  return writeOutputs(await runNote(read.bytes, path, read.resources, opts), opts.outDir)
 }

@@ -12,8 +12,8 @@ import type {Root} from 'mdast'
 import {unified} from 'unified'
 import remarkParse from 'remark-parse'
 import remarkGfm from 'remark-gfm'
-import type {FontSet, Theme} from '../render/index.js'
-import {parseTheme} from '../render/theme.js'
+import type {FontSet, Theme} from '../render/pdf/index.js'
+import {parseTheme} from '../render/pdf/theme.js'
 
 /** The package root: two levels above this file, in src/ and in dist/ alike. */
 export const PACKAGE_ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..')

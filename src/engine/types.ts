@@ -3,7 +3,7 @@
  * op-amp resolved) and what the engine returns (`StageResult`).
  *
  * `StageResult`'s fields `id … requirements` are the `--json` contract of DESIGN §6; the
- * report-only fields (`curves`, `swing`, `bias`) are stripped by `src/report/json.ts`.
+ * report-only fields (`curves`, `swing`, `bias`) are stripped by `src/results/json.ts`.
  * Notes (`notes` in the JSON) come from `src/rules`, not from the engine.
  */
 

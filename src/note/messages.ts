@@ -14,7 +14,11 @@ export type BlockKind = 'stage' | 'opamp'
 export const blockName = (kind: BlockKind, id: string | null): string => (id === null ? `${kind} block` : `${kind} ${q(id)}`)
 
 export const noteMessages = {
-  binaryFile: () => 'Unexpected binary content (NUL bytes), expected a Markdown note saved as UTF-8 text',
+  binaryFile: () => 'This is a binary file, not a Markdown note (it contains NUL bytes)',
+  tooLarge: (bytes: number, max: number) =>
+    `The note is ${(bytes / 2 ** 20).toFixed(2)} MiB, larger than the ${max / 2 ** 20} MiB a note may be: split it into several notes`,
+  notUtf8: () => 'The note is not valid UTF-8 text; save it as UTF-8',
+  emptyNote: () => 'The note is empty: expected Markdown prose and stage blocks',
   tooManyBlocks: (found: number, max: number) =>
     `Unexpected ${found} stage and opamp blocks in one note, expected at most ${max}: split the note into several`,
   tooDeep: (max: number) =>

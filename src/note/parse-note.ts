@@ -1,7 +1,7 @@
 /**
  * Reading a note: Markdown (remark, GFM, YAML front matter) to `ParsedNote`.
  *
- *   1. Refuse binary input (NUL bytes): one error at 1:1.
+ *   1. (Bytes are checked before, once, by `decodeNote` in ./decode.ts.)
  *   2. Parse with unified + remark-parse + remark-frontmatter + remark-gfm.
  *   3. Front matter to `DocumentMeta`, and warn when it is not on line 1.
  *   4. Collect every fenced `stage`/`opamp`/`chain` block in document order.
@@ -131,10 +131,6 @@ function swallowedFence(value: string): {text: string; line: number; column: num
 export function parseNote(file: VFile): ParsedNote {
   const report = reporterFor(file)
   const text = file.toString()
-  if (text.includes('\u0000')) {
-    report.error(noteMessages.binaryFile(), {line: 1, column: 1}, 'binary-file')
-    return {meta: emptyMeta(), tree: {type: 'root', children: []}, stages: [], opamps: []}
-  }
   const source = sourceOf(text)
   const processor = unified().use(remarkParse).use(remarkFrontmatter, ['yaml']).use(remarkGfm)
   const tree: Root = processor.parse(text)

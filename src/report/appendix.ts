@@ -4,7 +4,7 @@
  */
 import type {Root, RootContent} from 'mdast'
 import {ARCHETYPE_DISCLAIMER} from '../engine/archetypes.js'
-import type {StageEvaluation} from './evaluate.js'
+import type {StageEvaluation} from '../evaluate/index.js'
 import {bulletList, code, heading, paragraph, table} from './mdast.js'
 
 export interface AppendixInput {

@@ -5,7 +5,7 @@
  */
 import type {Root, RootContent} from 'mdast'
 import type {ParsedNote, StageBlockNode} from '../note/types.js'
-import type {StageEvaluation} from './evaluate.js'
+import type {StageEvaluation} from '../evaluate/index.js'
 import type {ReportContext} from './context.js'
 import type {ChartFonts} from './vega.js'
 import {buildAppendix} from './appendix.js'

@@ -3,8 +3,8 @@
  * document's overall verdict, and the cover rows.
  */
 import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine/types.js'
-import type {StageEvaluation} from './evaluate.js'
-import {REQUIREMENT_LABELS, requirementUnit} from './labels.js'
+import type {StageEvaluation} from '../evaluate/index.js'
+import {REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
 import type {CoverVerdict, Verdict} from './types.js'
 

@@ -13,8 +13,8 @@ import {parentPort} from 'node:worker_threads'
 import {VFile} from 'vfile'
 import {parseQuantity, parseRange, parseResistor, parseSupply} from '../../dist/units/index.js'
 import {parseNote} from '../../dist/note/index.js'
-import {evaluateNote} from '../../dist/report/evaluate.js'
-import {jsonStage} from '../../dist/report/json.js'
+import {evaluateNote} from '../../dist/evaluate/index.js'
+import {jsonStage} from '../../dist/results/json.js'
 
 const finite = (x) => typeof x === 'number' && Number.isFinite(x)
 

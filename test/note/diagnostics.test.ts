@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {TOPOLOGIES} from '../../src/engine/types.js'
-import {noteMessages} from '../../src/note/index.js'
+import {decodeNote, noteMessages} from '../../src/note/index.js'
 import {unitsMessages} from '../../src/units/index.js'
 import {blocksOf, errorsOf, noteOf} from './helpers.js'
 
@@ -227,8 +227,11 @@ describe('parseNote() fences and files', () => {
     expect(parsed.tree.children[0]?.type).toBe('code')
   })
 
-  it('reports a binary file once, at 1:1', () => {
-    expect(noteOf(new Uint8Array([0x23, 0x00, 0x41])).diagnostics).toEqual([err(1, 1, noteMessages.binaryFile())])
+  it('refuses a binary file before parsing, with one message', () => {
+    expect(decodeNote(new Uint8Array([0x23, 0x00, 0x41]))).toEqual({ok: false, message: noteMessages.binaryFile()})
+    expect(decodeNote(new Uint8Array([0x23, 0xff, 0x41]))).toEqual({ok: false, message: noteMessages.notUtf8()})
+    expect(decodeNote(new TextEncoder().encode('# A \uFFFD kept\n'))).toEqual({ok: true, text: '# A \uFFFD kept\n'})
+    expect(decodeNote(new TextEncoder().encode(' \n\t'))).toEqual({ok: false, message: noteMessages.emptyNote()})
   })
 
   it('warns about front matter after a blank line', () => {

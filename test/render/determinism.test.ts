@@ -4,7 +4,7 @@
  */
 import {createHash} from 'node:crypto'
 import {afterEach, describe, expect, it} from 'vitest'
-import {renderPdf} from '../../src/render/index.js'
+import {renderPdf} from '../../src/render/pdf/index.js'
 import {fontSet, standardTheme} from './helpers.js'
 import {sampleReport} from './sample.js'
 

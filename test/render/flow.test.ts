@@ -4,7 +4,7 @@
  * follows, figures stay whole, and no page is left without content.
  */
 import {beforeAll, describe, expect, it} from 'vitest'
-import {renderPdf} from '../../src/render/index.js'
+import {renderPdf} from '../../src/render/pdf/index.js'
 import {flowReport, range} from './flow-sample.js'
 import {fontSet, readPdf, standardTheme, type ReadBack} from './helpers.js'
 

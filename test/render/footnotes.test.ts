@@ -3,7 +3,7 @@
  * body in that order, unreferenced definitions last.
  */
 import {describe, expect, it} from 'vitest'
-import {renderPdf} from '../../src/render/index.js'
+import {renderPdf} from '../../src/render/pdf/index.js'
 import {fontSet, readPdf, report, standardTheme} from './helpers.js'
 
 describe('renderPdf() footnotes', () => {

@@ -11,7 +11,7 @@ import remarkGfm from 'remark-gfm'
 import remarkParse from 'remark-parse'
 import {unified} from 'unified'
 import type {DocumentMeta} from '../../src/note/types.js'
-import {parseTheme, type FontSet, type Theme} from '../../src/render/index.js'
+import {parseTheme, type FontSet, type Theme} from '../../src/render/pdf/index.js'
 import type {CoverVerdict, ReportDocument, Verdict} from '../../src/report/types.js'
 
 const ROOT = resolve(import.meta.dirname, '..', '..')

@@ -3,7 +3,7 @@
  * furniture, outline, figure text, callouts, links and the cover.
  */
 import {beforeAll, describe, expect, it} from 'vitest'
-import {renderPdf, type RenderOutput} from '../../src/render/index.js'
+import {renderPdf, type RenderOutput} from '../../src/render/pdf/index.js'
 import {fontSet, nfkc, readPdf, standardTheme, type ReadBack} from './helpers.js'
 import {SYMBOLS, sampleReport} from './sample.js'
 

@@ -3,7 +3,7 @@
  * the page option changes the paper size.
  */
 import {describe, expect, it} from 'vitest'
-import {parseTheme, renderPdf} from '../../src/render/index.js'
+import {parseTheme, renderPdf} from '../../src/render/pdf/index.js'
 import {fontSet, readPdf, report, themeJson} from './helpers.js'
 
 /** The theme JSON as nested objects, to spoil one field per case. */

@@ -6,7 +6,7 @@
 import {deflateSync, crc32} from 'node:zlib'
 import type {RootContent} from 'mdast'
 import {describe, expect, it} from 'vitest'
-import {renderPdf, type RenderOutput} from '../../src/render/index.js'
+import {renderPdf, type RenderOutput} from '../../src/render/pdf/index.js'
 import {fontSet, readPdf, report, standardTheme} from './helpers.js'
 
 async function render(body: string, nodes: RootContent[] = [], images = new Map<string, Uint8Array>()): Promise<RenderOutput> {

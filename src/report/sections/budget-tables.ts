@@ -3,7 +3,7 @@
  */
 import type {Table} from 'mdast'
 import type {StageResult} from '../../engine/types.js'
-import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../labels.js'
+import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../../results/labels.js'
 import {db, deg, pct, q} from '../format.js'
 import {code, strong} from '../mdast.js'
 import {table} from '../mdast.js'

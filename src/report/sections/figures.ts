@@ -1,12 +1,12 @@
 /**
  * Charts of one stage: vega-lite specs from src/report/charts rendered to SVG figure nodes.
  */
-import type {StageEvaluation} from '../evaluate.js'
+import type {StageEvaluation} from '../../evaluate/index.js'
 import type {ReportContext} from '../context.js'
 import type {FigureNode} from '../types.js'
 import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec} from '../charts/index.js'
 import {renderChartSvg} from '../vega.js'
-import {DC_LABELS, NOISE_LABELS} from '../labels.js'
+import {DC_LABELS, NOISE_LABELS} from '../../results/labels.js'
 import type {TopLevelSpec} from 'vega-lite'
 
 /** SVG user units (px, 96 per inch) to PDF points (72 per inch). */

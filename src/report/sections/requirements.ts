@@ -3,8 +3,8 @@
  */
 import type {BlockContent} from 'mdast'
 import {REQUIREMENT_KEYS} from '../../engine/types.js'
-import type {StageEvaluation} from '../evaluate.js'
-import {REQUIREMENT_LABELS} from '../labels.js'
+import type {StageEvaluation} from '../../evaluate/index.js'
+import {REQUIREMENT_LABELS} from '../../results/labels.js'
 import {verdictText} from '../format.js'
 import {callout, code, paragraph, table} from '../mdast.js'
 import {combine, margin, requirementValue, verdictOf} from '../verdicts.js'

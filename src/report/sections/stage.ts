@@ -4,10 +4,10 @@
  * requirement verdicts, then the practice and safety notes.
  */
 import type {BlockContent} from 'mdast'
-import type {StageEvaluation} from '../evaluate.js'
+import type {StageEvaluation} from '../../evaluate/index.js'
 import type {StageBlockNode} from '../../note/types.js'
 import {nextTable, type ReportContext} from '../context.js'
-import {TOPOLOGY_LABELS} from '../labels.js'
+import {TOPOLOGY_LABELS} from '../../results/labels.js'
 import {q} from '../format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
 import {dcTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'

@@ -6,7 +6,7 @@
  */
 import {renderBlocks} from './blocks.js'
 import {applyStyle, atPageTop, drawText, indented, newPage, pageBodyHeight, spaceLeft, type RenderContext} from './context.js'
-import type {CalloutNode} from '../report/types.js'
+import type {CalloutNode} from '../../report/types.js'
 import {measureBlocks} from './measure.js'
 import {lastPageIndex} from './pdfkit.js'
 import {drawShape} from './shapes.js'

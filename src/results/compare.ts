@@ -6,20 +6,19 @@
 import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
 import {formatQuantity} from '../units/format.js'
 import {gainUnit, inputUnit, requirementUnit} from './labels.js'
+import type {JsonStage} from './json.js'
 
-/** The parts of the §6 object that a comparison reads. */
+/** The parts of a stage's §6 object that a comparison reads (older result files may lack the topology). */
+type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> & {
+  topology?: string
+  dc: Pick<JsonStage['dc'], 'contributors' | 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'rssInput'>
+  noise: Pick<JsonStage['noise'], 'outputRms' | 'outputPeakToPeak' | 'inputRms' | 'contributors'>
+  stability: JsonStage['stability']
+}
+
+/** The parts of a run (`JsonRun`, declared once in ./json.ts) that a comparison reads. */
 export interface RunJson {
   files: {file: string; stages: StageJson[]}[]
-}
-interface StageJson {
-  id: string
-  topology?: string
-  gain: number
-  noiseGain: number
-  dc: {contributors: {key: string; output: number}[]; worstCaseOutput: number; rssOutput: number; worstCaseInput: number; rssInput: number}
-  noise: {outputRms: number; outputPeakToPeak: number; inputRms: number; contributors: {key: string; outputRms: number}[]}
-  stability: {phaseMargin: number | null; crossover: number | null; bandwidth: number | null; peaking: number; suggestedCf: number | null}
-  requirements: {key: string; limit: number; value: number | null; met: boolean}[]
 }
 
 export interface ValueChange {

@@ -6,7 +6,7 @@
  * when it does not fit on one.
  */
 import type {Heading} from 'mdast'
-import type {ReportDocument, Verdict} from '../report/types.js'
+import type {ReportDocument, Verdict} from '../../report/types.js'
 import {drawHeading, renderBlocks} from './blocks.js'
 import {drawText, keepSpace, measureText, type RenderContext} from './context.js'
 import {STATUS_WORDS} from './furniture.js'

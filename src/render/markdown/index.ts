@@ -6,9 +6,9 @@
 import type {BlockContent, Root, RootContent} from 'mdast'
 import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
-import {verdictText} from './format.js'
-import {heading, paragraph, strong, table, text} from './mdast.js'
-import type {ReportDocument} from './types.js'
+import {verdictText} from '../../report/format.js'
+import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
+import type {ReportDocument} from '../../report/types.js'
 
 export interface MarkdownReport {
   markdown: string

@@ -3,7 +3,28 @@
  * contract's order, report-only fields dropped. Numbers are plain SI; a value that does
  * not exist is null (never NaN or Infinity).
  */
-import type {StageEvaluation} from './evaluate.js'
+import type {StageEvaluation} from '../evaluate/index.js'
+
+/** One diagnostic of a note, as the contract carries it. */
+export interface JsonDiagnostic {
+  severity: 'error' | 'warning' | 'info'
+  message: string
+  line: number
+  column: number
+}
+
+/** One note of a run: the path as given, the source's hash, its diagnostics and stages. */
+export interface JsonNote {
+  file: string
+  sourceSha256: string
+  diagnostics: JsonDiagnostic[]
+  stages: JsonStage[]
+}
+
+/** The whole result of a run (`--json`, `<note>.json`, what `compare` and `merge` read). */
+export interface JsonRun {
+  files: JsonNote[]
+}
 
 export interface JsonStage {
   id: string
@@ -57,6 +78,14 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
   }
 }
+
+/** The §6 object of one note (exactly its fields, in order). */
+export const noteJson = (o: JsonNote): JsonNote => ({
+  file: o.file,
+  sourceSha256: o.sourceSha256,
+  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
+  stages: o.stages
+})
 
 /** JSON text with non-finite numbers as null (JSON.stringify already writes them as null; this makes it explicit). */
 export const toJson = (value: unknown): string =>

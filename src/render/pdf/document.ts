@@ -11,7 +11,7 @@
  * No file I/O, no clock, no environment: fonts, images and the date arrive as values, so
  * the same input gives the same bytes.
  */
-import type {ReportDocument} from '../report/types.js'
+import type {ReportDocument} from '../../report/types.js'
 import {renderBlocks} from './blocks.js'
 import {newPage, type RenderContext} from './context.js'
 import {drawCover} from './cover.js'

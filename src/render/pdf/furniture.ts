@@ -4,7 +4,7 @@
  * at right). The cover gets only the rule and the footer. The bottom margin is zeroed while
  * drawing and text is placed with `lineBreak: false`, so no blank page can appear.
  */
-import type {DocumentMeta} from '../note/types.js'
+import type {DocumentMeta} from '../../note/types.js'
 import {applyStyle, type RenderContext, type TextStyle} from './context.js'
 import type {FontKey} from './fonts.js'
 

@@ -8,7 +8,7 @@
 import {applyStyle, bodyStyle, keepSpace, measureText, pageBodyHeight, type RenderContext, type TextStyle} from './context.js'
 import {FONT_NAMES, svgFontName} from './fonts.js'
 import {drawSvg} from './pdfkit.js'
-import type {FigureNode} from '../report/types.js'
+import type {FigureNode} from '../../report/types.js'
 
 const CAPTION_GAP = 4
 
