@@ -36,8 +36,16 @@ export {
   inverting,
   noninverting,
   transimpedance,
+  difference,
+  lowpassSallenKey,
+  lowpassMfb,
+  differencePlusPin,
+  loadElements,
   type ResistorKey,
   type ResistorValues,
   type TopologyModel,
   type TopologyTerms
 } from './topology/index.js'
+export {capacitiveLoadAdvice, marginOverRiso, RISO_RANGE, type CapacitiveLoadAdvice} from './suggested-riso.js'
+export {filterFigures, FILTER_TOPOLOGIES, isFilterTopology} from './filter.js'
+export {setResistance} from './nodal.js'

@@ -1,0 +1,36 @@
+/**
+ * capacitive-load: a capacitive load eats the phase margin (DESIGN §8.3).
+ *
+ * What it checks: the phase margin with the stage's `cload` against the margin with cload
+ * removed (the op-amp's `rout` with cload is a second pole in the loop).
+ *
+ * When it fires: the load costs more than 15°. Severity warning when the margin left is
+ * under 45°, caution otherwise.
+ *
+ * What it recommends: the smallest `riso` (a search over 0.1 Ω … 10 kΩ, like the Cf
+ * suggestion of a transimpedance stage) that brings the margin back to 60° when that is
+ * reachable, else to 45°, with the closed-loop bandwidth it leaves at the load; or, when no
+ * riso reaches 45°, a smaller load or an amplifier specified for capacitive loads.
+ */
+import {capacitiveLoadAdvice} from '../engine/suggested-riso.js'
+import {formatAngle, formatQuantity} from '../units/format.js'
+import type {Rule, RuleContext, RuleFinding} from './rule.js'
+
+const COST_LIMIT = 15
+const LOW_MARGIN = 45
+
+function check({input}: RuleContext): RuleFinding[] {
+  const a = capacitiveLoadAdvice(input)
+  if (a === null || a.cost === null || a.cost <= COST_LIMIT || a.margin === null || a.marginWithoutLoad === null) return []
+  const load = `cload = ${formatQuantity(input.cload, 'F')} with rout = ${formatQuantity(input.opamp.rout, 'Ω')}${input.riso ? ` and riso = ${formatQuantity(input.riso.value, 'Ω')}` : ''}`
+  const head = `The capacitive load costs ${formatAngle(a.cost)} of phase margin (${load}): ${formatAngle(a.margin)} against ${formatAngle(a.marginWithoutLoad)} unloaded.`
+  const fix = a.riso === null || a.target === null
+    ? ' No riso up to 10 kΩ brings the margin back to 45°: consider a smaller load, a lower-impedance buffer, or an amplifier specified for capacitive loads.'
+    : ` riso = ${formatQuantity(a.riso, 'Ω')} between the output pin and the load (feedback taken at the pin) brings it back to ${formatAngle(a.target)}` +
+      (a.bandwidth === null ? '.' : `, leaving a closed-loop bandwidth of ${formatQuantity(a.bandwidth, 'Hz')} at the load.`) +
+      ' Check the DC drop riso makes with any resistive load, and take the next standard value up.'
+  return [{severity: a.margin < LOW_MARGIN ? 'warning' : 'caution', text: head + fix}]
+}
+
+const rule: Rule<'capacitive-load'> = {id: 'capacitive-load', check}
+export default rule
