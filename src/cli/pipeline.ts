@@ -23,7 +23,7 @@ import {evaluateNote, type StageEvaluation} from '../evaluate/index.js'
 import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
-import {requirementValue} from '../report/verdicts.js'
+import {limitText, requirementValue} from '../report/verdicts.js'
 import {reportDate} from './dates.js'
 import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
 import {readImages} from './images.js'
@@ -143,9 +143,14 @@ function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
       file.message(`Stage \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place: ev.block.position?.start, ruleId: n.rule, source: 'ampreview'})
     }
     for (const r of ev.result.requirements) {
-      if (r.met) continue
-      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
+      if (r.met !== false) continue
       const t = ev.input.topology
+      if (r.kind === 'limit') {
+        file.message(`Limit \`${r.key}\` of stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${limitText(r, t)}`,
+          {place: ev.block.position?.start, ruleId: 'limit-not-met', source: 'ampreview'})
+        continue
+      }
+      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
       const sense = REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
       file.message(`Requirement \`${r.key}\` of stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${sense} ${requirementValue(r, 'limit', t)}`,
         {place: entry ? {line: entry.line, column: entry.column} : ev.block.position?.start, ruleId: 'requirement-not-met', source: 'ampreview'})
@@ -180,13 +185,14 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   const images = wantPdf ? await res.images(parsed.tree, file) : new Map<string, Uint8Array>()
 
   let diagnostics = diagnosticsOf(file)
-  if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') ? {...d, severity: 'error'} : d))
+  if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') && !d.message.startsWith('Limit ') ? {...d, severity: 'error'} : d))
   const requirements = evaluations.flatMap((ev) => ev.result.requirements)
-  const notMet = requirements.filter((r) => !r.met).length
+  // A limit not met fails like a requirement (exit 1); a skipped limit (met null) counts neither way.
+  const notMet = requirements.filter((r) => r.met === false).length
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
     file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
-    met: requirements.length - notMet, notMet, exitCode, outputs: []
+    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: []
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
 

@@ -24,7 +24,12 @@ export const ARCHETYPE_DISCLAIMER =
 
 const dB = (x: number): number => 10 ** (x / 20)
 
-const base = {archetype: true, ibMax: null, iosMax: null, ibDoubling: null, vcmRef: null} as const
+const base = {
+  archetype: true, ibMax: null, iosMax: null, ibDoubling: null, vcmRef: null,
+  swingHeadroomNeg: null, swingHeadroomPos: null, cmHeadroom: null, cmHeadroomNeg: null, cmHeadroomPos: null,
+  // rout: each archetype's invented open-loop output resistance (what a capacitive load sees, DESIGN §8.3).
+  ioutMax: null
+} as const
 
 /** The archetypes, SI. Invented values (demo only), typical of each class. */
 export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
@@ -34,7 +39,7 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 12e-9, enCorner: 20, in: 0.6e-12, inCorner: 200,
     gbw: 1.5e6, aol: dB(100), pmUnity: 60, cmrr: dB(86), psrr: dB(90),
     cinDiff: 2e-12, cinCm: 3e-12, slew: 0.6e6, swingHeadroom: 1.5,
-    rout: 80, ioutMax: 20e-3
+    rout: 80
   },
   'precision-bipolar': {
     ...base, name: 'precision-bipolar', inputType: 'bipolar',
@@ -42,7 +47,7 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 8e-9, enCorner: 3, in: 0.12e-12, inCorner: 80,
     gbw: 1e6, aol: dB(128), pmUnity: 62, cmrr: dB(120), psrr: dB(115),
     cinDiff: 3e-12, cinCm: 4e-12, slew: 0.3e6, swingHeadroom: 1.2,
-    rout: 60, ioutMax: 15e-3
+    rout: 60
   },
   'bias-cancelled-bipolar': {
     ...base, name: 'bias-cancelled-bipolar', inputType: 'bipolar-cancelled',
@@ -50,7 +55,7 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 10e-9, enCorner: 5, in: 0.2e-12, inCorner: 60,
     gbw: 700e3, aol: dB(124), pmUnity: 60, cmrr: dB(118), psrr: dB(112),
     cinDiff: 4e-12, cinCm: 4e-12, slew: 0.25e6, swingHeadroom: 1.2,
-    rout: 60, ioutMax: 15e-3
+    rout: 60
   },
   'precision-jfet': {
     ...base, name: 'precision-jfet', inputType: 'jfet',
@@ -58,7 +63,7 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 11e-9, enCorner: 80, in: 2e-15, inCorner: 0,
     gbw: 5e6, aol: dB(112), pmUnity: 55, cmrr: dB(100), psrr: dB(100),
     cinDiff: 8e-12, cinCm: 6e-12, slew: 15e6, swingHeadroom: 1.5,
-    rout: 50, ioutMax: 25e-3
+    rout: 50
   },
   'precision-cmos': {
     ...base, name: 'precision-cmos', inputType: 'cmos',
@@ -66,7 +71,7 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 18e-9, enCorner: 400, in: 0.6e-15, inCorner: 0,
     gbw: 3e6, aol: dB(115), pmUnity: 58, cmrr: dB(95), psrr: dB(95),
     cinDiff: 5e-12, cinCm: 5e-12, slew: 2e6, swingHeadroom: 0.05,
-    rout: 120, ioutMax: 10e-3
+    rout: 120
   },
   'zero-drift': {
     ...base, name: 'zero-drift', inputType: 'zero-drift',
@@ -74,6 +79,6 @@ export const ARCHETYPES: Record<ArchetypeName, OpampParams> = {
     en: 40e-9, enCorner: 0, in: 0.15e-12, inCorner: 0,
     gbw: 1.8e6, aol: dB(130), pmUnity: 58, cmrr: dB(125), psrr: dB(120),
     cinDiff: 6e-12, cinCm: 6e-12, slew: 1e6, swingHeadroom: 0.05,
-    rout: 90, ioutMax: 12e-3
+    rout: 90
   }
 }

@@ -28,3 +28,6 @@ export const TARGET_PHASE_MARGIN = 60
 
 /** Largest Cf the transimpedance suggestion considers, F (DESIGN §4.4). */
 export const MAX_SUGGESTED_CF = 1e-6
+
+/** Default dark-current doubling interval, K (common practice: a silicon photodiode's dark current roughly doubles every 8–10 K). */
+export const DEFAULT_IDARK_DOUBLING = 10

@@ -2,7 +2,7 @@
  * `evaluateStage`: the whole engine for one stage, StageInput → StageResult (DESIGN §4).
  *
  *   1. topology terms (§4.1)   2. DC budget (§4.2)   3. noise (§4.3)
- *   4. stability (§4.4)        5. swing (§4.1)       6. requirements (§3.3)
+ *   4. stability (§4.4)        5. limits (§4.6)      6. requirements (§3.3), then the limits
  *
  * Pure: no I/O, clock or randomness; the same input gives the same result.
  */
@@ -11,7 +11,7 @@ import {filterFigures} from './filter.js'
 import {noiseAnalysis} from './noise/budget.js'
 import {checkRequirements} from './requirements.js'
 import {stabilityAnalysis} from './stability.js'
-import {swingCheck} from './swing.js'
+import {checkLimits, swingOf} from './limits.js'
 import {topologyTerms} from './topology/index.js'
 import type {StageInput, StageResult} from './types.js'
 
@@ -46,6 +46,7 @@ export function evaluateStage(input: StageInput): StageResult {
   const noise = noiseAnalysis(input)
   const loop = stabilityAnalysis(input)
   const figures = {dc: dc.budget, noise: noise.budget, stability: loop.stability}
+  const limits = checkLimits(input)
   return {
     id: input.id,
     topology: input.topology,
@@ -54,9 +55,9 @@ export function evaluateStage(input: StageInput): StageResult {
     noiseGain: terms.noiseGain,
     ...figures,
     filter: filterFigures(input),
-    requirements: checkRequirements(input, figures),
+    requirements: [...checkRequirements(input, figures), ...limits],
     curves: {...noise.curves, ...loop.curves},
-    swing: swingCheck(input),
+    swing: swingOf(input, limits),
     bias: dc.bias
   }
 }

@@ -15,7 +15,7 @@
 import type {OpampPoles} from './opamp-model.js'
 
 /** Node names used by the topologies. */
-export const NODE_NAMES = ['gnd', 'src', 'srcn', 'x', 'y', 'p', 'm', 'a', 'o', 'l'] as const
+export const NODE_NAMES = ['gnd', 'src', 'srcn', 'ref', 'x', 'y', 'p', 'm', 'a', 'o', 'l'] as const
 export type NodeName = (typeof NODE_NAMES)[number]
 
 /** Labels of the elements; resistor labels double as noise keys `r:<label>`. */
@@ -43,6 +43,12 @@ export interface NetlistSpec {
    * `minus`, a differential voltage: `node` at +½ and `minus` at −½ of the drive.
    */
   drive: {kind: 'voltage' | 'current'; node: NodeName; minus?: NodeName}
+  /**
+   * Ideal DC sources (vref and the like): each node is held at `volts` for the DC solve
+   * (`dc/solve.ts`) and is an AC ground for the small-signal circuit (an ideal, noiseless
+   * source). Absent = none.
+   */
+  dcSources?: {node: NodeName; volts: number}[]
   opamp: OpampPoles
 }
 
@@ -72,15 +78,22 @@ export interface Netlist {
   probe: number
   /** `minus` is −1 for a single-ended drive. */
   drive: {kind: 'voltage' | 'current'; node: number; minus: number}
+  /** Nodes held at a DC voltage (only when built with `keepDcSources`; else empty). */
+  dcSources: {node: number; volts: number}[]
   opamp: OpampPoles
 }
 
 // Merge priority: ground, then the driven source nodes, then the op-amp's source, so that a
 // merged node keeps the role that fixes its voltage.
-const PRIORITY: Record<NodeName, number> = {gnd: 0, src: 1, srcn: 2, a: 3, o: 4, l: 5, p: 6, m: 7, x: 8, y: 9}
+// A DC source node ranks after the signal sources for the same reason.
+const PRIORITY: Record<NodeName, number> = {gnd: 0, src: 1, srcn: 2, ref: 3, a: 4, o: 5, l: 6, p: 7, m: 8, x: 9, y: 10}
 
-/** Merge wired nodes, number the rest and compile the elements. */
-export function buildNetlist(spec: NetlistSpec): Netlist {
+/**
+ * Merge wired nodes, number the rest and compile the elements. For the small-signal circuit
+ * (the default) the `dcSources` nodes are joined to ground; `keepDcSources` leaves them as
+ * nodes of their own (the DC solve fixes their voltage).
+ */
+export function buildNetlist(spec: NetlistSpec, keepDcSources = false): Netlist {
   const parent = new Map<NodeName, NodeName>(NODE_NAMES.map((n) => [n, n]))
   const find = (n: NodeName): NodeName => {
     let r = n
@@ -95,6 +108,7 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
     else parent.set(ra, rb)
   }
   for (const [a, b] of spec.wires) join(a, b)
+  if (!keepDcSources) for (const d of spec.dcSources ?? []) join('gnd', d.node)
   for (const e of spec.elements) if (e.kind === 'r' && e.value === 0) join(e.a, e.b)
 
   const index = new Map<NodeName, number>([['gnd', 0]])
@@ -113,6 +127,7 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
   const pin = indexOf('o')
   const probe = indexOf('l')
   const drive = {kind: spec.drive.kind, node: indexOf(spec.drive.node), minus: spec.drive.minus === undefined ? -1 : indexOf(spec.drive.minus)}
+  const dcSources = keepDcSources ? (spec.dcSources ?? []).map((d) => ({node: indexOf(d.node), volts: d.volts})) : []
   const elements: NetElement[] = []
   for (const e of spec.elements) {
     if (e.kind === 'r' && e.value === 0) continue
@@ -122,5 +137,5 @@ export function buildNetlist(spec: NetlistSpec): Netlist {
     if (a === b) continue
     elements.push({label: e.label, kind: e.kind === 'r' ? 'g' : 'c', a, b, value: e.kind === 'r' ? 1 / e.value : e.value})
   }
-  return {nodeCount: index.size, elements, plus, minus, out, pin, probe, drive, opamp: spec.opamp}
+  return {nodeCount: index.size, elements, plus, minus, out, pin, probe, drive, dcSources, opamp: spec.opamp}
 }

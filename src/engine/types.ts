@@ -25,7 +25,10 @@ export const REQUIREMENT_KEYS = {
   'noise-rms': {unit: 'V', sense: 'max'},
   'noise-pp': {unit: 'V', sense: 'max'},
   'phase-margin': {unit: 'deg', sense: 'min'},
-  bandwidth: {unit: 'Hz', sense: 'min'}
+  bandwidth: {unit: 'Hz', sense: 'min'},
+  /** Worst-case DC error after calibration (DESIGN §4.6); the full worst case without one. */
+  'output-error-calibrated': {unit: 'V', sense: 'max'},
+  'input-error-calibrated': {unit: 'V', sense: 'max'}
 } as const
 export type RequirementKey = keyof typeof REQUIREMENT_KEYS
 
@@ -92,15 +95,30 @@ export interface OpampParams {
   cinDiff: number
   /** Common-mode input capacitance, each input to ground, F. */
   cinCm: number
-  /** Slew rate, V/s. */
-  slew: number
-  /** Output swing headroom to each rail, V. */
-  swingHeadroom: number
-  /** Open-loop output resistance, Ω (DESIGN §8.3; 0 = an ideal source). */
-  rout: number
-  /** Maximum output current, A; null when not entered (DESIGN §4.6). */
+  /** Slew rate, V/s; null when not entered (the slew limit is then skipped, DESIGN §4.6). */
+  slew: number | null
+  /** Output swing headroom to each rail, V; null when not entered (DESIGN §4.6). */
+  swingHeadroom: number | null
+  /** Output swing headroom to the negative rail, V; null = use `swingHeadroom`. */
+  swingHeadroomNeg: number | null
+  /** Output swing headroom to the positive rail, V; null = use `swingHeadroom`. */
+  swingHeadroomPos: number | null
+  /** Input common-mode headroom to each rail, V (negative: the range extends beyond the rail); null when not entered. */
+  cmHeadroom: number | null
+  /** Common-mode headroom to the negative rail, V; null = use `cmHeadroom`. */
+  cmHeadroomNeg: number | null
+  /** Common-mode headroom to the positive rail, V; null = use `cmHeadroom`. */
+  cmHeadroomPos: number | null
+  /** Largest output current, A; null when not entered. */
   ioutMax: number | null
+  /** Open-loop output resistance, Ω; null when not entered (used with loads, DESIGN §8.3). */
+  rout: number | null
 }
+
+/** Room-temperature calibration of a stage (DESIGN §4.6). */
+export const CALIBRATIONS = ['none', 'offset', 'offset-and-gain'] as const
+export type Calibration = (typeof CALIBRATIONS)[number]
+export const isCalibration = (s: string): s is Calibration => (CALIBRATIONS as readonly string[]).includes(s)
 
 /** An inclusive range [low, high]. */
 export type Range = readonly [number, number]
@@ -129,8 +147,12 @@ export interface StageInput {
   rshunt: number | null
   /** Transimpedance source capacitance, F. */
   csource: number
-  /** Transimpedance source DC current at the hot end, A. */
+  /** Transimpedance source DC current (dark current) at 25 °C, A. */
   idark: number
+  /** Dark current over the temperature range, A; null = idark·2^(max(0, Tmax − 25)/idarkDoubling). */
+  idarkMax: number | null
+  /** Dark-current doubling interval, K (default 10 K, common practice for silicon photodiodes). */
+  idarkDoubling: number
   /** Voltage on the + input of inverting and transimpedance stages, and the reference node of `difference` and `lowpass-mfb` stages, V. */
   vref: number
   /** Difference: + leg resistor, source + to the + pin (DESIGN §8.1). */
@@ -145,8 +167,6 @@ export interface StageInput {
   c2: Capacitor | null
   /** Series isolation resistor between the output pin and the load (DESIGN §8.3); null = none. */
   riso: Resistor | null
-  /** Load resistance from the load node to ground, Ω; null = open. */
-  rload: number | null
   /** Load capacitance from the load node to ground, F. */
   cload: number
   /** Capacitance from the + pin to ground, F. */
@@ -161,10 +181,18 @@ export interface StageInput {
   supplyTolerance: number
   /** Temperature range, °C (default 25 .. 25). */
   temperature: Range
+  /** False when the note gave no `temperature` (the 25 .. 25 °C default applies); absent = not known. */
+  temperatureEntered?: boolean
   /** Noise band [fL, fH], Hz, fL > 0. */
   band: Range
   /** Noise temperature, °C (default 25). */
   noiseTemperature: number
+  /** Signal frequency for the slew limit, Hz; null = the band's top (DESIGN §4.6). */
+  signalFrequency: number | null
+  /** Load resistance from the load node (after riso) to ground, Ω; null = none (DESIGN §4.6, §8.3). */
+  rload: number | null
+  /** Room-temperature calibration (DESIGN §4.6, default none). */
+  calibration: Calibration
   /** Requirement limits, SI (V, Hz, degrees). */
   require: Partial<Record<RequirementKey, number>>
 }
@@ -175,16 +203,14 @@ export type DcKey = (typeof DC_KEYS)[number]
 
 /** Noise contributor keys (DESIGN §4.3). */
 export const NOISE_KEYS = [
-  'en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot'
+  'en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot', 'shot-signal'
 ] as const
 export type NoiseKey = (typeof NOISE_KEYS)[number]
 
-export interface DcBudget {
-  /** ΔT = max(Tmax − 25, 25 − Tmin, 0), K. */
-  temperatureSpan: number
-  /** max|G · input| over the input range, V. */
-  fullScaleOutput: number
-  /** Every key that applies to the topology, zero or not; output-referred magnitude, V. */
+/** The residual budget after a room-temperature calibration (DESIGN §4.6). */
+export interface CalibratedBudget {
+  calibration: Exclude<Calibration, 'none'>
+  /** Residual of every key of `DcBudget.contributors`, same order, V. */
   contributors: {key: DcKey; output: number}[]
   worstCaseOutput: number
   rssOutput: number
@@ -192,13 +218,30 @@ export interface DcBudget {
   rssInput: number
 }
 
+export interface DcBudget {
+  /** ΔT = max(Tmax − 25, 25 − Tmin, 0), K. */
+  temperatureSpan: number
+  /** max|Vout,ideal| over the input range's two ends, reference term included (DESIGN §4.2), V. */
+  fullScaleOutput: number
+  /** Every key that applies to the topology, zero or not; output-referred magnitude, V. */
+  contributors: {key: DcKey; output: number}[]
+  worstCaseOutput: number
+  rssOutput: number
+  worstCaseInput: number
+  rssInput: number
+  /** Residuals after calibration; null when the stage has none (DESIGN §4.6). */
+  calibrated: CalibratedBudget | null
+}
+
 export interface NoiseBudget {
   /** [fL, fH], Hz. */
   band: [number, number]
   /** Noise temperature, K. */
   temperature: number
-  /** Output rms over the band, V. */
+  /** Output rms over the band at the full-scale signal (with `shot-signal`), V. */
   outputRms: number
+  /** Output rms over the band without `shot-signal` (the noise floor at zero signal), V. */
+  zeroSignalOutputRms: number
   /** 6.6 × rms, V. */
   outputPeakToPeak: number
   /** Output rms ÷ |G| at DC (V, or A for transimpedance). */
@@ -219,8 +262,10 @@ export interface Stability {
   suggestedCf: number | null
 }
 
-export interface RequirementResult {
+/** An author's requirement verdict (DESIGN §3.3, §6). */
+export interface RequireResult {
   key: RequirementKey
+  kind: 'require'
   /** SI limit. */
   limit: number
   /** SI value; null when it does not exist (e.g. no crossover). */
@@ -228,14 +273,70 @@ export interface RequirementResult {
   met: boolean
 }
 
+/** Physical limits checked on every stage (DESIGN §4.6). */
+export const LIMIT_KEYS = ['output-swing', 'input-common-mode', 'slew', 'output-current'] as const
+export type LimitKey = (typeof LIMIT_KEYS)[number]
+
+/** A [low, high] pair; a side that is not checked (no data for that rail) is null. */
+export type Bounds = [number | null, number | null]
+
+/** A physical-limit verdict (DESIGN §4.6). */
+export type LimitResult =
+  | {
+      key: 'output-swing' | 'input-common-mode'
+      kind: 'limit'
+      /** [low, high] of the output (or of the input pins) over the input range, V. */
+      value: [number, number]
+      /** Allowed [low, high], V; null when no rail is checked. */
+      limit: Bounds | null
+      /** null when skipped (no data). */
+      met: boolean | null
+      /** Keys that would enable the check (or its unchecked rail). */
+      missing: string[]
+    }
+  | {
+      key: 'slew'
+      kind: 'limit'
+      /** Slew rate needed, 2π·fsig·A, V/s. */
+      value: number
+      /** The part's slew rate, V/s; null when not entered. */
+      limit: number | null
+      met: boolean | null
+      missing: string[]
+      /** Signal frequency used, Hz. */
+      signalFrequency: number
+      /** Half the output span, V. */
+      amplitude: number
+      /** Full-power bandwidth slew/(2πA), Hz; null without a slew rate or without a span. */
+      fullPowerBandwidth: number | null
+    }
+  | {
+      key: 'output-current'
+      kind: 'limit'
+      /** Largest |current out of the op-amp's output pin| over the input range, A. */
+      value: number
+      /** `iout-max`, A; null when not entered. */
+      limit: number | null
+      met: boolean | null
+      missing: string[]
+    }
+
+/** One row of the verdicts: an author's requirement or a physical limit. */
+export type RequirementResult = RequireResult | LimitResult
+
+/** True for an author's requirement row. */
+export const isRequire = (r: RequirementResult): r is RequireResult => r.kind === 'require'
+
 /** Frequency-domain curves for the report's charts (not part of the JSON contract). */
 export interface StageCurves {
   /** Frequencies of the noise grid inside the band, Hz, ascending. */
   noiseFrequency: number[]
   /** Output noise density per contributor on `noiseFrequency`, V/√Hz. */
   noiseDensity: Record<NoiseKey, number[]>
-  /** Total output noise density on `noiseFrequency`, V/√Hz. */
+  /** Total output noise density on `noiseFrequency` at the full-scale signal, V/√Hz. */
   noiseTotal: number[]
+  /** Total output noise density without `shot-signal` (zero signal), V/√Hz; equals `noiseTotal` without that source. */
+  noiseTotalZeroSignal: number[]
   /** Cumulative output rms from fL up to each frequency of `noiseFrequency`, V. */
   cumulativeRms: number[]
   /** Frequencies of the loop-gain / closed-loop grid, Hz, ascending. */
@@ -250,11 +351,11 @@ export interface StageCurves {
   closedLoopPhase: number[]
 }
 
-/** Output operating point and swing check (DESIGN §4.1). */
+/** Output operating point and swing check (DESIGN §4.1, §4.6). */
 export interface SwingCheck {
   /** Output at the input range ends, [min, max], V. */
   outputSpan: [number, number]
-  /** Allowed output [min, max] = supply less headroom, V. */
+  /** Allowed output [min, max] = rails at the low end of supply-tolerance less headroom, V (a rail without headroom data: that rail). */
   allowed: [number, number]
   /** How far the span exceeds the allowed range (V, ≥ 0) at the low and high ends. */
   excess: [number, number]
@@ -270,6 +371,9 @@ export interface BiasUsed {
   iosSource: 'ios-max' | 'doubling' | 'datasheet-25C'
   /** True when the range leaves 25 °C and no ib-max was entered for a bipolar/zero-drift part without ib-doubling. */
   overTemperatureMissing: boolean
+  /** Dark current over the range (transimpedance), A: idark-max, or the doubling rule. */
+  idarkMax: number
+  idarkSource: 'idark-max' | 'doubling'
 }
 
 /** Low-pass figures from the solved response (DESIGN §8.4). */

@@ -34,6 +34,8 @@ export type StageKind =
   | {kind: 'capacitor'}
   /** Common-mode range, V; a single value is x .. x. */
   | {kind: 'input-cm'}
+  /** `none | offset | offset-and-gain` (DESIGN §4.6). */
+  | {kind: 'calibration'}
   | {kind: 'quantity'; dim: Dimension}
   /** Signal range: V, or A for transimpedance; a single value is 0 .. x. */
   | {kind: 'input'}
@@ -71,9 +73,10 @@ export const STAGE_KEYS = {
   rshunt: {read: {kind: 'shunt'}, use: TIA_ONLY},
   csource: {read: {kind: 'quantity', dim: 'capacitance'}, use: TIA_ONLY},
   idark: {read: {kind: 'quantity', dim: 'current'}, use: TIA_ONLY},
+  'idark-max': {read: {kind: 'quantity', dim: 'current'}, use: TIA_ONLY},
+  'idark-doubling': {read: {kind: 'quantity', dim: 'temperature-interval'}, use: TIA_ONLY},
   vref: {read: {kind: 'quantity', dim: 'voltage'}, use: uses('-', 'o', '-', 'o', 'o', '-', 'o')},
   riso: {read: {kind: 'resistor'}, use: ALL_O},
-  rload: {read: {kind: 'shunt'}, use: ALL_O},
   cload: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
   input: {read: {kind: 'input'}, use: ALL_R},
   'input-cm': {read: {kind: 'input-cm'}, use: uses('-', '-', '-', '-', 'o', '-', '-')},
@@ -82,6 +85,9 @@ export const STAGE_KEYS = {
   temperature: {read: {kind: 'temperature-range'}, use: ALL_O},
   band: {read: {kind: 'band'}, use: ALL_O},
   'noise-temperature': {read: {kind: 'quantity', dim: 'temperature'}, use: ALL_O},
+  'signal-frequency': {read: {kind: 'quantity', dim: 'frequency'}, use: ALL_O},
+  rload: {read: {kind: 'shunt'}, use: ALL_O},
+  calibration: {read: {kind: 'calibration'}, use: ALL_O},
   require: {read: {kind: 'require'}, use: ALL_O}
 } as const satisfies Record<string, StageKeySpec>
 
@@ -133,10 +139,16 @@ export const OPAMP_KEYS = {
   'vcm-ref': {dim: 'voltage', need: 'null', sign: 'any', field: 'vcmRef'},
   'cin-diff': {dim: 'capacitance', need: 'zero', sign: 'nonnegative', field: 'cinDiff'},
   'cin-cm': {dim: 'capacitance', need: 'zero', sign: 'nonnegative', field: 'cinCm'},
-  slew: {dim: 'slew', need: 'zero', sign: 'nonnegative', field: 'slew'},
-  'swing-headroom': {dim: 'voltage', need: 'zero', sign: 'nonnegative', field: 'swingHeadroom'},
-  rout: {dim: 'resistance', need: 'zero', sign: 'nonnegative', field: 'rout'},
-  'iout-max': {dim: 'current', need: 'null', sign: 'positive', field: 'ioutMax'}
+  slew: {dim: 'slew', need: 'null', sign: 'positive', field: 'slew'},
+  'swing-headroom': {dim: 'voltage', need: 'null', sign: 'nonnegative', field: 'swingHeadroom'},
+  'swing-headroom-neg': {dim: 'voltage', need: 'null', sign: 'nonnegative', field: 'swingHeadroomNeg'},
+  'swing-headroom-pos': {dim: 'voltage', need: 'null', sign: 'nonnegative', field: 'swingHeadroomPos'},
+  // A negative common-mode headroom means the range extends beyond that rail (DESIGN §4.6).
+  'cm-headroom': {dim: 'voltage', need: 'null', sign: 'any', field: 'cmHeadroom'},
+  'cm-headroom-neg': {dim: 'voltage', need: 'null', sign: 'any', field: 'cmHeadroomNeg'},
+  'cm-headroom-pos': {dim: 'voltage', need: 'null', sign: 'any', field: 'cmHeadroomPos'},
+  'iout-max': {dim: 'current', need: 'null', sign: 'positive', field: 'ioutMax'},
+  rout: {dim: 'resistance', need: 'null', sign: 'nonnegative', field: 'rout'}
 } as const satisfies Record<string, OpampKeySpec>
 
 export type OpampKey = keyof typeof OPAMP_KEYS

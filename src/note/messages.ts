@@ -82,7 +82,9 @@ export const noteMessages = {
   cfWithoutRf: () =>
     'Unexpected `cf` on a follower without `rf`, expected `rf` with it (cf sits across rf): add `rf` or remove `cf`',
   shuntParts: (key = 'rshunt') =>
-    `Unexpected tolerance or tempco on \`${key}\`, expected its value alone (${key === 'rload' ? 'the load is not a part of the stage' : 'the source shunt is not a chosen part'}): remove them`,
+    key === 'rshunt'
+      ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
+      : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
   capacitorExtra: (text: string) =>
     `Unexpected ${q(text)} after the capacitance, expected at most a tolerance (\`10 nF 5%\`)`,
   rgWithoutRf: () =>

@@ -1,8 +1,10 @@
 /**
  * An `opamp` block from its fields to `OpampParams` (DESIGN §3.2), driven by `OPAMP_KEYS`.
  * Required: input-type, vos, ib, ios, en, in, gbw, aol, pm-unity, cmrr, psrr. Zero when not
- * given (and listed as defaulted): vos-drift, en-corner, in-corner, cin-diff, cin-cm, slew,
- * swing-headroom. Null ("not entered", listed too): ib-max, ios-max, ib-doubling, vcm-ref.
+ * given (and listed as defaulted): vos-drift, en-corner, in-corner, cin-diff, cin-cm. Null
+ * ("not entered", listed too): ib-max, ios-max, ib-doubling, vcm-ref, slew, swing-headroom
+ * (and -neg/-pos), cm-headroom (and -neg/-pos), iout-max, rout (DESIGN §4.6: a limit without
+ * its data is skipped, never checked against a flattering 0).
  * Any error in the block makes the result null.
  */
 import type {Point} from 'unist'
@@ -35,7 +37,15 @@ const NOT_ENTERED: Partial<Record<OpampKey, string>> = {
   'ios-max': 'not entered (ios, or the doubling rule for FET/CMOS inputs)',
   'ib-doubling': 'not entered (10 K for jfet and cmos inputs)',
   'vcm-ref': 'not entered (the supply midpoint)',
-  'iout-max': 'not entered (the output-current limit is not checked)'
+  slew: 'not entered (the slew limit is skipped)',
+  'swing-headroom': 'not entered (the output-swing limit is skipped unless -neg/-pos are given)',
+  'swing-headroom-neg': 'not entered (swing-headroom)',
+  'swing-headroom-pos': 'not entered (swing-headroom)',
+  'cm-headroom': 'not entered (the input-common-mode limit is skipped unless -neg/-pos are given)',
+  'cm-headroom-neg': 'not entered (cm-headroom)',
+  'cm-headroom-pos': 'not entered (cm-headroom)',
+  'iout-max': 'not entered (the output-current limit is skipped)',
+  rout: 'not entered (0 Ω)'
 }
 
 type OpampKeyField = (typeof OPAMP_KEYS)[OpampKey]['field']
@@ -102,8 +112,10 @@ export function buildOpamp(fields: readonly Field[], ctx: OpampContext): BuiltOp
     ibMax: opt('ibMax'), iosMax: opt('iosMax'), ibDoubling: opt('ibDoubling'),
     en: num('en'), enCorner: num('enCorner'), in: num('in'), inCorner: num('inCorner'),
     gbw: num('gbw'), aol: num('aol'), pmUnity: num('pmUnity'), cmrr: num('cmrr'), psrr: num('psrr'),
-    vcmRef: opt('vcmRef'), cinDiff: num('cinDiff'), cinCm: num('cinCm'), slew: num('slew'),
-    swingHeadroom: num('swingHeadroom'), rout: num('rout'), ioutMax: opt('ioutMax')
+    vcmRef: opt('vcmRef'), cinDiff: num('cinDiff'), cinCm: num('cinCm'), slew: opt('slew'),
+    swingHeadroom: opt('swingHeadroom'), swingHeadroomNeg: opt('swingHeadroomNeg'), swingHeadroomPos: opt('swingHeadroomPos'),
+    cmHeadroom: opt('cmHeadroom'), cmHeadroomNeg: opt('cmHeadroomNeg'), cmHeadroomPos: opt('cmHeadroomPos'),
+    ioutMax: opt('ioutMax'), rout: opt('rout')
   }
   return {opamp, defaulted}
 }

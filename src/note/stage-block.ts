@@ -22,7 +22,9 @@ export const STAGE_DEFAULTS = {
   /** Our decision: DESIGN is silent. 0.1 Hz .. 10 kHz covers a precision stage's usual band. */
   band: [0.1, 10e3] as const,
   noiseTemperature: 25,
-  vref: 0
+  vref: 0,
+  /** DESIGN §4.2: common practice for silicon photodiodes. */
+  idarkDoubling: 10
 } as const
 
 /** How a stage's `opamp:` is resolved; null after an error or when the opamp block has errors. */
@@ -96,17 +98,19 @@ function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedV
   add('rcomp', 'none (0 Ω)')
   for (const key of ['ccomp', 'cf', 'cstray', 'cstray-plus', 'csource'] as const) add(key, formatQuantity(0, 'F'))
   add('rshunt', 'open')
-  // The load (DESIGN §8.3): one line when none of its keys is given.
-  if (!read.given.has('riso') && !read.given.has('rload') && !read.given.has('cload')) out.push({key: 'riso, rload, cload', value: 'none (output unloaded)'})
-  else {
-    add('riso', 'none (a wire)')
-    add('rload', 'open')
-    add('cload', formatQuantity(0, 'F'))
-  }
+  add('riso', 'none (a wire)')
+  add('cload', formatQuantity(0, 'F'))
   if (topology === 'lowpass-sallen-key') add('rf', '0 Ω (unity gain)')
   add('input-cm', formatQuantity(0, 'V'))
   for (const key of ['c1', 'c2'] as const) if (read.capacitors[key]?.defaulted === true) out.push({key: `${key}.tolerance`, value: formatPercent(0)})
   add('idark', formatQuantity(0, 'A'))
+  if ((read.quantities.idark ?? 0) > 0) {
+    add('idark-max', 'not entered (idark doubled every idark-doubling above 25 °C)')
+    add('idark-doubling', formatQuantity(STAGE_DEFAULTS.idarkDoubling, 'K'))
+  }
+  add('signal-frequency', 'the band’s top')
+  add('rload', 'none')
+  add('calibration', 'none')
   add('vref', formatQuantity(STAGE_DEFAULTS.vref, 'V'))
   add('supply-tolerance', formatPercent(STAGE_DEFAULTS.supplyTolerance))
   add('temperature', formatTemperatureRange(...STAGE_DEFAULTS.temperature))
@@ -154,19 +158,24 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     c1: read.capacitors.c1 === undefined ? null : {value: read.capacitors.c1.value, tolerance: read.capacitors.c1.tolerance},
     c2: read.capacitors.c2 === undefined ? null : {value: read.capacitors.c2.value, tolerance: read.capacitors.c2.tolerance},
     riso: toResistor(read.resistors.riso),
-    rload: read.rload,
     cload: q.cload ?? 0,
     cstrayPlus: q['cstray-plus'] ?? 0,
     inputCm: read.inputCm ?? [0, 0],
     csource: q.csource ?? 0,
     idark: q.idark ?? 0,
+    idarkMax: q['idark-max'] ?? null,
+    idarkDoubling: q['idark-doubling'] ?? STAGE_DEFAULTS.idarkDoubling,
     vref: q.vref ?? STAGE_DEFAULTS.vref,
     input,
     supply,
     supplyTolerance: q['supply-tolerance'] ?? STAGE_DEFAULTS.supplyTolerance,
     temperature: read.temperature ?? [...STAGE_DEFAULTS.temperature],
+    temperatureEntered: read.temperature !== null,
     band: read.band ?? [...STAGE_DEFAULTS.band],
     noiseTemperature: q['noise-temperature'] ?? STAGE_DEFAULTS.noiseTemperature,
+    signalFrequency: q['signal-frequency'] ?? null,
+    rload: read.rload,
+    calibration: read.calibration ?? 'none',
     require: read.require
   }
   return {input: stage, defaulted: defaultsOf(read, topology, ctx.id)}

@@ -4,7 +4,7 @@
  * look at several keys, defaults and the assembly of `StageInput` are in `stage-block.ts`.
  */
 import type {Point} from 'unist'
-import {REQUIREMENT_KEYS, TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
+import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, type Calibration, type RequirementKey, type Topology} from '../engine/types.js'
 import type {Dimension} from '../units/index.js'
 import type {Field} from './block-yaml.js'
 import type {Reporter} from './diagnostics.js'
@@ -34,6 +34,7 @@ export interface StageRead {
   rshunt: number | null
   rload: number | null
   capacitors: Partial<Record<CapacitorKey, {value: number; tolerance: number; defaulted: boolean}>>
+  calibration: Calibration | null
   input: [number, number] | null
   inputCm: [number, number] | null
   supply: [number, number] | null
@@ -99,9 +100,12 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
   const text = q.s.text.trim()
   // vref and noise-temperature may be negative; currents, capacitances and tolerances not.
   const signed = dim === 'voltage' || dim === 'temperature'
-  const what = dim === 'current' ? 'a current' : dim === 'fraction' ? 'a tolerance' : 'a capacitance'
+  const what = dim === 'current' ? 'a current' : dim === 'fraction' ? 'a tolerance' : dim === 'frequency' ? 'a frequency'
+    : dim === 'temperature-interval' ? 'a temperature interval' : 'a capacitance'
+  const mustBePositive = key === 'idark-doubling' || key === 'signal-frequency'
   const problem = !signed && q.value < 0
     ? noteMessages.negative(key, text, what)
+    : mustBePositive && q.value === 0 ? noteMessages.notPositive(key, text, what)
     : key === 'supply-tolerance' && q.value >= 1 ? noteMessages.supplyTolerance(text) : null
   if (problem !== null) {
     report.error(problem, q.s.at(0), 'bad-value')
@@ -113,8 +117,8 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null,
-    rload: null, capacitors: {}, inputCm: null,
+    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, calibration: null,
+    capacitors: {}, inputCm: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
@@ -175,6 +179,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         if (r !== null) read.inputCm = r.value
         break
       }
+      case 'calibration':
+        read.calibration = choiceOf(field, CALIBRATIONS, report)
+        break
       case 'quantity':
         readQuantityKey(field, key as QuantityKey, kind.dim, read, report)
         break

@@ -1,14 +1,22 @@
 /**
- * Requirement verdicts: the three-state verdict of each requirement, a stage's and the
- * document's overall verdict, and the cover rows.
+ * Requirement verdicts: the three-state verdict of each requirement and physical limit
+ * (DESIGN §4.6), a stage's and the document's overall verdict, and the cover rows. A limit
+ * whose data is not entered is skipped: shown as such, and left out of the overall verdict.
  */
 import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
-import {REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
+import {LIMIT_LABELS, REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
 import type {CoverVerdict, Verdict} from './types.js'
 
-export const verdictOf = (r: RequirementResult): Verdict => (r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met')
+export const verdictOf = (r: RequirementResult): Verdict =>
+  r.kind === 'limit' ? (r.met === null ? 'not-evaluated' : r.met ? 'met' : 'not-met') : r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met'
+
+/** True for a limit skipped for want of data (not part of any overall verdict). */
+export const isSkipped = (r: RequirementResult): boolean => r.kind === 'limit' && r.met === null
+
+/** Rows that count towards a verdict: every requirement, and the limits that were checked. */
+export const counted = (rows: readonly RequirementResult[]): RequirementResult[] => rows.filter((r) => !isSkipped(r))
 
 /** Worst of several verdicts: not met beats not evaluated beats met; none at all is not evaluated. */
 export function combine(verdicts: Verdict[]): Verdict {
@@ -17,15 +25,59 @@ export function combine(verdicts: Verdict[]): Verdict {
   return 'met'
 }
 
-/** A requirement value or limit, in its own unit. */
+/** The row's name as printed; limits are marked as limits. */
+export const requirementLabel = (r: RequirementResult): string =>
+  r.kind === 'require' ? REQUIREMENT_LABELS[r.key] : `${LIMIT_LABELS[r.key]} (limit)`
+
+const LIMIT_UNIT = {'output-swing': 'V', 'input-common-mode': 'V', slew: 'V/s', 'output-current': 'A'} as const
+
+const rangeText = (lo: number | null, hi: number | null, unit: string): string =>
+  `${lo === null ? 'any' : q(lo, unit)} … ${hi === null ? 'any' : q(hi, unit)}`
+
+/** A requirement or limit value, in its own unit. */
 export const requirementValue = (r: RequirementResult, which: 'value' | 'limit', t: Topology): string => {
-  const v = r[which]
-  const unit = requirementUnit(r.key, t)
-  return unit === '°' ? deg(v) : q(v, unit)
+  if (r.kind === 'require') {
+    const v = r[which]
+    const unit = requirementUnit(r.key, t)
+    return unit === '°' ? deg(v) : q(v, unit)
+  }
+  const unit = LIMIT_UNIT[r.key]
+  if (r.key === 'output-swing' || r.key === 'input-common-mode') {
+    if (which === 'value') return rangeText(r.value[0], r.value[1], unit)
+    return r.limit === null ? 'not entered' : rangeText(r.limit[0], r.limit[1], unit)
+  }
+  if (r.key === 'slew' || r.key === 'output-current') {
+    const v = which === 'value' ? r.value : r.limit
+    return which === 'limit' && v === null ? 'not entered' : q(v, unit)
+  }
+  return '—'
+}
+
+/** The limit column: "≤ x", "≥ x" or "within a … b". */
+export const limitText = (r: RequirementResult, t: Topology): string => {
+  if (r.kind === 'require') return `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', t)}`
+  if (r.met === null) return `skipped: enter ${r.missing.map((k) => `\`${k}\``).join(', ')}`
+  if (r.key === 'output-swing' || r.key === 'input-common-mode') return `within ${requirementValue(r, 'limit', t)}`
+  return `≤ ${requirementValue(r, 'limit', t)}`
 }
 
 /** Margin to the limit, signed so that positive is good, in the requirement's unit. */
 export function margin(r: RequirementResult, t: Topology): string {
+  if (r.kind === 'limit') {
+    if (r.met === null || r.limit === null) return '—'
+    const unit = LIMIT_UNIT[r.key]
+    if (r.key === 'output-swing' || r.key === 'input-common-mode') {
+      const sides = [r.limit[0] === null ? Infinity : r.value[0] - r.limit[0], r.limit[1] === null ? Infinity : r.limit[1] - r.value[1]]
+      return q(Math.min(...sides), unit)
+    }
+    if (r.key === 'slew' || r.key === 'output-current') {
+      const m = r.limit - r.value
+      const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+      const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
+      return q(m, unit) + rel + fpbw
+    }
+    return '—'
+  }
   if (r.value === null) return '—'
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
@@ -34,12 +86,13 @@ export function margin(r: RequirementResult, t: Topology): string {
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 
+/** The cover's rows: every requirement and every checked limit (skipped limits are in the stage sections). */
 export function coverRows(evaluations: StageEvaluation[]): CoverVerdict[] {
-  return evaluations.flatMap((ev) => ev.result.requirements.map((r): CoverVerdict => ({
+  return evaluations.flatMap((ev) => counted(ev.result.requirements).map((r): CoverVerdict => ({
     stage: ev.input.id,
-    requirement: REQUIREMENT_LABELS[r.key],
+    requirement: requirementLabel(r),
     value: requirementValue(r, 'value', ev.input.topology),
-    limit: `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', ev.input.topology)}`,
+    limit: limitText(r, ev.input.topology),
     verdict: verdictOf(r)
   })))
 }

@@ -66,7 +66,8 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   m.set('stability.peaking', {unit: 'dB', v: s.stability.peaking})
   m.set('stability.suggestedCf', {unit: 'F', v: s.stability.suggestedCf})
   for (const r of s.requirements) {
-    m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: r.value})
+    if (r.kind !== 'limit') m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: typeof r.value === 'number' ? r.value : null})
+    else if (typeof r.value === 'number') m.set(`limit.${r.key}`, {unit: r.key === 'slew' ? 'V/s' : r.key === 'output-current' ? 'A' : 'V', v: r.value})
   }
   return m
 }
@@ -108,7 +109,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
   const removedStages = [...a.keys()].filter((k) => !b.has(k))
   const addedStages = [...b.keys()].filter((k) => !a.has(k))
   const regressed = flips.some((f) => f.old === true && f.new === false) ||
-    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met))
+    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met === true))
   return {changes, flips, addedStages, removedStages, regressed}
 }
 

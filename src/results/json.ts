@@ -3,6 +3,7 @@
  * contract's order, report-only fields dropped. Numbers are plain SI; a value that does
  * not exist is null (never NaN or Infinity).
  */
+import type {RequirementResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
 
 /** One diagnostic of a note, as the contract carries it. */
@@ -57,12 +58,21 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       worstCaseOutput: r.dc.worstCaseOutput,
       rssOutput: r.dc.rssOutput,
       worstCaseInput: r.dc.worstCaseInput,
-      rssInput: r.dc.rssInput
+      rssInput: r.dc.rssInput,
+      calibrated: r.dc.calibrated === null ? null : {
+        calibration: r.dc.calibrated.calibration,
+        contributors: r.dc.calibrated.contributors.map((c) => ({key: c.key, output: c.output})),
+        worstCaseOutput: r.dc.calibrated.worstCaseOutput,
+        rssOutput: r.dc.calibrated.rssOutput,
+        worstCaseInput: r.dc.calibrated.worstCaseInput,
+        rssInput: r.dc.calibrated.rssInput
+      }
     },
     noise: {
       band: [r.noise.band[0], r.noise.band[1]],
       temperature: r.noise.temperature,
       outputRms: r.noise.outputRms,
+      zeroSignalOutputRms: r.noise.zeroSignalOutputRms,
       outputPeakToPeak: r.noise.outputPeakToPeak,
       inputRms: r.noise.inputRms,
       contributors: r.noise.contributors.map((c) => ({key: c.key, outputRms: c.outputRms}))
@@ -74,11 +84,27 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       peaking: r.stability.peaking,
       suggestedCf: finite(r.stability.suggestedCf)
     },
-    requirements: r.requirements.map((q) => ({key: q.key, limit: q.limit, value: finite(q.value), met: q.met})),
+    requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
   }
 }
 
+/** A requirement `{key, kind, limit, value, met}` or a limit (DESIGN §4.6), non-finite numbers as null. */
+function jsonRequirement(q: RequirementResult): RequirementResult {
+  if (q.kind === 'require') return {key: q.key, kind: q.kind, limit: q.limit, value: finite(q.value), met: q.met}
+  switch (q.key) {
+    case 'output-swing':
+    case 'input-common-mode':
+      return {key: q.key, kind: q.kind, limit: q.limit, value: q.value, met: q.met, missing: [...q.missing]}
+    case 'slew':
+      return {
+        key: q.key, kind: q.kind, limit: q.limit, value: q.value, met: q.met, missing: [...q.missing],
+        signalFrequency: q.signalFrequency, amplitude: q.amplitude, fullPowerBandwidth: finite(q.fullPowerBandwidth)
+      }
+    case 'output-current':
+      return {key: q.key, kind: q.kind, limit: q.limit, value: q.value, met: q.met, missing: [...q.missing]}
+  }
+}
 /** The §6 object of one note (exactly its fields, in order). */
 export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,

@@ -2,7 +2,7 @@
  * People's names for the engine's keys, as printed in tables, charts and the cover.
  * Closed maps over the engine's key unions, so a new key without a label fails to compile.
  */
-import type {DcKey, NoiseKey, RequirementKey, Topology} from '../engine/types.js'
+import type {DcKey, LimitKey, NoiseKey, RequirementKey, Topology} from '../engine/types.js'
 
 export const DC_LABELS: Record<DcKey, string> = {
   vos: 'Offset voltage',
@@ -33,7 +33,8 @@ export const NOISE_LABELS: Record<NoiseKey, string> = {
   'r:r3': 'Thermal noise of r3',
   'r:riso': 'Thermal noise of riso',
   'r:rload': 'Thermal noise of rload',
-  shot: 'Shot noise of source current'
+  shot: 'Shot noise of source dark current',
+  'shot-signal': 'Shot noise of signal current (full scale)'
 }
 
 export const REQUIREMENT_LABELS: Record<RequirementKey, string> = {
@@ -43,7 +44,16 @@ export const REQUIREMENT_LABELS: Record<RequirementKey, string> = {
   'noise-rms': 'Output noise, rms over band',
   'noise-pp': 'Output noise, peak-to-peak',
   'phase-margin': 'Phase margin (minimum)',
-  bandwidth: 'Closed-loop bandwidth (minimum)'
+  bandwidth: 'Closed-loop bandwidth (minimum)',
+  'output-error-calibrated': 'DC error at output after calibration, worst case',
+  'input-error-calibrated': 'DC error referred to input after calibration, worst case'
+}
+
+export const LIMIT_LABELS: Record<LimitKey, string> = {
+  'output-swing': 'Output swing',
+  'input-common-mode': 'Input common-mode range',
+  slew: 'Slew rate needed',
+  'output-current': 'Output current'
 }
 
 export const TOPOLOGY_LABELS: Record<Topology, string> = {
@@ -70,7 +80,9 @@ export const requirementUnit = (key: RequirementKey, t: Topology): string => {
     case 'bandwidth':
       return 'Hz'
     case 'input-error':
+    case 'input-error-calibrated':
       return inputUnit(t)
+    case 'output-error-calibrated':
     case 'output-error':
     case 'output-error-rss':
     case 'noise-rms':

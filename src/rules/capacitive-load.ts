@@ -22,7 +22,7 @@ const LOW_MARGIN = 45
 function check({input}: RuleContext): RuleFinding[] {
   const a = capacitiveLoadAdvice(input)
   if (a === null || a.cost === null || a.cost <= COST_LIMIT || a.margin === null || a.marginWithoutLoad === null) return []
-  const load = `cload = ${formatQuantity(input.cload, 'F')} with rout = ${formatQuantity(input.opamp.rout, 'Ω')}${input.riso ? ` and riso = ${formatQuantity(input.riso.value, 'Ω')}` : ''}`
+  const load = `cload = ${formatQuantity(input.cload, 'F')} with rout = ${formatQuantity(input.opamp.rout ?? 0, 'Ω')}${input.riso ? ` and riso = ${formatQuantity(input.riso.value, 'Ω')}` : ''}`
   const head = `The capacitive load costs ${formatAngle(a.cost)} of phase margin (${load}): ${formatAngle(a.margin)} against ${formatAngle(a.marginWithoutLoad)} unloaded.`
   const fix = a.riso === null || a.target === null
     ? ' No riso up to 10 kΩ brings the margin back to 45°: consider a smaller load, a lower-impedance buffer, or an amplifier specified for capacitive loads.'

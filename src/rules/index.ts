@@ -16,12 +16,14 @@ import fetBiasHotEnd from './fet-bias-hot-end.js'
 import filterGbw from './filter-gbw.js'
 import followerFeedbackResistor from './follower-feedback-resistor.js'
 import hazardousVoltage from './hazardous-voltage.js'
+import limitDataMissing from './limit-data-missing.js'
 import lowValueResistor from './low-value-resistor.js'
 import lowerBiasInputType from './lower-bias-input-type.js'
 import matchedDcResistance from './matched-dc-resistance.js'
 import outputSwing from './output-swing.js'
 import phaseMarginLow from './phase-margin-low.js'
 import resistorNoiseDominant from './resistor-noise-dominant.js'
+import temperatureNotEntered from './temperature-not-entered.js'
 import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
 import type {Rule, RuleContext} from './rule.js'
 import type {RuleNote} from './types.js'
@@ -37,6 +39,7 @@ export const RULE_IDS = [
   'transimpedance-feedback-cap',
   'follower-feedback-resistor',
   'output-swing',
+  'limit-data-missing',
   'bandwidth-margin',
   'filter-gbw',
   'bias-compensation-resistor',
@@ -44,6 +47,7 @@ export const RULE_IDS = [
   'lower-bias-input-type',
   'fet-bias-hot-end',
   'bias-over-temperature-missing',
+  'temperature-not-entered',
   'resistor-noise-dominant',
   'low-value-resistor',
   'e-series-values'
@@ -61,12 +65,14 @@ export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'transimpedance-feedback-cap': transimpedanceFeedbackCap,
   'follower-feedback-resistor': followerFeedbackResistor,
   'output-swing': outputSwing,
+  'limit-data-missing': limitDataMissing,
   'bandwidth-margin': bandwidthMargin,
   'bias-compensation-resistor': biasCompensationResistor,
   'matched-dc-resistance': matchedDcResistance,
   'lower-bias-input-type': lowerBiasInputType,
   'fet-bias-hot-end': fetBiasHotEnd,
   'bias-over-temperature-missing': biasOverTemperatureMissing,
+  'temperature-not-entered': temperatureNotEntered,
   'resistor-noise-dominant': resistorNoiseDominant,
   'low-value-resistor': lowValueResistor,
   'e-series-values': eSeriesValues

@@ -4,7 +4,7 @@
  * requirements that were not met. Plain reads; nothing here decides whether a rule fires.
  */
 import {topologyTerms} from '../engine/topology/index.js'
-import type {DcKey, NoiseKey, RequirementKey, RequirementResult, StageInput, StageResult} from '../engine/types.js'
+import type {DcKey, NoiseKey, RequirementKey, RequireResult, StageInput, StageResult} from '../engine/types.js'
 
 /** Output-referred magnitude of one DC contributor, V (0 when the topology does not list it). */
 export function dcTerm(result: StageResult, key: DcKey): number {
@@ -56,7 +56,7 @@ export function dcResistances(input: StageInput): {rn: number; rp: number} {
 }
 
 /** Requirements among `keys` that the stage does not meet. */
-export function unmetRequirements(result: StageResult, keys: readonly RequirementKey[]): RequirementResult[] {
-  return result.requirements.filter((r) => !r.met && keys.includes(r.key))
+export function unmetRequirements(result: StageResult, keys: readonly RequirementKey[]): RequireResult[] {
+  return result.requirements.filter((r): r is RequireResult => r.kind === 'require' && !r.met && keys.includes(r.key))
 }
 

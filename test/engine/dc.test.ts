@@ -62,9 +62,12 @@ describe('dcBudget()', () => {
     // G = −Rf/(Rg + Rs): worst when Rs is low, |G'/G − 1| = 2000/1990 − 1.
     expect(rel(term(s, 'resistor-tolerance'), 5 * 0.1 * (2000 / 1990 - 1))).toBeLessThan(1e-9)
   })
-  it('idark is idark·Rf for transimpedance', () => {
+  it('idark is Idark,max·Rf for transimpedance, doubled every idark-doubling above 25 °C', () => {
+    // DESIGN §4.2: Idark,max = idark·2^(max(0, Tmax − 25)/idark-doubling); the fixture runs to 70 °C.
     const s = topologyFixtures()[3]
-    expect(rel(term(s, 'idark'), 50e-12 * 1e6)).toBeLessThan(1e-12)
+    expect(rel(term(s, 'idark'), 50e-12 * 2 ** (45 / 10) * 1e6)).toBeLessThan(1e-12)
+    expect(rel(term({...s, idarkDoubling: 5}, 'idark'), 50e-12 * 2 ** (45 / 5) * 1e6)).toBeLessThan(1e-12)
+    expect(rel(term({...s, idarkMax: 3e-9}, 'idark'), 3e-9 * 1e6)).toBeLessThan(1e-12)
   })
   it('totals: worst = Σ, RSS = √Σ², input-referred = ÷|G|', () => {
     const b = dcBudget(topologyFixtures()[1])

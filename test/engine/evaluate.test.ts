@@ -38,8 +38,10 @@ describe('evaluateStage()', () => {
     const s = stageInput({require: {'output-error': 1, 'output-error-rss': 1e-9, 'input-error': 1, 'noise-rms': 1, 'noise-pp': 1e-12, 'phase-margin': 30, bandwidth: 1e9}})
     const r = evaluateStage(s)
     const v = Object.fromEntries(r.requirements.map((q) => [q.key, q]))
-    expect(r.requirements.map((q) => q.key)).toEqual(['output-error', 'output-error-rss', 'input-error', 'noise-rms', 'noise-pp', 'phase-margin', 'bandwidth'])
-    expect(v['output-error']).toEqual({key: 'output-error', limit: 1, value: r.dc.worstCaseOutput, met: true})
+    expect(r.requirements.map((q) => q.key)).toEqual(['output-error', 'output-error-rss', 'input-error', 'noise-rms', 'noise-pp', 'phase-margin', 'bandwidth',
+      'output-swing', 'input-common-mode', 'slew', 'output-current'])
+    expect(r.requirements.map((q) => q.kind)).toEqual([...Array(7).fill('require'), ...Array(4).fill('limit')])
+    expect(v['output-error']).toEqual({key: 'output-error', kind: 'require', limit: 1, value: r.dc.worstCaseOutput, met: true})
     expect(v['output-error-rss']?.met).toBe(false)
     expect(v['input-error']?.value).toBe(r.dc.worstCaseInput)
     expect(v['noise-rms']).toMatchObject({value: r.noise.outputRms, met: true})
@@ -49,7 +51,7 @@ describe('evaluateStage()', () => {
   })
   it('fails a minimum requirement whose value does not exist', () => {
     const r = evaluateStage({...(edgeCases[fixtures.length + 2] as (typeof edgeCases)[number]), require: {'phase-margin': 45}})
-    expect(r.requirements).toEqual([{key: 'phase-margin', limit: 45, value: null, met: false}])
+    expect(r.requirements.filter((q) => q.kind === 'require')).toEqual([{key: 'phase-margin', kind: 'require', limit: 45, value: null, met: false}])
   })
   it('carries gain, noise gain, names and the bias currents used', () => {
     const r = evaluateStage(stageInput())
@@ -62,15 +64,17 @@ describe('evaluateStage()', () => {
 })
 
 describe('swingCheck()', () => {
-  // DESIGN §4.1: Vout = vref·NG + G·input for inverting stages.
+  // DESIGN §4.1, §4.2: Vout = vref·NG + G·input for inverting stages.
   it('places an inverting output around vref·NG and reports the excess', () => {
     const s = stageInput({topology: 'inverting', rf: res(10e3), rg: res(1e3), rs: null, vref: 1, input: [-1, 0.1], supply: [0, 12], opamp: testOpamp({swingHeadroom: 1})})
     const w = engine.swingCheck(s)
     expect(w.outputSpan[0]).toBeCloseTo(11 - 1, 12)
     expect(w.outputSpan[1]).toBeCloseTo(11 + 10, 12)
-    expect(w.allowed).toEqual([1, 11])
+    // DESIGN §4.6: the rails at the low end of supply-tolerance (5 %): 12 V → 11.4 V.
+    expect(w.allowed[0]).toBeCloseTo(1, 12)
+    expect(w.allowed[1]).toBeCloseTo(10.4, 12)
     expect(w.excess[0]).toBe(0)
-    expect(w.excess[1]).toBeCloseTo(10, 12)
+    expect(w.excess[1]).toBeCloseTo(10.6, 12)
     expect(w.fits).toBe(false)
   })
   it('fits a noninverting stage inside the rails', () => {

@@ -37,8 +37,13 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
     cinCm: 5e-12,
     slew: 1e6,
     swingHeadroom: 1.3,
-    rout: 0,
+    swingHeadroomNeg: null,
+    swingHeadroomPos: null,
+    cmHeadroom: null,
+    cmHeadroomNeg: null,
+    cmHeadroomPos: null,
     ioutMax: null,
+    rout: null,
     ...overrides
   }
 }
@@ -60,15 +65,20 @@ export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
     rshunt: null,
     csource: 0,
     idark: 0,
+    idarkMax: null,
+    idarkDoubling: 10,
     vref: 0,
     rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, rload: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
     input: [-0.05, 0.05],
     supply: [-12, 12],
     supplyTolerance: 0.05,
     temperature: [-20, 70],
     band: [0.1, 1e3],
     noiseTemperature: 25,
+    signalFrequency: null,
+    rload: null,
+    calibration: 'none',
     require: {},
     ...overrides
   }

@@ -42,7 +42,9 @@ describe('parseNote() on a good note', () => {
         vos: 60e-6, vosDrift: 0.6e-6, ib: 2e-9, ios: 1.8e-9, ibMax: 4e-9, iosMax: null, ibDoubling: null,
         en: 9e-9, enCorner: 4, in: 0.15e-12, inCorner: 60, gbw: 1.2e6,
         aol: dB(126), pmUnity: 60, cmrr: dB(120), psrr: dB(118), vcmRef: null,
-        cinDiff: 3e-12, cinCm: 4e-12, slew: 0.5e6, swingHeadroom: 1.2, rout: 0, ioutMax: null
+        cinDiff: 3e-12, cinCm: 4e-12, slew: 0.5e6, swingHeadroom: 1.2,
+        swingHeadroomNeg: null, swingHeadroomPos: null, cmHeadroom: null, cmHeadroomNeg: null, cmHeadroomPos: null,
+        ioutMax: null, rout: null
       },
       rf: {value: 49.9e3, tolerance: 0.1e-2, tempco: 25e-6},
       rg: {value: 1e3, tolerance: 0.1e-2, tempco: 25e-6},
@@ -54,15 +56,21 @@ describe('parseNote() on a good note', () => {
       rshunt: null,
       csource: 0,
       idark: 0,
+      idarkMax: null,
+      idarkDoubling: 10,
       vref: 0,
       rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-      riso: null, rload: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+      riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
       input: [-10e-3, 10e-3],
       supply: [-15, 15],
       supplyTolerance: 0.02,
       temperature: [-40, 85],
+      temperatureEntered: true,
       band: [0.1, 1e3],
       noiseTemperature: 40,
+      signalFrequency: null,
+      rload: null,
+      calibration: 'none',
       require: {'output-error': 3e-3, 'noise-rms': 30e-6, 'phase-margin': 50, bandwidth: 2e3}
     }
     expect(inputOf(good, 'bridge-amp')).toEqual(expected)
@@ -86,14 +94,21 @@ describe('parseNote() on a good note', () => {
       {key: 'ccomp', value: '0 F'},
       {key: 'cstray', value: '0 F'},
       {key: 'cstray-plus', value: '0 F'},
-      {key: 'riso, rload, cload', value: 'none (output unloaded)'},
+      {key: 'riso', value: 'none (a wire)'},
+      {key: 'cload', value: '0 F'},
+      {key: 'idark-max', value: 'not entered (idark doubled every idark-doubling above 25 °C)'},
+      {key: 'idark-doubling', value: '10 K'},
+      {key: 'signal-frequency', value: 'the band’s top'},
+      {key: 'rload', value: 'none'},
+      {key: 'calibration', value: 'none'},
       {key: 'supply-tolerance', value: '5 %'},
       {key: 'temperature', value: '25 … 25 °C'},
       {key: 'band', value: '100 mHz … 10 kHz'},
       {key: 'noise-temperature', value: '25 °C'},
       {key: 'rf.tempco', value: '0 ppm/K'}
     ])
-    expect(opamps[0]?.defaulted.map((d) => d.key)).toEqual(['ios-max', 'ib-doubling', 'vcm-ref', 'rout', 'iout-max'])
+    expect(opamps[0]?.defaulted.map((d) => d.key)).toEqual(['ios-max', 'ib-doubling', 'vcm-ref', 'swing-headroom-neg', 'swing-headroom-pos',
+      'cm-headroom', 'cm-headroom-neg', 'cm-headroom-pos', 'iout-max', 'rout'])
   })
 
   it('keeps the entries as written with their places in the file', () => {

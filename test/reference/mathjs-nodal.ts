@@ -39,7 +39,7 @@ export function referenceCircuit(s: StageInput): RefCircuit {
   }
   const op = s.opamp
   c.push(['p', 'gnd', op.cinCm], ['m', 'gnd', op.cinCm], ['p', 'm', op.cinDiff], ['m', 'gnd', s.cstray], ['p', 'gnd', s.cstrayPlus])
-  series('a', 'o', op.rout, 'rout')
+  series('a', 'o', op.rout ?? 0, 'rout')
   series('o', 'l', s.riso?.value, 'riso')
   c.push(['l', 'gnd', s.cload])
   if (s.rload !== null) r.push(['l', 'gnd', s.rload, 'rload'])

@@ -37,7 +37,7 @@ describe('engine nodal solve vs mathjs reference (Source: independent MNA with m
           let complexCompare = true
           if (key === 'en') ex = {en: 1}
           else if (key === 'in+') ex = {currents: [['p', 'gnd', 1]]}
-          else if (key === 'in-' || key === 'shot') ex = {currents: [['m', 'gnd', 1]]}
+          else if (key === 'in-' || key === 'shot' || key === 'shot-signal') ex = {currents: [['m', 'gnd', 1]]}
           else {
             // Every resistor of that label (the two rs legs of a difference stage), part by part.
             const rs = circ.r.filter((e) => e[3] === key.slice(2))

@@ -32,15 +32,20 @@ export function stageInput(over: Partial<StageInput> = {}): StageInput {
     rshunt: null,
     csource: 0,
     idark: 0,
+    idarkMax: null,
+    idarkDoubling: 10,
     vref: 0,
     rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, rload: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
     input: [-0.1, 0.1],
     supply: [-15, 15],
     supplyTolerance: 0.05,
     temperature: [25, 25],
     band: [0.1, 100],
     noiseTemperature: 25,
+    signalFrequency: null,
+    rload: null,
+    calibration: 'none',
     require: {},
     ...over
   }
@@ -83,10 +88,11 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
     noiseGain: parts.noiseGain ?? Math.abs(gain),
     dc: {
       temperatureSpan: 0, fullScaleOutput, contributors: dcContributors,
-      worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain)
+      worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain),
+      calibrated: null
     },
     noise: {
-      band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, outputPeakToPeak: 6.6 * rms,
+      band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, zeroSignalOutputRms: rms, outputPeakToPeak: 6.6 * rms,
       inputRms: rms / Math.abs(gain), contributors: noiseContributors
     },
     filter: null,
@@ -94,12 +100,12 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
     requirements: parts.requirements ?? [],
     curves: {
       noiseFrequency: [], noiseDensity: emptyDensity(),
-      noiseTotal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: [], closedLoopPhase: []
+      noiseTotal: [], noiseTotalZeroSignal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: [], closedLoopPhase: []
     },
     swing: {outputSpan: [-1.1, 1.1], allowed: [-13.8, 13.8], excess: [0, 0], fits: true, ...parts.swing},
     bias: {
       ibMax: input.opamp.ib, iosMax: input.opamp.ios, ibSource: 'datasheet-25C', iosSource: 'datasheet-25C',
-      overTemperatureMissing: false, ...parts.bias
+      overTemperatureMissing: false, idarkMax: input.idark, idarkSource: 'doubling', ...parts.bias
     }
   }
 }

@@ -25,7 +25,7 @@ describe('rules/lower-bias-input-type', () => {
   it('cautions when an error requirement fails', () => {
     const result = stageResult({
       dc: {vos: 1e-4, ib: 5e-4},
-      requirements: [{key: 'output-error', limit: 3e-4, value: 6e-4, met: false}]
+      requirements: [{key: 'output-error', kind: 'require', limit: 3e-4, value: 6e-4, met: false}]
     }, input)
     const notes = rule.check(ruleContext(input, result))
     expect(notes[0]!.severity).toBe('caution')

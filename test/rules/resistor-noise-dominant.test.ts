@@ -28,7 +28,7 @@ describe('rules/resistor-noise-dominant', () => {
     const input = stageInput()
     const result = stageResult({
       noise: {'r:rf': 2e-6, en: 1e-6},
-      requirements: [{key: 'noise-rms', limit: 1e-6, value: 2.2e-6, met: false}]
+      requirements: [{key: 'noise-rms', kind: 'require', limit: 1e-6, value: 2.2e-6, met: false}]
     }, input)
     expect(rule.check(ruleContext(input, result))[0]!.severity).toBe('caution')
   })

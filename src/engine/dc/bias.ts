@@ -8,7 +8,7 @@
  * part's is set by its switching.
  */
 import {DATASHEET_TEMPERATURE, DEFAULT_IB_DOUBLING} from '../constants.js'
-import type {BiasUsed, OpampParams, Range} from '../types.js'
+import type {BiasUsed, OpampParams, Range, StageInput} from '../types.js'
 
 /** Doubling interval in kelvin when the doubling rule applies to this part, else null. */
 export function doublingInterval(opamp: OpampParams): number | null {
@@ -28,8 +28,21 @@ export function biasCurrentAt(opamp: OpampParams, t: number): number {
   return d === null ? opamp.ib : opamp.ib * 2 ** ((t - DATASHEET_TEMPERATURE) / d)
 }
 
-/** IB,max and IOS,max over the stage's temperature range (DESIGN §4.2). */
-export function biasOverTemperature(opamp: OpampParams, temperature: Range): BiasUsed {
+/**
+ * Dark current of a transimpedance source at T (°C), A: idark·2^((T − 25)/idark-doubling)
+ * (DESIGN §4.3; common practice for silicon photodiodes). Used for the shot noise.
+ */
+export const darkCurrentAt = (input: StageInput, t: number): number =>
+  input.idark * 2 ** ((t - DATASHEET_TEMPERATURE) / input.idarkDoubling)
+
+/** Idark,max over the stage's range (DESIGN §4.2): idark-max, else the doubling rule at the hot end. */
+export function darkCurrentMax(input: StageInput): {value: number; source: BiasUsed['idarkSource']} {
+  if (input.idarkMax !== null) return {value: input.idarkMax, source: 'idark-max'}
+  return {value: input.idark * 2 ** (Math.max(0, input.temperature[1] - DATASHEET_TEMPERATURE) / input.idarkDoubling), source: 'doubling'}
+}
+
+/** IB,max and IOS,max over the stage's temperature range (DESIGN §4.2); Idark,max from `stage` when given. */
+export function biasOverTemperature(opamp: OpampParams, temperature: Range, stage?: StageInput): BiasUsed {
   const d = doublingInterval(opamp)
   // Only the hot end raises leakage: 2^(max(0, Tmax − 25)/doubling) (DESIGN §4.2).
   const factor = d === null ? 1 : 2 ** (Math.max(0, temperature[1] - DATASHEET_TEMPERATURE) / d)
@@ -41,6 +54,8 @@ export function biasOverTemperature(opamp: OpampParams, temperature: Range): Bia
     iosMax: opamp.iosMax ?? opamp.ios * factor,
     ibSource,
     iosSource,
-    overTemperatureMissing: leaves25 && ibSource === 'datasheet-25C'
+    overTemperatureMissing: leaves25 && ibSource === 'datasheet-25C',
+    idarkMax: stage ? darkCurrentMax(stage).value : 0,
+    idarkSource: stage ? darkCurrentMax(stage).source : 'doubling'
   }
 }

@@ -11,7 +11,7 @@ import {noiseKelvin, noiseSources} from './sources.js'
 import {compileSources, outputPsdInto} from './transfer.js'
 
 /** Noise curves of `StageCurves`. */
-export type NoiseCurves = Pick<StageCurves, 'noiseFrequency' | 'noiseDensity' | 'noiseTotal' | 'cumulativeRms'>
+export type NoiseCurves = Pick<StageCurves, 'noiseFrequency' | 'noiseDensity' | 'noiseTotal' | 'noiseTotalZeroSignal' | 'cumulativeRms'>
 
 export interface NoiseAnalysis {
   budget: NoiseBudget
@@ -34,9 +34,13 @@ export function noiseAnalysis(input: StageInput, options: IntegrateOptions = {})
   const contributors = compiled.sources.map((s, i) => ({key: s.key, outputRms: Math.sqrt(Math.max(0, band.integral[i]))}))
   const total = band.integral.reduce((a, b) => a + b, 0)
   const outputRms = Math.sqrt(Math.max(0, total))
+  // The floor: the same total without the signal's own shot noise (DESIGN §4.3).
+  const signalAt = compiled.sources.findIndex((s) => s.key === 'shot-signal')
+  const zeroSignalOutputRms = signalAt < 0 ? outputRms : Math.sqrt(Math.max(0, total - band.integral[signalAt]))
   const nodes = band.frequency.length
   const noiseDensity = Object.fromEntries(NOISE_KEYS.map((key) => [key, [] as number[]])) as Record<NoiseKey, number[]>
   const noiseTotal: number[] = []
+  const noiseTotalZeroSignal: number[] = []
   compiled.sources.forEach((s, j) => {
     noiseDensity[s.key] = Array.from({length: nodes}, (_, i) => Math.sqrt(band.density[i * k + j]))
   })
@@ -44,6 +48,7 @@ export function noiseAnalysis(input: StageInput, options: IntegrateOptions = {})
     let sum = 0
     for (let j = 0; j < k; j++) sum += band.density[i * k + j]
     noiseTotal.push(Math.sqrt(sum))
+    noiseTotalZeroSignal.push(signalAt < 0 ? Math.sqrt(sum) : Math.sqrt(Math.max(0, sum - band.density[i * k + signalAt])))
   }
   const gain = Math.abs(topologyTerms(input).gain)
   return {
@@ -51,6 +56,7 @@ export function noiseAnalysis(input: StageInput, options: IntegrateOptions = {})
       band: [fL, fH],
       temperature: noiseKelvin(input),
       outputRms,
+      zeroSignalOutputRms,
       outputPeakToPeak: PEAK_TO_PEAK_FACTOR * outputRms,
       inputRms: outputRms / gain,
       contributors
@@ -59,6 +65,7 @@ export function noiseAnalysis(input: StageInput, options: IntegrateOptions = {})
       noiseFrequency: Array.from(band.frequency),
       noiseDensity,
       noiseTotal,
+      noiseTotalZeroSignal,
       cumulativeRms: Array.from(band.cumulative, (c) => Math.sqrt(Math.max(0, c)))
     },
     evaluations: band.evaluations

@@ -6,11 +6,13 @@
  *   inputs scaled by √(IB(T)/IB(25 °C)) at the noise temperature (shot noise of the gate
  *   leakage, i² = 2q·IB, common practice);
  * - thermal noise of every real resistor as a Norton current, i² = 4kT/R (Johnson–Nyquist);
- * - shot noise of the transimpedance source current, i² = 2q·idark (Schottky).
+ * - shot noise of the transimpedance source's dark current at the noise temperature,
+ *   i² = 2q·Idark(Tn), and of the signal current at the largest |input|, i² = 2q·|Isig|
+ *   (`shot-signal`) (Schottky's formula).
  * Densities are one-sided power spectral densities: V²/Hz or A²/Hz.
  */
 import {BOLTZMANN, CELSIUS_TO_KELVIN, ELEMENTARY_CHARGE} from '../constants.js'
-import {biasCurrentAt, doublingInterval} from '../dc/bias.js'
+import {biasCurrentAt, darkCurrentAt, doublingInterval} from '../dc/bias.js'
 import type {Netlist} from '../netlist.js'
 import {topologyModel} from '../topology/index.js'
 import type {NoiseKey, StageInput} from '../types.js'
@@ -73,7 +75,11 @@ export function noiseSources(input: StageInput, net: Netlist): NoiseSource[] {
       case 'in-':
         return {key, kind: 'current', parts: [{into: net.minus, from: 0, white: inPsd}], corner: op.inCorner}
       case 'shot':
-        return {key, kind: 'current', parts: [{into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * input.idark}], corner: 0}
+        return {key, kind: 'current', parts: [{into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * darkCurrentAt(input, input.noiseTemperature)}], corner: 0}
+      case 'shot-signal': {
+        const isig = Math.max(Math.abs(input.input[0]), Math.abs(input.input[1]))
+        return {key, kind: 'current', parts: [{into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * isig}], corner: 0}
+      }
       default: {
         const parts = resistor(key.slice(2))
         return {key, kind: 'current', parts: parts.length > 0 ? parts : [{into: 0, from: 0, white: 0}], corner: 0}

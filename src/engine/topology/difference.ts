@@ -42,7 +42,7 @@ export const difference: TopologyModel = {
     elements: [
       seriesR('rs', input.rs?.value, 'src', 'x'),
       seriesR('rp', input.rp?.value, 'x', 'p'),
-      ...(input.rref ? [{label: 'rref' as const, kind: 'r' as const, a: 'p' as const, b: 'gnd' as const, value: input.rref.value}] : []),
+      ...(input.rref ? [{label: 'rref' as const, kind: 'r' as const, a: 'p' as const, b: 'ref' as const, value: input.rref.value}] : []),
       seriesR('rs', input.rs?.value, 'srcn', 'y'),
       seriesR('rg', input.rg?.value, 'y', 'm'),
       ...commonElements(input, 'p'),
@@ -51,6 +51,7 @@ export const difference: TopologyModel = {
     ],
     wires: [],
     drive: {kind: 'voltage', node: 'src', minus: 'srcn'},
+    dcSources: [{node: 'ref', volts: input.vref}],
     opamp: stagePoles(input)
   })
 }

@@ -20,11 +20,12 @@ export const inverting: TopologyModel = {
     elements: [
       seriesR('rs', input.rs?.value, 'src', 'x'),
       seriesR('rg', input.rg?.value, 'x', 'm'),
-      ...commonElements(input, 'gnd'),
+      ...commonElements(input, 'ref'),
       ...feedbackElements(input), ...loadElements(input)
     ],
     wires: [],
     drive: {kind: 'voltage', node: 'src'},
+    dcSources: [{node: 'ref', volts: input.vref}],
     opamp: stagePoles(input)
   })
 }

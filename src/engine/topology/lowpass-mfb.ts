@@ -25,11 +25,12 @@ export const lowpassMfb: TopologyModel = {
       seriesR('r3', input.r3?.value, 'x', 'm'),
       {label: 'c1', kind: 'c', a: 'm', b: 'o', value: input.c1?.value ?? 0},
       {label: 'c2', kind: 'c', a: 'x', b: 'gnd', value: input.c2?.value ?? 0},
-      ...commonElements(input, 'gnd'),
+      ...commonElements(input, 'ref'),
       ...loadElements(input)
     ],
     wires: [],
     drive: {kind: 'voltage', node: 'src'},
+    dcSources: [{node: 'ref', volts: input.vref}],
     opamp: stagePoles(input)
   })
 }

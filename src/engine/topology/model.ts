@@ -83,7 +83,7 @@ export const shuntR = (label: SpecElement['label'], value: number | null | undef
  */
 export function loadElements(input: StageInput, riso = input.riso?.value ?? 0): SpecElement[] {
   return [
-    seriesR('rout', input.opamp.rout, 'a', 'o'),
+    seriesR('rout', input.opamp.rout ?? 0, 'a', 'o'),
     seriesR('riso', riso, 'o', 'l'),
     {label: 'cload', kind: 'c', a: 'l', b: 'gnd', value: input.cload},
     ...shuntR('rload', input.rload, 'l', 'gnd')

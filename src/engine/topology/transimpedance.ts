@@ -15,17 +15,18 @@ export const transimpedance: TopologyModel = {
     rp: r.rcomp
   }),
   dcKeys: ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'resistor-tolerance', 'resistor-tempco'],
-  noiseKeys: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot'],
+  noiseKeys: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'],
   commonMode: (input) => [input.vref],
   netlist: (input) => ({
     elements: [
-      ...commonElements(input, 'gnd'),
+      ...commonElements(input, 'ref'),
       ...feedbackElements(input), ...loadElements(input),
       {label: 'csource', kind: 'c', a: 'm', b: 'gnd', value: input.csource},
       ...(input.rshunt === null ? [] : [{label: 'rshunt' as const, kind: 'r' as const, a: 'm' as const, b: 'gnd' as const, value: input.rshunt}])
     ],
     wires: [],
     drive: {kind: 'current', node: 'm'},
+    dcSources: [{node: 'ref', volts: input.vref}],
     opamp: stagePoles(input)
   })
 }

@@ -97,7 +97,8 @@ export const NOISE_STYLES: Record<NoiseKey, LineStyle> = {
   'r:r3': {colour: '#0e8c8c', dash: [6, 3, 1, 3], width: CONTRIBUTOR_WIDTH},
   'r:riso': {colour: '#6b5a2a', dash: [2, 4], width: CONTRIBUTOR_WIDTH},
   'r:rload': {colour: '#5a6b7d', dash: [5, 1], width: CONTRIBUTOR_WIDTH},
-  shot: {colour: '#5a6b7d', dash: [12, 3, 3, 3], width: CONTRIBUTOR_WIDTH}
+  shot: {colour: '#5a6b7d', dash: [12, 3, 3, 3], width: CONTRIBUTOR_WIDTH},
+  'shot-signal': {colour: '#b0306a', dash: [3, 2, 8, 2], width: CONTRIBUTOR_WIDTH}
 }
 
 /** The style of the total noise line: black, the only solid line, thicker than any contributor. */

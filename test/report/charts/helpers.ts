@@ -69,6 +69,7 @@ export function stageCurves(): StageCurves {
     noiseFrequency,
     noiseDensity,
     noiseTotal,
+    noiseTotalZeroSignal: noiseTotal,
     cumulativeRms,
     frequency,
     loopGainMagnitude: loop.map((l) => l.magnitude),
@@ -98,6 +99,7 @@ export function dcBudget(): DcBudget {
       {key: 'aol-gain', output: 0.25e-3},
       {key: 'resistor-tolerance', output: 9e-3}
     ],
+    calibrated: null,
     worstCaseOutput: 10.7e-3,
     rssOutput: 9.1e-3,
     worstCaseInput: 0.97e-3,
