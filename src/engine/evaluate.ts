@@ -7,6 +7,7 @@
  * Pure: no I/O, clock or randomness; the same input gives the same result.
  */
 import {dcAnalysis} from './dc/budget.js'
+import {signalGain} from './dc/solve.js'
 import {filterFigures} from './filter.js'
 import {noiseAnalysis} from './noise/budget.js'
 import {checkRequirements} from './requirements.js'
@@ -51,7 +52,7 @@ export function evaluateStage(input: StageInput): StageResult {
     id: input.id,
     topology: input.topology,
     opamp: input.opamp.name,
-    gain: terms.gain,
+    gain: signalGain(input),
     noiseGain: terms.noiseGain,
     ...figures,
     filter: filterFigures(input),

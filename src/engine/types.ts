@@ -231,6 +231,12 @@ export interface DcBudget {
   rssInput: number
   /** Residuals after calibration; null when the stage has none (DESIGN §4.6). */
   calibrated: CalibratedBudget | null
+  /**
+   * Difference stages: the network's own common-mode rejection at its worst tolerance corner,
+   * 20·lg(|G|/|Acm|), dB (DESIGN §8.1); null for other topologies, when no resistor carries a
+   * tolerance, or when the ideal network rejects the common mode exactly at every corner.
+   */
+  networkCmrr: number | null
 }
 
 export interface NoiseBudget {

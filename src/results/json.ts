@@ -36,6 +36,8 @@ export interface JsonStage {
   dc: StageEvaluation['result']['dc']
   noise: StageEvaluation['result']['noise']
   stability: StageEvaluation['result']['stability']
+  /** Low-pass stages (DESIGN §8.4); null elsewhere. */
+  filter: StageEvaluation['result']['filter']
   requirements: StageEvaluation['result']['requirements']
   notes: {rule: string; severity: string; text: string}[]
 }
@@ -66,7 +68,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
         rssOutput: r.dc.calibrated.rssOutput,
         worstCaseInput: r.dc.calibrated.worstCaseInput,
         rssInput: r.dc.calibrated.rssInput
-      }
+      },
+      networkCmrr: finite(r.dc.networkCmrr)
     },
     noise: {
       band: [r.noise.band[0], r.noise.band[1]],
@@ -84,6 +87,7 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       peaking: r.stability.peaking,
       suggestedCf: finite(r.stability.suggestedCf)
     },
+    filter: r.filter === null ? null : {f0: finite(r.filter.f0), q: finite(r.filter.q), passbandGain: r.filter.passbandGain},
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
   }

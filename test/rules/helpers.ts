@@ -89,7 +89,7 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
     dc: {
       temperatureSpan: 0, fullScaleOutput, contributors: dcContributors,
       worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain),
-      calibrated: null
+      calibrated: null, networkCmrr: null
     },
     noise: {
       band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, zeroSignalOutputRms: rms, outputPeakToPeak: 6.6 * rms,

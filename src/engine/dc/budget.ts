@@ -24,7 +24,7 @@ export interface DcAnalysis {
   bias: BiasUsed
 }
 
-const RESISTOR_INPUTS = ['rf', 'rg', 'rs', 'rcomp'] as const
+const RESISTOR_INPUTS = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso'] as const
 
 function spreadsOf(input: StageInput, pick: (r: Resistor) => number): Spreads {
   const s: Spreads = {}
@@ -112,9 +112,22 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
     calibrated = {calibration: input.calibration, contributors: rows, ...totalsOf(rows, g)}
   }
   return {
-    budget: {temperatureSpan: dT, fullScaleOutput: vfs, contributors, ...totals, calibrated},
+    budget: {temperatureSpan: dT, fullScaleOutput: vfs, contributors, ...totals, calibrated, networkCmrr: networkCmrrOf(input, nominal, g)},
     bias
   }
+}
+
+/**
+ * The difference network's own CMRR (DESIGN §8.1): G the nominal differential gain, Acm the
+ * ideal op-amp's output per volt of common mode (both legs moved together, reference
+ * zeroed), maximised over the tolerance corners (tempco not included), in dB.
+ */
+function networkCmrrOf(input: StageInput, nominal: ResistorValues, gain: number): number | null {
+  if (input.topology !== 'difference') return null
+  const spreads = spreadsOf(input, (r) => r.tolerance)
+  if (Object.values(spreads).every((s) => !(s > 0))) return null
+  const acm = maxOverCorners(nominal, spreads, (r) => Math.abs(solveStageDc(input, r, {input: 0, inputCm: 1, references: false}).vout))
+  return acm > 0 ? 20 * Math.log10(gain / acm) : null
 }
 
 function totalsOf(rows: {output: number}[], gain: number): Pick<DcBudget, 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'rssInput'> {

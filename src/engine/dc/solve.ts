@@ -22,7 +22,7 @@
  * `nominalResistors`; resistors with other labels keep their netlist value.
  */
 import {buildNetlist, type NetlistSpec} from '../netlist.js'
-import {topologyModel} from '../topology/index.js'
+import {nominalResistors, topologyModel} from '../topology/index.js'
 import type {StageInput} from '../types.js'
 
 /** The sources of one DC solve. Everything not given is zero (A: ideal). */
@@ -177,3 +177,15 @@ export const solveStageDc = (input: StageInput, resistors: DcResistors, ex: DcEx
 /** Vout,ideal(input, R) of DESIGN §4.2: the ideal op-amp's output, reference term included, V. */
 export const idealOutput = (input: StageInput, signal: number, resistors: DcResistors): number =>
   solveStageDc(input, resistors, {input: signal}).vout
+
+/**
+ * The stage's signed signal gain G at DC, at the load node (DESIGN §8.3): from the ideal DC
+ * solve (reference zeroed) for the topologies of DESIGN §8 and for any stage whose load
+ * divides the output (riso into rload); else the §4.1 value, which the solve equals.
+ */
+export function signalGain(input: StageInput): number {
+  const divided = input.riso !== null && input.rload !== null
+  const modern = input.topology === 'difference' || input.topology === 'lowpass-sallen-key' || input.topology === 'lowpass-mfb'
+  if (!divided && !modern) return topologyModel(input).terms(nominalResistors(input)).gain
+  return solveStageDc(input, nominalResistors(input), {input: 1, references: false}).vout
+}

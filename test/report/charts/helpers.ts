@@ -100,6 +100,7 @@ export function dcBudget(): DcBudget {
       {key: 'resistor-tolerance', output: 9e-3}
     ],
     calibrated: null,
+    networkCmrr: null,
     worstCaseOutput: 10.7e-3,
     rssOutput: 9.1e-3,
     worstCaseInput: 0.97e-3,
