@@ -7,12 +7,6 @@ import type {Code} from 'mdast'
 import type {Point} from 'unist'
 import {rawLine, type SourceText} from './place.js'
 
-/** The fenced blocks of the stage language. */
-export const BLOCK_LANGS = ['stage', 'opamp', 'chain'] as const
-export type BlockLang = (typeof BLOCK_LANGS)[number]
-export const isBlockLang = (s: string | null | undefined): s is BlockLang =>
-  s !== null && s !== undefined && (BLOCK_LANGS as readonly string[]).includes(s)
-
 export interface FenceInfo {
   /** The id (the info string after the language), or null when none. */
   id: string | null

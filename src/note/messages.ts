@@ -8,7 +8,8 @@
 const q = (s: string): string => `\`${s}\``
 const hint = (suggestion: string | null): string => (suggestion === null ? '' : `; did you mean ${q(suggestion)}?`)
 
-export type BlockKind = 'stage' | 'opamp'
+/** A block kind's name, as in the one table of kinds. */
+export type BlockKind = import('./block-kinds.js').BlockLang
 
 /** "stage `bridge-amp`", "front matter". */
 export const blockName = (kind: BlockKind, id: string | null): string => (id === null ? `${kind} block` : `${kind} ${q(id)}`)
