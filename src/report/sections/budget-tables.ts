@@ -75,3 +75,14 @@ export function stabilityTable(r: StageResult): Table {
   }
   return table(['Quantity', 'Value'], rows, ['left', 'right'])
 }
+
+/** Low-pass figures from the solved response (DESIGN §8.4). */
+export function filterTable(r: StageResult): Table | null {
+  const f = r.filter
+  if (f === null) return null
+  return table(['Quantity', 'Value'], [
+    ['f0 (phase of H/H(0) at −90°)', f.f0 === null ? 'not reached in the analysed span' : q(f.f0, 'Hz')],
+    ['Q = |H(f0)/H(0)|', f.q === null ? '—' : f.q.toFixed(3)],
+    ['Passband gain H(0)', q(f.passbandGain, 'V/V', 4)]
+  ], ['left', 'right'])
+}

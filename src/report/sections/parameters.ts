@@ -37,7 +37,8 @@ export function opampValuesTable(op: OpampParams): Table {
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
     ['CMRR / PSRR', `${dbOf(op.cmrr)} / ${dbOf(op.psrr)}`],
     ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F')} / ${q(op.cinCm, 'F')}`],
-    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')]
+    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')],
+    ['Open-loop output resistance', op.rout === null ? 'not entered (0 Ω)' : q(op.rout, 'Ω')]
   ]
   return table(['Parameter', 'Value used'], rows, ['left', 'right'])
 }

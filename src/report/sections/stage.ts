@@ -10,8 +10,8 @@ import {nextTable, type ReportContext} from '../context.js'
 import {TOPOLOGY_LABELS} from '../../results/labels.js'
 import {q} from '../format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
-import {dcTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
-import {dcFigure, loopFigure, noiseFigures} from './figures.js'
+import {dcTable, filterTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
+import {dcFigure, loopFigure, noiseFigures, responseFigure} from './figures.js'
 import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
@@ -33,6 +33,27 @@ function biasBlocks(ev: StageEvaluation): BlockContent[] {
   return [paragraph(
     `Bias current used over ${q(ev.input.temperature[0], '°C')} … ${q(ev.input.temperature[1], '°C')}: ${q(b.ibMax, 'A')}, ${how[b.ibSource]}; ` +
     `offset current ${q(b.iosMax, 'A')}, ${how[b.iosSource]}.`)]
+}
+
+/** What the output drives (DESIGN §8.3), and the difference network's own CMRR (§8.1). */
+function loadBlocks(ev: StageEvaluation): BlockContent[] {
+  const {input, result} = ev
+  const out: BlockContent[] = []
+  const parts = [
+    input.opamp.rout ? `rout ${q(input.opamp.rout, 'Ω')}` : null,
+    input.riso ? `riso ${q(input.riso.value, 'Ω')}` : null,
+    input.cload > 0 ? `cload ${q(input.cload, 'F')}` : null,
+    input.rload !== null ? `rload ${q(input.rload, 'Ω')}` : null
+  ].filter((p): p is string => p !== null)
+  if (input.cload > 0 || input.riso !== null || input.rload !== null) {
+    out.push(paragraph(`The loop, the bandwidth and the noise include the load: ${parts.join(', ')}. ` +
+      'Feedback is taken at the op-amp’s output pin; the signal, noise and DC figures at the load (after riso); the swing, slew and output-current limits at the pin.'))
+  }
+  if (result.dc.networkCmrr !== null) {
+    out.push(paragraph(`Common-mode rejection of the resistor network alone at its worst tolerance corner: ${result.dc.networkCmrr.toFixed(1)} dB ` +
+      '(ideal op-amp; the op-amp’s own CMRR is the separate cmrr term of the DC budget).'))
+  }
+  return out
 }
 
 /** A section for a stage block that could not be evaluated (the build stops before the PDF). */
@@ -65,8 +86,17 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
       'all sources uncorrelated, summed in power.'),
     caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...(await noiseFigures(ctx, ev)))
 
-  out.push(heading(3, 'Stability'), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
+  out.push(heading(3, 'Stability'), ...loadBlocks(ev), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
     await loopFigure(ctx, ev))
+
+  const filter = filterTable(result)
+  const response = await responseFigure(ctx, ev)
+  if (filter !== null && response !== null) {
+    out.push(heading(3, 'Filter response'),
+      paragraph('f0, Q and the passband gain are read off the solved response, op-amp included: f0 where the phase of H(f)/H(0) passes −90°, Q = |H(f0)/H(0)|. ' +
+        'Capacitor tolerances are listed with the parameters; they change none of these figures.'),
+      caption(nextTable(ctx, `Filter figures of stage ${input.id}`)), filter, response)
+  }
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
   out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared))
