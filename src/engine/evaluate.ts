@@ -9,6 +9,7 @@
 import {dcAnalysis} from './dc/budget.js'
 import {signalGain} from './dc/solve.js'
 import {filterFigures} from './filter.js'
+import {evaluateInstrumentation} from './instrumentation.js'
 import {noiseAnalysis} from './noise/budget.js'
 import {checkRequirements} from './requirements.js'
 import {stabilityAnalysis} from './stability.js'
@@ -25,6 +26,10 @@ export function assertEvaluable(input: StageInput): void {
     if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a resistor for a ${input.topology} stage`)
   }
   const t = input.topology
+  if (t === 'instrumentation') {
+    if (input.ina === null) throw new RangeError(`Unexpected missing \`ina\` in stage \`${input.id}\`, expected an instrumentation amplifier`)
+    needs('rg', input.rg !== null && input.rg.value > 0)
+  }
   const needsRf = t === 'noninverting' || t === 'inverting' || t === 'transimpedance' || t === 'difference'
   if (needsRf) needs('rf', input.rf !== null && input.rf.value > 0)
   if (t === 'noninverting' || t === 'inverting' || t === 'difference') needs('rg', input.rg !== null && input.rg.value > 0)
@@ -42,6 +47,7 @@ export function assertEvaluable(input: StageInput): void {
 /** Evaluate a stage: DC budget, noise, stability, swing and requirement verdicts. */
 export function evaluateStage(input: StageInput): StageResult {
   assertEvaluable(input)
+  if (input.topology === 'instrumentation') return evaluateInstrumentation(input)
   const terms = topologyTerms(input)
   const dc = dcAnalysis(input)
   const noise = noiseAnalysis(input)

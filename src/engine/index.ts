@@ -51,3 +51,5 @@ export {
 export {capacitiveLoadAdvice, marginOverRiso, RISO_RANGE, type CapacitiveLoadAdvice} from './suggested-riso.js'
 export {filterFigures, FILTER_TOPOLOGIES, isFilterTopology} from './filter.js'
 export {setResistance} from './nodal.js'
+export {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, INA_ARCHETYPE_DISCLAIMER, inaAsOpamp, isInaArchetypeName} from './ina-archetypes.js'
+export {evaluateInstrumentation, inaGain, INA_DC_KEYS, INA_NOISE_KEYS} from './instrumentation.js'

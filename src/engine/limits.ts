@@ -37,9 +37,11 @@ function window(key: 'output-swing' | 'input-common-mode', value: [number, numbe
 }
 
 /** Every limit of DESIGN §4.6, in the order of `LIMIT_KEYS`. */
-export function checkLimits(input: StageInput): LimitResult[] {
+export const checkLimits = (input: StageInput): LimitResult[] => checkLimitsAt(input, operatingPoints(input))
+
+/** The limits at given operating points (the instrumentation stage supplies its own, DESIGN §8.2). */
+export function checkLimitsAt(input: StageInput, points: readonly DcSolution[]): LimitResult[] {
   const op = input.opamp
-  const points = operatingPoints(input)
   const rails = railsAtLowTolerance(input)
   // The swing and slew limits are the op-amp's: at its output pin, before riso (DESIGN §8.3).
   const outSpan = span(points.map((p) => p.vpin))

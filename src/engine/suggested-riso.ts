@@ -67,7 +67,7 @@ export function marginOverRiso(input: StageInput): {riso: number[]; margin: numb
 
 /** The load's cost and the riso advice; null when the stage has no cload. */
 export function capacitiveLoadAdvice(input: StageInput): CapacitiveLoadAdvice | null {
-  if (!(input.cload > 0)) return null
+  if (!(input.cload > 0) || input.topology === 'instrumentation') return null
   const margin = marginOf(createWorkspace(stageNetlist(input)), input)
   const marginWithoutLoad = marginOf(createWorkspace(stageNetlist({...input, cload: 0})), input)
   const cost = margin === null || marginWithoutLoad === null ? null : marginWithoutLoad - margin

@@ -8,7 +8,7 @@
  */
 
 /** Stage topologies (DESIGN §3.3, §8.1, §8.4). */
-export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance', 'difference', 'lowpass-sallen-key', 'lowpass-mfb'] as const
+export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance', 'difference', 'lowpass-sallen-key', 'lowpass-mfb', 'instrumentation'] as const
 export type Topology = (typeof TOPOLOGIES)[number]
 export const isTopology = (s: string): s is Topology => (TOPOLOGIES as readonly string[]).includes(s)
 
@@ -115,6 +115,47 @@ export interface OpampParams {
   rout: number | null
 }
 
+/** An integrated instrumentation amplifier's datasheet values, SI (DESIGN §8.2). */
+export interface InaParams {
+  /** Block id or archetype name. */
+  name: string
+  archetype: boolean
+  inputType: InputType
+  /** G = 1 + gainConstant/rg, Ω. */
+  gainConstant: number
+  /** Gain error at 25 °C excluding rg, fraction. */
+  gainError: number
+  /** Gain drift excluding rg, 1/K. */
+  gainDrift: number
+  /** Nonlinearity, fraction of the output span. */
+  nonlinearity: number
+  vosIn: number
+  vosOut: number
+  vosInDrift: number
+  vosOutDrift: number
+  ib: number
+  ios: number
+  ibMax: number | null
+  iosMax: number | null
+  ibDoubling: number | null
+  vcmRef: number | null
+  /** Input-stage and output-stage voltage noise, V/√Hz, with one 1/f corner. */
+  enIn: number
+  enOut: number
+  enCorner: number
+  in: number
+  inCorner: number
+  /** CMRR at the stage's gain, linear. */
+  cmrr: number
+  /** PSRR, input-referred, linear. */
+  psrr: number
+  /** Bandwidth ≈ gbw/G, Hz. */
+  gbw: number
+  slew: number | null
+  swingHeadroom: number | null
+  cmHeadroom: number | null
+}
+
 /** Room-temperature calibration of a stage (DESIGN §4.6). */
 export const CALIBRATIONS = ['none', 'offset', 'offset-and-gain'] as const
 export type Calibration = (typeof CALIBRATIONS)[number]
@@ -171,8 +212,10 @@ export interface StageInput {
   cload: number
   /** Capacitance from the + pin to ground, F. */
   cstrayPlus: number
-  /** Difference: common-mode range of the input, V (default 0 .. 0). */
+  /** Difference and instrumentation: common-mode range of the input, V (default 0 .. 0). */
   inputCm: Range
+  /** Instrumentation: the integrated amplifier (DESIGN §8.2); null for other topologies. */
+  ina: InaParams | null
   /** Signal range at the stage input: V, or A for transimpedance. */
   input: Range
   /** Supply rails [negative, positive], V. */
@@ -198,12 +241,12 @@ export interface StageInput {
 }
 
 /** DC contributor keys (DESIGN §4.2). */
-export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'resistor-tolerance', 'resistor-tempco'] as const
+export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'gain-error', 'resistor-tolerance', 'resistor-tempco', 'nonlinearity'] as const
 export type DcKey = (typeof DC_KEYS)[number]
 
 /** Noise contributor keys (DESIGN §4.3). */
 export const NOISE_KEYS = [
-  'en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot', 'shot-signal'
+  'en', 'en-in', 'en-out', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot', 'shot-signal'
 ] as const
 export type NoiseKey = (typeof NOISE_KEYS)[number]
 

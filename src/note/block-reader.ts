@@ -98,6 +98,7 @@ export function readBlocks(tree: Root, file: VFile): void {
     return
   }
   const opamps = opampRegistry(predeclaredIds(found, source, 'opamp'))
+  const inas = new Map<string, import('../engine/types.js').InaParams | null>()
   const seen = new Map<BlockLang, Map<string, Point>>(BLOCK_LANGS.map((l) => [l, new Map()]))
   for (const {code, lang, parent, index} of found) {
     const kind: BlockKind = BLOCK_KINDS[lang]
@@ -118,7 +119,7 @@ export function readBlocks(tree: Root, file: VFile): void {
     const {fields, broken} = swallowed === null ? readYaml(code.value, mapper, where, report) : {fields: [], broken: true}
     const node = kind.read({
       id: info.id ?? '', idAt: info.idAt, where, broken, report, fields, entries: entriesOf(fields),
-      position: code.position, errorsBefore, firstOfId, opamps
+      position: code.position, errorsBefore, firstOfId, opamps, inas
     })
     parent.children[index] = node
     ;(blocks[lang] ??= []).push(node)

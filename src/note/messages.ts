@@ -98,6 +98,8 @@ export const noteMessages = {
 
   unknownOpamp: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>
     `Unexpected opamp ${q(name)} in ${stage}, expected the id of an opamp block of this note or an archetype${suggestion === null && archetypes.length > 0 ? `: add an \`opamp ${name}\` block above the stage, or name an archetype (${archetypes.map(q).join(', ')})` : hint(suggestion)}`,
+  unknownIna: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>
+    `Unexpected ina ${q(name)} in ${stage}, expected the id of an ina block above the stage or an INA archetype${suggestion === null && archetypes.length > 0 ? ` (${archetypes.map(q).join(', ')})` : hint(suggestion)}`,
   opampDefinedLater: (name: string, line: number) =>
     `Unexpected opamp ${q(name)} before its block (line ${line}), expected it defined above the stage: move the opamp block up`,
   opampHasErrors: (stage: string, name: string) =>

@@ -5,7 +5,8 @@
  * the defaults and lists them. Any error in the block makes the input null.
  */
 import type {Point} from 'unist'
-import type {OpampParams, Resistor, StageInput, Topology} from '../engine/types.js'
+import {inaAsOpamp} from '../engine/ina-archetypes.js'
+import type {InaParams, OpampParams, Resistor, StageInput, Topology} from '../engine/types.js'
 import {formatPercent, formatQuantity, formatRange, formatTemperature, formatTemperatureRange, formatTempco} from '../units/index.js'
 import type {Field} from './block-yaml.js'
 import type {Reporter} from './diagnostics.js'
@@ -40,6 +41,8 @@ export interface StageContext {
   broken: boolean
   report: Reporter
   resolveOpamp: OpampResolver
+  /** Resolves an instrumentation stage's `ina:` (DESIGN §8.2). */
+  resolveIna: (name: string, at: Point) => InaParams | null
 }
 
 export interface BuiltStage {
@@ -131,7 +134,10 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
   const read = readStage(fields, ctx.where, ctx.report)
   if (!ctx.broken) reportMissing(read, ctx)
   checkCombinations(read, ctx)
-  const opamp = read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
+  const ina = read.ina === null ? null : ctx.resolveIna(read.ina.name, read.ina.at)
+  // An instrumentation stage's amplifier is its INA; the op-amp view carries its input values.
+  const opamp = read.topology === 'instrumentation' ? (ina === null ? null : inaAsOpamp(ina))
+    : read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
   const {topology, input, supply} = read
   if (ctx.report.errors > errorsBefore || topology === null || opamp === null || input === null || supply === null) {
     return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id)}
@@ -161,6 +167,7 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     cload: q.cload ?? 0,
     cstrayPlus: q['cstray-plus'] ?? 0,
     inputCm: read.inputCm ?? [0, 0],
+    ina,
     csource: q.csource ?? 0,
     idark: q.idark ?? 0,
     idarkMax: q['idark-max'] ?? null,

@@ -29,6 +29,8 @@ export interface StageRead {
   topology: Topology | null
   title: string | null
   opamp: {name: string; at: Point} | null
+  /** Instrumentation: the `ina:` name. */
+  ina: {name: string; at: Point} | null
   resistors: Partial<Record<ResistorKey, ReadResistor>>
   quantities: Partial<Record<QuantityKey, number>>
   rshunt: number | null
@@ -117,7 +119,7 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, calibration: null,
+    topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, calibration: null,
     capacitors: {}, inputCm: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
@@ -152,6 +154,11 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       case 'opamp': {
         const s = scalarOf(field, 'an opamp block id or an archetype name', report)
         if (s !== null) read.opamp = {name: s.text.trim(), at: s.at(0)}
+        break
+      }
+      case 'ina': {
+        const s = scalarOf(field, 'an ina block id or an INA archetype name', report)
+        if (s !== null) read.ina = {name: s.text.trim(), at: s.at(0)}
         break
       }
       case 'resistor':

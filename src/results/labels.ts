@@ -13,12 +13,16 @@ export const DC_LABELS: Record<DcKey, string> = {
   cmrr: 'Common-mode rejection',
   psrr: 'Supply rejection',
   'aol-gain': 'Finite open-loop gain',
+  'gain-error': 'Gain error of the part',
+  nonlinearity: 'Gain nonlinearity',
   'resistor-tolerance': 'Resistor tolerance',
   'resistor-tempco': 'Resistor tempco'
 }
 
 export const NOISE_LABELS: Record<NoiseKey, string> = {
   en: 'Op-amp voltage noise',
+  'en-in': 'Input-stage voltage noise',
+  'en-out': 'Output-stage voltage noise',
   'in+': 'Current noise, + input',
   'in-': 'Current noise, − input',
   'r:rf': 'Thermal noise of rf',
@@ -63,7 +67,8 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
   transimpedance: 'Transimpedance amplifier',
   difference: 'Difference amplifier',
   'lowpass-sallen-key': 'Sallen-Key low-pass filter',
-  'lowpass-mfb': 'Multiple-feedback low-pass filter'
+  'lowpass-mfb': 'Multiple-feedback low-pass filter',
+  instrumentation: 'Instrumentation amplifier'
 }
 
 /** Unit of the stage's input quantity: A for transimpedance, V otherwise. */

@@ -33,6 +33,7 @@ function networkCurrent(input: StageInput, vfs: number): number {
     case 'difference':
     case 'lowpass-sallen-key':
     case 'lowpass-mfb':
+    case 'instrumentation':
       return 0
   }
 }

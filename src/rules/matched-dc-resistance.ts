@@ -58,6 +58,7 @@ function matchedVariant(input: StageInput, rn: number, rp: number): Variant | nu
     // Matching is set by the network itself (difference) or by the filter's values (Sallen-Key).
     case 'difference':
     case 'lowpass-sallen-key':
+    case 'instrumentation':
       return null
   }
 }

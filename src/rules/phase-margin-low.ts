@@ -23,6 +23,7 @@ const REMEDY: Record<Topology, string> = {
   transimpedance: 'Consider a larger feedback capacitor (the transimpedance note quotes the value for 60°).',
   difference: 'Consider a capacitor across rf, less capacitance at the − input, or isolating a capacitive load with riso.',
   'lowpass-sallen-key': 'Consider an amplifier with more margin at the stage’s noise gain, or isolating a capacitive load with riso.',
+  instrumentation: 'The part is compensated internally; consider the maker’s guidance on loads.',
   'lowpass-mfb': 'Consider lower filter impedances (less phase lag from r3 with the − input’s capacitance), or isolating a capacitive load with riso.'
 }
 

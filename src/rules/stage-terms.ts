@@ -48,6 +48,8 @@ export function dcResistances(input: StageInput): {rn: number; rp: number} {
       return {rn: input.rshunt === null ? rf : parallel(rf, input.rshunt), rp: rcomp}
     case 'difference':
     case 'lowpass-sallen-key':
+    case 'instrumentation':
+      return {rn: rs, rp: rs}
     case 'lowpass-mfb': {
       const t = topologyTerms(input)
       return {rn: t.rn, rp: t.rp}

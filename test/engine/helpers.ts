@@ -69,7 +69,7 @@ export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
     idarkDoubling: 10,
     vref: 0,
     rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
     input: [-0.05, 0.05],
     supply: [-12, 12],
     supplyTolerance: 0.05,

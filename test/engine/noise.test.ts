@@ -14,7 +14,8 @@ const KEYS: Record<StageInput['topology'], string[]> = {
   // The difference fixture drives a load through riso: the load's keys are listed (DESIGN §8.3).
   difference: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rp', 'r:rref', 'r:rs', 'r:riso', 'r:rload'],
   'lowpass-sallen-key': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:rf', 'r:rg'],
-  'lowpass-mfb': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:r3', 'r:rcomp']
+  'lowpass-mfb': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:r3', 'r:rcomp'],
+  instrumentation: ['en-in', 'en-out', 'in+', 'in-', 'r:rs', 'r:rg']
 }
 
 describe('noiseAnalysis()', () => {

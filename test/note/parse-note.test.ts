@@ -60,7 +60,7 @@ describe('parseNote() on a good note', () => {
       idarkDoubling: 10,
       vref: 0,
       rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-      riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+      riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
       input: [-10e-3, 10e-3],
       supply: [-15, 15],
       supplyTolerance: 0.02,

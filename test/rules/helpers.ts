@@ -36,7 +36,7 @@ export function stageInput(over: Partial<StageInput> = {}): StageInput {
     idarkDoubling: 10,
     vref: 0,
     rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0],
+    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
     input: [-0.1, 0.1],
     supply: [-15, 15],
     supplyTolerance: 0.05,

@@ -89,6 +89,9 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
     cmrr: cmrrTerm,
     psrr: () => out({vos: ((input.supply[1] - input.supply[0]) * input.supplyTolerance) / op.psrr}),
     'aol-gain': aolTerm,
+    // Terms of the instrumentation block (DESIGN §8.2); no op-amp topology lists them.
+    'gain-error': () => 0,
+    nonlinearity: () => 0,
     'resistor-tolerance': () => resistorTerm(spreadsOf(input, (r) => r.tolerance)),
     'resistor-tempco': () => resistorTerm(spreadsOf(input, (r) => r.tempco * dT))
   }

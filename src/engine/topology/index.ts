@@ -8,6 +8,7 @@ import {difference} from './difference.js'
 import {follower} from './follower.js'
 import {lowpassMfb} from './lowpass-mfb.js'
 import {lowpassSallenKey} from './lowpass-sallen-key.js'
+import {instrumentation} from './instrumentation.js'
 import {inverting} from './inverting.js'
 import {nominalResistors, type TopologyModel, type TopologyTerms} from './model.js'
 import {noninverting} from './noninverting.js'
@@ -20,7 +21,7 @@ export {differencePlusPin} from './difference.js'
 
 /** Every topology's model. */
 export const TOPOLOGY_MODELS: Record<Topology, TopologyModel> = {
-  noninverting, inverting, follower, transimpedance, difference, 'lowpass-sallen-key': lowpassSallenKey, 'lowpass-mfb': lowpassMfb
+  noninverting, inverting, follower, transimpedance, difference, 'lowpass-sallen-key': lowpassSallenKey, 'lowpass-mfb': lowpassMfb, instrumentation
 }
 
 /** The model of a stage's topology. */

@@ -82,6 +82,8 @@ export const CONTRIBUTOR_WIDTH = 1.4
 /** The style of each noise contributor's density line (all dashed; solid is the total's). */
 export const NOISE_STYLES: Record<NoiseKey, LineStyle> = {
   en: {colour: '#1f5fa8', dash: [9, 3], width: CONTRIBUTOR_WIDTH},
+  'en-in': {colour: '#1f5fa8', dash: [9, 3], width: CONTRIBUTOR_WIDTH},
+  'en-out': {colour: '#7d3fa6', dash: [3, 3], width: CONTRIBUTOR_WIDTH},
   'in+': {colour: '#c2561a', dash: [5, 3], width: CONTRIBUTOR_WIDTH},
   'in-': {colour: '#d08a00', dash: [2, 2], width: CONTRIBUTOR_WIDTH},
   'r:rf': {colour: '#2b8a47', dash: [8, 3, 2, 3], width: CONTRIBUTOR_WIDTH},

@@ -63,6 +63,12 @@ export function noiseTable(r: StageResult): Table {
 /** Loop stability and closed-loop response figures. */
 export function stabilityTable(r: StageResult): Table {
   const s = r.stability
+  if (r.topology === 'instrumentation') {
+    return table(['Quantity', 'Value'], [
+      ['Phase margin', 'not analysed (compensated inside the part)'],
+      ['Closed-loop −3 dB bandwidth (gbw/G)', q(s.bandwidth, 'Hz')]
+    ], ['left', 'right'])
+  }
   const rows: string[][] = [
     ['Loop-gain crossover', q(s.crossover, 'Hz')],
     ['Phase margin', s.phaseMargin === null ? 'no crossover' : deg(s.phaseMargin)],

@@ -12,7 +12,8 @@ import {q} from '../format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
 import {dcTable, filterTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
 import {dcFigure, loopFigure, noiseFigures, responseFigure} from './figures.js'
-import {archetypeNotice, entriesTable, opampValuesTable} from './parameters.js'
+import {archetypeNotice, entriesTable, inaValuesTable, opampValuesTable} from './parameters.js'
+import {INA_ARCHETYPE_DISCLAIMER} from '../../engine/ina-archetypes.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
@@ -66,12 +67,17 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
   const op = input.opamp
   const out: BlockContent[] = [
     heading(2, `Stage ${input.id} — ${input.title}`),
-    paragraph(`${TOPOLOGY_LABELS[input.topology]} on op-amp `, code(op.name), op.archetype ? ' (archetype).' : '.')
+    paragraph(`${TOPOLOGY_LABELS[input.topology]} on ${input.ina ? 'instrumentation amplifier' : 'op-amp'} `, code(op.name), op.archetype ? ' (archetype).' : '.')
   ]
-  if (op.archetype) out.push(archetypeNotice(op))
+  if (op.archetype) {
+    out.push(input.ina
+      ? callout('info', 'ARCHETYPE', [paragraph(`Instrumentation amplifier “${op.name}” is a built-in archetype. `, INA_ARCHETYPE_DISCLAIMER)])
+      : archetypeNotice(op))
+  }
   out.push(heading(3, 'Parameters'), caption(nextTable(ctx, `Parameters of stage ${input.id}`)),
     entriesTable(ev.block.entries, ev.block.defaulted))
-  if (op.archetype) out.push(caption(nextTable(ctx, `Archetype ${op.name}, values used`)), opampValuesTable(op))
+  if (op.archetype && input.ina) out.push(caption(nextTable(ctx, `Archetype ${op.name}, values used`)), inaValuesTable(input.ina))
+  else if (op.archetype) out.push(caption(nextTable(ctx, `Archetype ${op.name}, values used`)), opampValuesTable(op))
   out.push(heading(3, 'Results summary'), caption(nextTable(ctx, `Results of stage ${input.id}`)), summaryTable(result))
   out.push(...swingBlocks(ev))
 
@@ -86,8 +92,16 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
       'all sources uncorrelated, summed in power.'),
     caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...(await noiseFigures(ctx, ev)))
 
-  out.push(heading(3, 'Stability'), ...loadBlocks(ev), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
-    await loopFigure(ctx, ev))
+  if (input.topology === 'instrumentation') {
+    out.push(heading(3, 'Bandwidth'),
+      paragraph('An integrated instrumentation amplifier is compensated internally and its loop is not accessible, so there is no loop-gain analysis ' +
+        'and the phase margin is not given (null in the JSON); the bandwidth is the part’s gbw/G, a single pole. ' +
+        'Follow the maker’s guidance for capacitive loads on the output and the reference pin.'),
+      caption(nextTable(ctx, `Bandwidth of stage ${input.id}`)), stabilityTable(result))
+  } else {
+    out.push(heading(3, 'Stability'), ...loadBlocks(ev), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
+      await loopFigure(ctx, ev))
+  }
 
   const filter = filterTable(result)
   const response = await responseFigure(ctx, ev)
@@ -105,8 +119,10 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
 
 /** An opamp block's section: its datasheet values as written and as used. */
 export function opampSection(ctx: ReportContext, node: import('../../note/types.js').OpampBlockNode): BlockContent[] {
-  const out: BlockContent[] = [heading(3, 'Op-amp ', code(node.id)),
-    caption(nextTable(ctx, `Datasheet values of op-amp ${node.id}, as written`)), entriesTable(node.entries, node.defaulted)]
+  const what = node.ina === undefined ? 'op-amp' : 'instrumentation amplifier'
+  const out: BlockContent[] = [heading(3, node.ina === undefined ? 'Op-amp ' : 'Instrumentation amplifier ', code(node.id)),
+    caption(nextTable(ctx, `Datasheet values of ${what} ${node.id}, as written`)), entriesTable(node.entries, node.defaulted)]
+  if (node.ina) out.push(caption(nextTable(ctx, `Instrumentation amplifier ${node.id}, values used by the engine`)), inaValuesTable(node.ina))
   if (node.opamp) out.push(caption(nextTable(ctx, `Op-amp ${node.id}, values used by the engine`)), opampValuesTable(node.opamp))
   return out
 }
