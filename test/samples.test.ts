@@ -17,7 +17,7 @@ const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(
 const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
 
 function checkStage(s: Json): void {
-  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'requirements', 'notes'])
+  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes'])
   expect(typeof s['id']).toBe('string')
   expect(['noninverting', 'inverting', 'follower', 'transimpedance']).toContain(s['topology'])
   expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)
