@@ -51,7 +51,8 @@ export function referenceCircuit(s: StageInput): RefCircuit {
       c.push(['m', 'o', s.cf])
     }
   }
-  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : s.topology === 'difference' || s.topology === 'lowpass-sallen-key' ? null : 'gnd'
+  // Inverting, transimpedance and MFB: the + pin returns to the vref source ('ref', 0 V unless excited).
+  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : s.topology === 'difference' || s.topology === 'lowpass-sallen-key' ? null : 'ref'
   if (plusFrom !== null) {
     series(plusFrom, 'p', s.rcomp?.value, 'rcomp')
     if (s.rcomp) c.push([plusFrom, 'p', s.ccomp])
@@ -76,7 +77,7 @@ export function referenceCircuit(s: StageInput): RefCircuit {
       // §8.1: + leg src → rs → rp → + pin, rref to the reference (AC ground); − leg srcn → rs → rg → − pin.
       series('src', 'xp', s.rs?.value, 'rs')
       series('xp', 'p', s.rp?.value, 'rp')
-      if (s.rref) r.push(['p', 'gnd', s.rref.value, 'rref'])
+      if (s.rref) r.push(['p', 'ref', s.rref.value, 'rref'])
       series('srcn', 'xn', s.rs?.value, 'rs')
       series('xn', 'm', s.rg?.value, 'rg')
       break
@@ -108,9 +109,10 @@ export function referenceA(s: StageInput, f: number): Complex {
   return divide(complex(op.aol, 0), cmulm(p1, p2)) as Complex
 }
 
-/** Excitation: a voltage at 'src' (V), currents into nodes (A), en at the op-amp's input (V). */
+/** Excitation: a voltage at 'src' (V), vref at 'ref' (V), currents into nodes (A), en at the op-amp's input (V). */
 export interface Excitation {
   vsrc?: number
+  vref?: number
   currents?: [into: Node, from: Node, amps: number][]
   en?: number
   /** Node to read (default 'l', the load node: the stage output of DESIGN §8.3). */
@@ -138,6 +140,7 @@ export function referenceOutput(s: StageInput, f: number, ex: Excitation): Compl
   // A difference stage's drive is differential: vsrc/2 on the + leg, −vsrc/2 on the − leg.
   if (hasSrc) vsrcs.push({p: 'src', n: 'gnd', value: complex(differential ? (ex.vsrc ?? 0) / 2 : ex.vsrc ?? 0, 0)})
   if (differential) vsrcs.push({p: 'srcn', n: 'gnd', value: complex(-(ex.vsrc ?? 0) / 2, 0)})
+  if (names.has('ref')) vsrcs.push({p: 'ref', n: 'gnd', value: complex(ex.vref ?? 0, 0)})
   vsrcs.push({p: 'a', n: 'gnd', value: complex(0, 0), vcvs: true})
   const size = nodes.length + vsrcs.length
   const m: Complex[][] = Array.from({length: size}, () => Array.from({length: size}, () => complex(0, 0)))

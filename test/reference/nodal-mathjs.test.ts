@@ -1,11 +1,11 @@
 /**
  * The engine's nodal solver against an independent modified-nodal solve written with mathjs
  * (complex matrices, `lusolve`): signal gains, every noise source's transfer, and the DC
- * bias-current offsets, for every topology and a stage with the full load of §8.3
- * (DESIGN §4.2, §4.3, §7, §8).
+ * bias-current offsets, for every topology and a stage with the full load of §8.3, and the
+ * reference (vref) term of the DC budget (DESIGN §4.2, §4.3, §7, §8).
  */
 import {describe, expect, it} from 'vitest'
-import {closedLoopGain, dcBudget, noiseTransfers, type StageInput} from '../../src/engine/index.js'
+import {closedLoopGain, dcBudget, idealOutput, noiseTransfers, nominalResistors, type StageInput} from '../../src/engine/index.js'
 import {loadedFixture, res, stageInput, testOpamp, topologyFixtures} from '../engine/helpers.js'
 import {mag, referenceCircuit, referenceOutput, type Excitation} from './mathjs-nodal.js'
 
@@ -79,5 +79,41 @@ describe('DC bias-current offsets vs mathjs reference (Source: independent MNA a
     const scale = ib * 1e6 * 100
     expect(Math.abs(term('ib') - mag(vIb))).toBeLessThanOrEqual(1e-6 * scale)
     expect(Math.abs(term('ios') - mag(vIos))).toBeLessThanOrEqual(1e-6 * Math.max(mag(vIos), 1e-12))
+  })
+})
+
+describe('DC reference term vs mathjs reference (Source: independent MNA at f = 0, vref as a source at the + pin\'s return)', () => {
+  // Aol = 1e10: the reference's finite-gain factor differs from the ideal op-amp by < 1e-8.
+  const withVref = topologyFixtures().filter((s) => s.topology === 'inverting' || s.topology === 'transimpedance')
+    .map((s) => ({...s, opamp: testOpamp({aol: 1e10})}))
+  const refOut = (s: StageInput, vin: number): number => {
+    const ex = s.topology === 'transimpedance' ? {vref: s.vref, currents: [['m', 'gnd', vin]] as [string, string, number][]} : {vref: s.vref, vsrc: vin}
+    return referenceOutput(s, 0, ex).re
+  }
+  it.each(withVref.map((s) => [s.topology, s] as const))('%s: Vout,ideal at both input ends and fullScaleOutput', (_, s) => {
+    const r = nominalResistors(s)
+    for (const vin of s.input) {
+      const ref = refOut(s, vin)
+      expect(Math.abs(idealOutput(s, vin, r) - ref)).toBeLessThanOrEqual(1e-7 * Math.max(1, Math.abs(ref)))
+    }
+    const vfs = Math.max(...s.input.map((v) => Math.abs(refOut(s, v))))
+    expect(Math.abs(dcBudget(s).fullScaleOutput - vfs)).toBeLessThanOrEqual(1e-7 * vfs)
+  })
+  it.each(withVref.map((s) => [s.topology, s] as const))('%s: resistor-tolerance equals the worst corner of the reference solve', (_, s) => {
+    const keys = (['rf', 'rg', 'rs', 'rcomp'] as const).filter((k) => (s[k]?.tolerance ?? 0) > 0)
+    let worst = 0
+    for (let c = 0; c < 1 << keys.length; c++) {
+      const moved: StageInput = {...s}
+      keys.forEach((k, bit) => {
+        const r = s[k]!
+        moved[k] = {...r, value: r.value * ((c >> bit) & 1 ? 1 + r.tolerance : 1 - r.tolerance)}
+      })
+      for (const vin of s.input) worst = Math.max(worst, Math.abs(refOut(moved, vin) - refOut(s, vin)))
+    }
+    const term = dcBudget(s).contributors.find((k) => k.key === 'resistor-tolerance')!.output
+    // The vref part is present: with vref 0 the term differs.
+    const without = dcBudget({...s, vref: 0}).contributors.find((k) => k.key === 'resistor-tolerance')!.output
+    expect(Math.abs(term - without)).toBeGreaterThan(1e-3 * worst)
+    expect(Math.abs(term - worst)).toBeLessThanOrEqual(1e-6 * worst)
   })
 })
