@@ -7,6 +7,7 @@ import {describe, expect, it} from 'vitest'
 import {readdirSync} from 'node:fs'
 import {join} from 'node:path'
 import {ROOT, runCli} from './cli/helpers.js'
+import {TOPOLOGIES} from '../src/engine/types.js'
 
 const SAMPLES = readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).sort()
 /** One starting note per topology (written by `ampreview new`), so all four are covered. */
@@ -19,7 +20,7 @@ const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
 function checkStage(s: Json): void {
   expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes'])
   expect(typeof s['id']).toBe('string')
-  expect(['noninverting', 'inverting', 'follower', 'transimpedance']).toContain(s['topology'])
+  expect(TOPOLOGIES as readonly unknown[]).toContain(s['topology'])
   expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)
   const dc = s['dc'] as Json
   expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'])
@@ -47,13 +48,13 @@ describe('sample designs', () => {
     expect(SAMPLES.length).toBeGreaterThanOrEqual(3)
   })
 
-  it('with the topology notes, cover all four topologies', () => {
+  it('with the topology notes, cover every topology', () => {
     const topologies = new Set<string>()
     for (const path of [...SAMPLES.map((n) => join('sample-designs', n)), ...TOPOLOGY_NOTES.map((n) => join('test', 'fixtures', 'topologies', n))]) {
       const out = JSON.parse(runCli(['check', '--json', path]).stdout) as {files: {stages: {topology: string}[]}[]}
       for (const s of out.files[0]!.stages) topologies.add(s.topology)
     }
-    expect([...topologies].sort()).toEqual(['follower', 'inverting', 'noninverting', 'transimpedance'])
+    expect([...topologies].sort()).toEqual([...TOPOLOGIES].sort())
   })
 
   it.each([

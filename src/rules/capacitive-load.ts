@@ -5,7 +5,7 @@
  * removed (the op-amp's `rout` with cload is a second pole in the loop).
  *
  * When it fires: the load costs more than 15°. Severity warning when the margin left is
- * under 45°, caution otherwise.
+ * under 45°, caution otherwise; info when the stage's own riso already holds 60°.
  *
  * What it recommends: the smallest `riso` (a search over 0.1 Ω … 10 kΩ, like the Cf
  * suggestion of a transimpedance stage) that brings the margin back to 60° when that is
@@ -18,12 +18,17 @@ import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const COST_LIMIT = 15
 const LOW_MARGIN = 45
+const GOOD_MARGIN = 60
 
 function check({input}: RuleContext): RuleFinding[] {
   const a = capacitiveLoadAdvice(input)
   if (a === null || a.cost === null || a.cost <= COST_LIMIT || a.margin === null || a.marginWithoutLoad === null) return []
   const load = `cload = ${formatQuantity(input.cload, 'F')} with rout = ${formatQuantity(input.opamp.rout ?? 0, 'Ω')}${input.riso ? ` and riso = ${formatQuantity(input.riso.value, 'Ω')}` : ''}`
   const head = `The capacitive load costs ${formatAngle(a.cost)} of phase margin (${load}): ${formatAngle(a.margin)} against ${formatAngle(a.marginWithoutLoad)} unloaded.`
+  // An riso already in place that holds 60°: say what the load costs, no change to suggest.
+  if (input.riso !== null && a.margin >= GOOD_MARGIN) {
+    return [{severity: 'info', text: `${head} The riso in place holds the margin at or above ${formatAngle(GOOD_MARGIN)}.`}]
+  }
   const fix = a.riso === null || a.target === null
     ? ' No riso up to 10 kΩ brings the margin back to 45°: consider a smaller load, a lower-impedance buffer, or an amplifier specified for capacitive loads.'
     : ` riso = ${formatQuantity(a.riso, 'Ω')} between the output pin and the load (feedback taken at the pin) brings it back to ${formatAngle(a.target)}` +

@@ -55,7 +55,7 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   it('warns only with the practice notes of the stage (no chart or render warning)', () => {
     const warnings = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => d.message)
     expect(warnings.length).toBeGreaterThan(0)
-    for (const w of warnings) expect(w).toMatch(/^Stage `bridge-amp`: .* \[[a-z-]+\]$/s)
+    for (const w of warnings) expect(w).toMatch(/^Stage `(bridge-ina|adc-driver)`: .* \[[a-z-]+\]$/s)
   })
 
   it.each([
@@ -65,10 +65,11 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   })
 
   it.each([
-    'Figure 1 — DC error contributors of stage bridge-amp',
-    'Figure 2 — Output noise density of stage bridge-amp',
-    'Figure 3 — Cumulative output noise rms of stage bridge-amp',
-    'Figure 4 — Loop gain of stage bridge-amp'
+    'Figure 1 — DC error contributors of stage bridge-ina',
+    'Figure 2 — Output noise density of stage bridge-ina',
+    'Figure 3 — Cumulative output noise rms of stage bridge-ina',
+    'Figure 4 — DC error contributors of stage adc-driver',
+    'Figure 7 — Loop gain of stage adc-driver'
   ])('carries the caption “%s”', (caption) => {
     expect(text).toContain(caption)
   })

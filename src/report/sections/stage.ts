@@ -36,7 +36,7 @@ function biasBlocks(ev: StageEvaluation): BlockContent[] {
     `offset current ${q(b.iosMax, 'A')}, ${how[b.iosSource]}.`)]
 }
 
-/** What the output drives (DESIGN §8.3), and the difference network's own CMRR (§8.1). */
+/** What the output drives (DESIGN §8.3). */
 function loadBlocks(ev: StageEvaluation): BlockContent[] {
   const {input, result} = ev
   const out: BlockContent[] = []
@@ -50,11 +50,15 @@ function loadBlocks(ev: StageEvaluation): BlockContent[] {
     out.push(paragraph(`The loop, the bandwidth and the noise include the load: ${parts.join(', ')}. ` +
       'Feedback is taken at the op-amp’s output pin; the signal, noise and DC figures at the load (after riso); the swing, slew and output-current limits at the pin.'))
   }
-  if (result.dc.networkCmrr !== null) {
-    out.push(paragraph(`Common-mode rejection of the resistor network alone at its worst tolerance corner: ${result.dc.networkCmrr.toFixed(1)} dB ` +
-      '(ideal op-amp; the op-amp’s own CMRR is the separate cmrr term of the DC budget).'))
-  }
   return out
+}
+
+/** The difference network's own CMRR (DESIGN §8.1), beside the DC budget. */
+function networkCmrrBlocks(ev: StageEvaluation): BlockContent[] {
+  const c = ev.result.dc.networkCmrr
+  if (c === null) return []
+  return [paragraph(`Common-mode rejection of the resistor network alone at its worst tolerance corner: ${c.toFixed(1)} dB ` +
+    '(ideal op-amp, tempco not included; the resistor terms above include the common mode it lets through, and the op-amp’s own CMRR is the separate cmrr term).')]
 }
 
 /** A section for a stage block that could not be evaluated (the build stops before the PDF). */
@@ -85,7 +89,7 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
     paragraph(`Worst case over ${q(input.temperature[0], '°C')} … ${q(input.temperature[1], '°C')} ` +
       `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')}.`),
     ...biasBlocks(ev),
-    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), await dcFigure(ctx, ev))
+    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), ...networkCmrrBlocks(ev), await dcFigure(ctx, ev))
 
   out.push(heading(3, 'Noise budget'),
     paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +
