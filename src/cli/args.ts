@@ -5,8 +5,9 @@
 import {parseArgs} from 'node:util'
 import {TOPOLOGIES, type Topology} from '../engine/types.js'
 import {FORMATS, type Format} from './formats.js'
+import {parseShard, type Shard} from './shard.js'
 
-export const COMMANDS = ['build', 'check', 'compare', 'new'] as const
+export const COMMANDS = ['build', 'check', 'compare', 'merge', 'new'] as const
 export type Command = (typeof COMMANDS)[number]
 
 export interface CliArgs {
@@ -25,19 +26,23 @@ export interface CliArgs {
   topology: Topology
   strict: boolean
   debug: boolean
+  /** `--shard i/n`: only the notes of shard i of n (build, check). */
+  shard: Shard | null
 }
 
 export class UsageError extends Error {}
 
 export const USAGE = `Usage:
-  ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch]
-  ampreview check NOTE… [--json]
+  ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch] [--shard I/N]
+  ampreview check NOTE… [--json] [--shard I/N]
   ampreview compare OLD NEW [--markdown]
+  ampreview merge RESULT.json…
   ampreview new FILE [--topology noninverting|inverting|follower|transimpedance]
   ampreview --help | --version
 
 NOTE is a Markdown file, a folder (every *.md inside it, sorted) or a glob ('designs/**/*.md').
 OLD and NEW are each a --json result file, a note, or REV:PATH (a note at a git revision).
+merge prints one result of the --json results of several shards, with the batch's exit code.
 
 Options:
   --out DIR      write outputs into DIR instead of next to each note
@@ -45,6 +50,7 @@ Options:
   --force        rebuild notes even when their outputs are up to date
   --watch        keep running and rebuild a note each time it is saved
   --jobs N       worker threads for a batch (default: one per core)
+  --shard I/N    only the notes of shard I of N (split by a hash of each note's path)
   --json         check: print one JSON object on stdout; diagnostics also go to stderr
   --markdown     compare: print the comparison as Markdown (for a CI comment)
   --topology T   new: the stage topology of the starting note (default noninverting)
@@ -76,7 +82,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
       options: {
         out: {type: 'string'}, format: {type: 'string'}, jobs: {type: 'string'}, topology: {type: 'string'},
         json: {type: 'boolean'}, force: {type: 'boolean'}, quiet: {type: 'boolean', short: 'q'}, watch: {type: 'boolean'},
-        markdown: {type: 'boolean'}, strict: {type: 'boolean'}, debug: {type: 'boolean'},
+        markdown: {type: 'boolean'}, strict: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
         help: {type: 'boolean', short: 'h'}, version: {type: 'boolean', short: 'v'}
       }
     })
@@ -89,10 +95,10 @@ export function parseCliArgs(argv: string[]): CliArgs {
   const args: CliArgs = {
     command, operands, out: v.out ?? null, json: v.json ?? false, formats: ['pdf'], force: v.force ?? false,
     quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false,
-    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false
+    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false, shard: null
   }
   if (command === 'help' || command === 'version') return args
-  if (first === undefined) throw new UsageError('Expected a command: build, check, compare or new')
+  if (first === undefined) throw new UsageError('Expected a command: build, check, compare, merge or new')
   if (!(COMMANDS as readonly string[]).includes(first)) {
     throw new UsageError(`Unexpected command \`${first}\`, expected one of ${COMMANDS.join(', ')}`)
   }
@@ -108,6 +114,13 @@ export function parseCliArgs(argv: string[]): CliArgs {
     if (!/^[1-9]\d*$/.test(v.jobs)) throw new UsageError(`Unexpected \`--jobs ${v.jobs}\`, expected a whole number ≥ 1`)
     args.jobs = Number(v.jobs)
   }
+  if (v.shard !== undefined) {
+    only(cmd, '--shard', ['build', 'check'])
+    const shard = parseShard(v.shard)
+    if (shard === null) throw new UsageError(`Unexpected \`--shard ${v.shard}\`, expected I/N with 1 ≤ I ≤ N, e.g. \`--shard 2/8\``)
+    if (v.watch) throw new UsageError('`--shard` does not go with `--watch`')
+    args.shard = shard
+  }
   if (v.topology !== undefined) {
     only(cmd, '--topology', ['new'])
     if (!(TOPOLOGIES as readonly string[]).includes(v.topology)) {
@@ -117,6 +130,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
   }
   if ((cmd === 'build' || cmd === 'check') && operands.length === 0) throw new UsageError(`Expected at least one NOTE after \`${cmd}\``)
   if (cmd === 'compare' && operands.length !== 2) throw new UsageError('Expected two operands after `compare`: OLD NEW')
+  if (cmd === 'merge' && operands.length === 0) throw new UsageError('Expected at least one RESULT.json after `merge`')
   if (cmd === 'new' && operands.length !== 1) throw new UsageError('Expected one FILE after `new`')
   return args
 }

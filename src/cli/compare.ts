@@ -25,7 +25,7 @@ async function noteRun(bytes: Uint8Array, shownAs: string, res: NoteResources): 
 }
 
 /** What is wrong with a parsed result file, if anything: the fields a comparison reads. */
-function resultProblem(x: unknown): string | null {
+export function resultProblem(x: unknown): string | null {
   const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v)
   if (!isObject(x) || !Array.isArray(x['files'])) return 'no `files` array'
   for (const [i, f] of x['files'].entries()) {

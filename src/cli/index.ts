@@ -7,6 +7,9 @@
 import {parseCliArgs, USAGE, UsageError, type CliArgs} from './args.js'
 import {runBatch} from './batch.js'
 import {CompareInputError, compareCommand} from './compare.js'
+import {mergeCommand} from './merge.js'
+import {MergeError} from '../results/merge.js'
+import {inShard} from './shard.js'
 import {expandNotes} from './inputs.js'
 import {noteJson, type Resources, type RunOptions} from './pipeline.js'
 import {Progress, useColor} from './progress.js'
@@ -30,7 +33,10 @@ async function run(args: CliArgs, abort: AbortController): Promise<number> {
   const res: Resources = {fonts: lazyFonts(), version, templates: new Map()}
   if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out)
 
-  const notes = await expandNotes(args.operands)
+  if (args.command === 'merge') return mergeCommand(args.operands, out)
+
+  const all = await expandNotes(args.operands)
+  const notes = args.shard === null ? all : inShard(all, args.shard)
   const runOpts: RunOptions = {
     formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict,
     sourceDateEpoch: process.env['SOURCE_DATE_EPOCH']
@@ -69,7 +75,7 @@ try {
 } catch (error) {
   if (error instanceof UsageError) {
     err(`ampreview: ${error.message}\n\n${USAGE}\n`)
-  } else if (error instanceof CompareInputError) {
+  } else if (error instanceof CompareInputError || error instanceof MergeError) {
     err(`ampreview: ${error.message}\n`)
   } else {
     err(`ampreview: ${error instanceof Error ? error.message : String(error)}\n`)

@@ -200,34 +200,36 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   // A JSON-only build needs neither the report tree nor the charts.
   if (opts.formats.every((f) => f === 'json')) return {outcome, files: [jsonFile(outcome)]}
 
-  // 3. Report: the tree with each block replaced by its section. The report and render
-  //    modules (vega, pdfkit) load only when something is to be drawn, keeping `check` fast.
-  const [{buildReport}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
-    import('../report/build.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
+  // 3. Report: the tree with each block replaced by its section (synchronous, no chart
+  //    library). The render modules (vega, pdfkit) load only when something is to be
+  //    drawn, keeping `check` fast; the charts compile once for every format.
+  const [{buildReport}, {compileFigures}, {renderPdf}, {reportToMarkdown}, fonts] = await Promise.all([
+    import('../report/build.js'), import('../render/chart/compile.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
   ])
-  const report = await buildReport({
-    parsed, evaluations, fonts: {regular: fonts.regular, bold: fonts.bold},
+  const report = buildReport({
+    parsed, evaluations,
     fragments: {method: template.method, closing: template.closing},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })
 
   // 4. Render every format asked for.
+  const figures = await compileFigures(report.document, {regular: fonts.regular, bold: fonts.bold})
   const files: NoteResult['files'] = []
   let renderWarnings: string[] = []
   if (wantPdf) {
     const rendered = await renderPdf(report.document, {
-      theme: template.theme, fonts, images, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
+      theme: template.theme, fonts, images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
     files.push({name: outputName(name, 'pdf'), data: rendered.pdf})
   }
-  const warnings = [...report.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
+  const warnings = [...report.warnings, ...figures.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
   const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
   if (opts.formats.includes('json')) files.push(jsonFile(final))
   if (opts.formats.includes('md')) {
     const mdName = outputName(name, 'md')
     const stem = basename(mdName, '.md')
-    const md = reportToMarkdown(report.document, (n) => `${stem}.fig${n}.svg`)
+    const md = reportToMarkdown(report.document, figures, (n) => `${stem}.fig${n}.svg`)
     files.push({name: mdName, data: md.markdown}, ...md.figures.map((f) => ({name: f.name, data: f.svg})))
   }
   return {outcome: final, files}

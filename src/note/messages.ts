@@ -8,8 +8,8 @@
 const q = (s: string): string => `\`${s}\``
 const hint = (suggestion: string | null): string => (suggestion === null ? '' : `; did you mean ${q(suggestion)}?`)
 
-/** A block kind's name, as in the one table of kinds. */
-export type BlockKind = import('./block-kinds.js').BlockLang
+/** A block kind's name, a key of the one table of kinds (./block-kinds.ts; not imported here, so no import loop). */
+export type BlockKind = string
 
 /** "stage `bridge-amp`", "front matter". */
 export const blockName = (kind: BlockKind, id: string | null): string => (id === null ? `${kind} block` : `${kind} ${q(id)}`)

@@ -7,7 +7,6 @@ import type {Root, RootContent} from 'mdast'
 import type {ParsedNote, StageBlockNode} from '../note/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
 import type {ReportContext} from './context.js'
-import type {ChartFonts} from './vega.js'
 import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
@@ -18,7 +17,6 @@ import type {ReportDocument} from './types.js'
 export interface ReportInput {
   parsed: ParsedNote
   evaluations: StageEvaluation[]
-  fonts: ChartFonts
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
   fragments: {method: Root; closing: Root}
   sourceSha256: string
@@ -28,7 +26,7 @@ export interface ReportInput {
 
 export interface ReportOutput {
   document: ReportDocument
-  /** Warnings met while building (chart warnings). */
+  /** Warnings met while building (none today; chart warnings arise where charts compile, in src/render). */
   warnings: string[]
 }
 
@@ -36,16 +34,16 @@ type Parent = {children: RootContent[]}
 const hasChildren = (n: RootContent): n is RootContent & Parent =>
   'children' in n && Array.isArray((n as Partial<Parent>).children)
 
-async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[]): Promise<RootContent[]> {
+function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[]): RootContent[] {
   const out: RootContent[] = []
   for (const node of nodes) {
     if (node.type === 'stageBlock') {
       const ev = byBlock.get(node)
-      out.push(...(ev ? await stageSection(ctx, ev, shared) : failedStageSection(node)))
+      out.push(...(ev ? stageSection(ctx, ev, shared) : failedStageSection(node)))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
     } else if (hasChildren(node)) {
-      out.push({...node, children: await replaceBlocks(node.children, ctx, byBlock, shared)} as RootContent)
+      out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared)} as RootContent)
     } else {
       out.push(node)
     }
@@ -53,14 +51,15 @@ async function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: 
   return out
 }
 
-export async function buildReport(input: ReportInput): Promise<ReportOutput> {
-  const ctx: ReportContext = {fonts: input.fonts, figure: 0, table: 0, warnings: []}
+/** Build the report tree: synchronous, no I/O, no chart library. */
+export function buildReport(input: ReportInput): ReportOutput {
+  const ctx: ReportContext = {figure: 0, table: 0, warnings: []}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
   // Notes that several stages share word for word are printed once, before the prose.
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
   const body: Root = {type: 'root', children: [
     ...sharedNoteBlocks(shared),
-    ...(await replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared))
+    ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared)
   ]}
   const verdicts = coverRows(input.evaluations)
   const overall = combine(input.evaluations.flatMap((ev) => ev.result.requirements.map(verdictOf)))

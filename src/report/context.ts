@@ -1,16 +1,14 @@
 /**
- * The state one report build carries through its sections: the chart fonts, the running
- * figure and table numbers, and the build warnings collected on the way.
+ * The state one report build carries through its sections: the running figure and table
+ * numbers, and the build warnings collected on the way.
  */
-import type {ChartFonts} from './vega.js'
 
 export interface ReportContext {
-  fonts: ChartFonts
   /** Last figure number used. */
   figure: number
   /** Last table number used. */
   table: number
-  /** Warnings (e.g. from chart rendering) for the CLI to report. */
+  /** Warnings for the CLI to report. */
   warnings: string[]
 }
 

@@ -6,20 +6,26 @@
 import type {BlockContent, Root} from 'mdast'
 import type {DocumentMeta} from '../note/types.js'
 import type {Severity} from '../rules/types.js'
+import type {TopLevelSpec} from 'vega-lite'
 
 export type Verdict = 'met' | 'not-met' | 'not-evaluated'
 
-/** A chart, already rendered to SVG. */
+/**
+ * A figure: a chart as its vega-lite spec with the data inline (the renderers compile it,
+ * src/render/chart), or a drawing given as SVG text.
+ */
 export interface FigureNode {
   type: 'figure'
   /** Figure number in the document, 1-based. */
   number: number
   caption: string
-  /** SVG text (fonts named as in `src/report/charts/fonts.ts`). */
-  svg: string
-  /** Natural size of the SVG, pt. */
-  width: number
-  height: number
+  /** The chart: a vega-lite spec with inline data only. */
+  chart?: TopLevelSpec
+  /** Or SVG text (fonts named as in `src/report/charts/fonts.ts`) … */
+  svg?: string
+  /** … and its natural size, pt. */
+  width?: number
+  height?: number
 }
 
 /** A boxed note: a rule's practice/safety note, or a verdict line. Shown with a word and a shape. */

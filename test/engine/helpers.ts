@@ -1,88 +1,14 @@
 /**
- * Test fixtures for the engine: an invented op-amp and `stageInput(overrides)`, which builds
- * a complete `StageInput` directly (no note parsing). All values are invented for tests.
+ * Test fixtures for the engine: `stageInput(overrides)` (the `engine` preset of the one
+ * stage builder, test/support/stage-input.ts) and one stage per topology.
  */
-import type {OpampParams, Resistor, StageInput} from '../../src/engine/index.js'
+import type {StageInput} from '../../src/engine/index.js'
+import {fromDb, res, stageFrom, testOpamp} from '../support/stage-input.js'
 
-/** A resistor with optional tolerance (fraction) and tempco (1/K). */
-export const res = (value: number, tolerance = 0, tempco = 0): Resistor => ({value, tolerance, tempco})
+export {fromDb, res, testOpamp}
 
-/** dB → V/V. */
-export const fromDb = (x: number): number => 10 ** (x / 20)
-
-/** An invented bipolar op-amp; values typical of nothing in particular. */
-export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
-  return {
-    name: 'test-amp',
-    archetype: false,
-    inputType: 'bipolar',
-    vos: 75e-6,
-    vosDrift: 0.8e-6,
-    ib: 3e-9,
-    ios: 1.5e-9,
-    ibMax: null,
-    iosMax: null,
-    ibDoubling: null,
-    en: 9e-9,
-    enCorner: 5,
-    in: 0.3e-12,
-    inCorner: 50,
-    gbw: 2e6,
-    aol: fromDb(120),
-    pmUnity: 60,
-    cmrr: fromDb(110),
-    psrr: fromDb(105),
-    vcmRef: null,
-    cinDiff: 3e-12,
-    cinCm: 5e-12,
-    slew: 1e6,
-    swingHeadroom: 1.3,
-    swingHeadroomNeg: null,
-    swingHeadroomPos: null,
-    cmHeadroom: null,
-    cmHeadroomNeg: null,
-    cmHeadroomPos: null,
-    ioutMax: null,
-    rout: null,
-    ...overrides
-  }
-}
-
-/** A noninverting stage (G = 21) with every field set; override anything. */
-export function stageInput(overrides: Partial<StageInput> = {}): StageInput {
-  return {
-    id: 'test-stage',
-    title: 'Test stage',
-    topology: 'noninverting',
-    opamp: testOpamp(),
-    rf: res(20e3, 0.001, 25e-6),
-    rg: res(1e3, 0.001, 25e-6),
-    rs: res(500),
-    rcomp: null,
-    ccomp: 0,
-    cf: 0,
-    cstray: 2e-12,
-    rshunt: null,
-    csource: 0,
-    idark: 0,
-    idarkMax: null,
-    idarkDoubling: 10,
-    vref: 0,
-    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
-    input: [-0.05, 0.05],
-    supply: [-12, 12],
-    supplyTolerance: 0.05,
-    temperature: [-20, 70],
-    band: [0.1, 1e3],
-    noiseTemperature: 25,
-    signalFrequency: null,
-    rload: null,
-    calibration: 'none',
-    require: {},
-    ...overrides
-  }
-}
+/** A noninverting stage (G = 21) with every field set (preset `engine`); override anything. */
+export const stageInput = (overrides: Partial<StageInput> = {}): StageInput => stageFrom('engine', overrides)
 
 /** One stage per topology, each with every element that topology takes. */
 export function topologyFixtures(): StageInput[] {

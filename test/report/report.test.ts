@@ -6,28 +6,44 @@ import {join} from 'node:path'
 import {toString} from 'mdast-util-to-string'
 import type {RootContent} from 'mdast'
 import {readPdf} from '../render/helpers.js'
-import {pdfOf, reportOf, sample} from './helpers.js'
+import {compiledReportOf, pdfOf, reportOf, sample} from './helpers.js'
+import type {CompiledFigures} from '../../src/render/chart/compile.js'
 
-/** The report tree with each figure's SVG replaced by its length and hash, for a readable snapshot. */
-function summarise(nodes: RootContent[]): unknown[] {
+/**
+ * The report tree with each figure replaced by the length and hash of its chart compiled
+ * to SVG (as both renderers compile it), for a readable snapshot.
+ */
+function summarise(nodes: RootContent[], figures: CompiledFigures): unknown[] {
   return nodes.map((n) => {
     if (n.type === 'figure') {
-      return {type: 'figure', number: n.number, caption: n.caption, svg: `${n.svg.length} chars, sha256 ${createHash('sha256').update(n.svg).digest('hex').slice(0, 12)}`}
+      const svg = figures.byNode.get(n)?.svg ?? ''
+      return {type: 'figure', number: n.number, caption: n.caption, svg: `${svg.length} chars, sha256 ${createHash('sha256').update(svg).digest('hex').slice(0, 12)}`}
     }
     if ('children' in n && Array.isArray(n.children)) {
       const {position: _p, ...rest} = n as typeof n & {position?: unknown}
-      return {...rest, children: summarise(n.children as RootContent[])}
+      return {...rest, children: summarise(n.children as RootContent[], figures)}
     }
     const {position: _p, ...rest} = n as typeof n & {position?: unknown}
     return rest
   })
 }
 
+/** Every row of inline data in a vega-lite spec (top level and layers); a URL would be none. */
+function inlineValues(spec: unknown): unknown[] {
+  if (typeof spec !== 'object' || spec === null) return []
+  const o = spec as Record<string, unknown>
+  const data = o['data'] as {values?: unknown} | undefined
+  const own = Array.isArray(data?.values) ? data.values : []
+  const layers = Array.isArray(o['layer']) ? o['layer'] : Array.isArray(o['vconcat']) ? o['vconcat'] : Array.isArray(o['hconcat']) ? o['hconcat'] : []
+  return [...own, ...layers.flatMap(inlineValues)]
+}
+
 describe('report tree', () => {
   it('of the reference-buffer sample matches the reviewed snapshot', async () => {
-    const {document, warnings} = await reportOf(sample('reference-buffer.md'))
+    const {document, warnings, figures} = await compiledReportOf(sample('reference-buffer.md'))
     expect(warnings).toEqual([])
-    const tree = {cover: document.cover, body: summarise(document.body.children), appendix: summarise(document.appendix.children)}
+    expect(figures.warnings).toEqual([])
+    const tree = {cover: document.cover, body: summarise(document.body.children, figures), appendix: summarise(document.appendix.children, figures)}
     await expect(`${JSON.stringify(tree, null, 1)}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.tree.json')
   })
 
@@ -40,6 +56,18 @@ describe('report tree', () => {
     })
     walk(document.body.children)
     expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8])
+  })
+
+  it('carries each chart as its vega-lite spec with inline data, so tests and renderers read the data from the tree', async () => {
+    const {document} = await reportOf(sample('reference-buffer.md'))
+    const charts: {caption: string; values: unknown[]}[] = []
+    const walk = (ns: RootContent[]): void => ns.forEach((n) => {
+      if (n.type === 'figure' && n.chart !== undefined) charts.push({caption: n.caption, values: inlineValues(n.chart)})
+      if ('children' in n && Array.isArray(n.children)) walk(n.children as RootContent[])
+    })
+    walk(document.body.children)
+    expect(charts).toHaveLength(8)
+    for (const c of charts) expect(c.values.length, c.caption).toBeGreaterThan(0)
   })
 })
 

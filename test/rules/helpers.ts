@@ -5,51 +5,19 @@
  */
 import {ARCHETYPES} from '../../src/engine/archetypes.js'
 import type {
-  BiasUsed, DcKey, NoiseKey, OpampParams, RequirementResult, Resistor, Stability, StageInput, StageResult, SwingCheck
+  BiasUsed, DcKey, NoiseKey, OpampParams, RequirementResult, Stability, StageInput, StageResult, SwingCheck
 } from '../../src/engine/types.js'
 import {DC_KEYS, NOISE_KEYS} from '../../src/engine/types.js'
 import type {HazardContext} from '../../src/note/types.js'
 import type {RuleContext} from '../../src/rules/rule.js'
+import {res, stageFrom} from '../support/stage-input.js'
 
-export const resistor = (value: number, tolerance = 0, tempco = 0): Resistor => ({value, tolerance, tempco})
+export const resistor = res
 
 export const opamp = (over: Partial<OpampParams> = {}): OpampParams => ({...ARCHETYPES['precision-bipolar'], ...over})
 
-/** A noninverting gain-of-11 stage (10 kΩ / 1 kΩ), ±15 V, 25 °C, 0.1 … 100 Hz. */
-export function stageInput(over: Partial<StageInput> = {}): StageInput {
-  return {
-    id: 'test-stage',
-    title: 'Test stage',
-    topology: 'noninverting',
-    opamp: opamp(),
-    rf: resistor(10e3, 0.001, 25e-6),
-    rg: resistor(1e3, 0.001, 25e-6),
-    rs: null,
-    rcomp: null,
-    ccomp: 0,
-    cf: 0,
-    cstray: 2e-12,
-    rshunt: null,
-    csource: 0,
-    idark: 0,
-    idarkMax: null,
-    idarkDoubling: 10,
-    vref: 0,
-    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
-    riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
-    input: [-0.1, 0.1],
-    supply: [-15, 15],
-    supplyTolerance: 0.05,
-    temperature: [25, 25],
-    band: [0.1, 100],
-    noiseTemperature: 25,
-    signalFrequency: null,
-    rload: null,
-    calibration: 'none',
-    require: {},
-    ...over
-  }
-}
+/** A noninverting gain-of-11 stage (10 kΩ / 1 kΩ), ±15 V, 25 °C, 0.1 … 100 Hz (preset `rules`). */
+export const stageInput = (over: Partial<StageInput> = {}): StageInput => stageFrom('rules', over)
 
 export interface ResultParts {
   gain?: number

@@ -8,7 +8,8 @@ import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
 import {verdictText} from '../../report/format.js'
 import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
-import type {ReportDocument} from '../../report/types.js'
+import type {FigureNode, ReportDocument} from '../../report/types.js'
+import type {CompiledFigures} from '../chart/compile.js'
 
 export interface MarkdownReport {
   markdown: string
@@ -16,21 +17,29 @@ export interface MarkdownReport {
   figures: {name: string; svg: string}[]
 }
 
+interface Figures {
+  compiled: ReadonlyMap<FigureNode, {svg: string}>
+  name: (n: number) => string
+  out: MarkdownReport['figures']
+}
+
 /** Our own node types mapped onto plain mdast. */
-function plain(nodes: RootContent[], figureName: (n: number) => string, figures: MarkdownReport['figures']): RootContent[] {
+function plain(nodes: RootContent[], figures: Figures): RootContent[] {
   const out: RootContent[] = []
   for (const node of nodes) {
     switch (node.type) {
       case 'figure': {
-        const name = figureName(node.number)
-        figures.push({name, svg: node.svg})
+        const name = figures.name(node.number)
+        const compiled = figures.compiled.get(node)
+        if (compiled === undefined) throw new Error(`Figure ${node.number} was not compiled before writing the Markdown`)
+        figures.out.push({name, svg: compiled.svg})
         out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
           paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
         break
       }
       case 'callout':
         out.push({type: 'blockquote', children: [paragraph(strong(`${node.label}.`)),
-          ...(plain(node.children, figureName, figures) as BlockContent[])]})
+          ...(plain(node.children, figures) as BlockContent[])]})
         break
       case 'caption':
         out.push(paragraph({type: 'emphasis', children: [text(node.text)]}))
@@ -43,7 +52,7 @@ function plain(nodes: RootContent[], figureName: (n: number) => string, figures:
         break
       default:
         if ('children' in node && Array.isArray(node.children)) {
-          out.push({...node, children: plain(node.children as RootContent[], figureName, figures)} as RootContent)
+          out.push({...node, children: plain(node.children as RootContent[], figures)} as RootContent)
         } else {
           out.push(node)
         }
@@ -52,8 +61,12 @@ function plain(nodes: RootContent[], figureName: (n: number) => string, figures:
   return out
 }
 
-export function reportToMarkdown(doc: ReportDocument, figureName: (n: number) => string): MarkdownReport {
-  const figures: MarkdownReport['figures'] = []
+/**
+ * The Markdown report of `doc`; `compiled` holds its figures compiled
+ * (`compileFigures` of src/render/chart), `figureName` names the SVG file of figure N.
+ */
+export function reportToMarkdown(doc: ReportDocument, compiled: CompiledFigures, figureName: (n: number) => string): MarkdownReport {
+  const figures: Figures = {compiled: compiled.byNode, name: figureName, out: []}
   const m = doc.meta
   const meta: [string, string | null][] = [['Project', m.project], ['Document', m.document], ['Revision', m.revision],
     ['Date', m.date], ['Author', m.author], ['Status', m.status]]
@@ -71,11 +84,11 @@ export function reportToMarkdown(doc: ReportDocument, figureName: (n: number) =>
     table(['Reviewer', 'Role', 'Signature', 'Date'], m.reviewers.map((r) => [r.name, r.role, '', '']))]
   const tree: Root = {type: 'root', children: [
     ...cover,
-    ...plain(doc.body.children, figureName, figures),
-    ...plain(doc.appendix.children, figureName, figures),
+    ...plain(doc.body.children, figures),
+    ...plain(doc.appendix.children, figures),
     ...signOff,
     ...doc.closing.children
   ]}
   const markdown = toMarkdown(tree, {extensions: [gfmToMarkdown()], bullet: '-', rule: '-', fences: true})
-  return {markdown, figures}
+  return {markdown, figures: figures.out}
 }

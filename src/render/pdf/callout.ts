@@ -4,7 +4,6 @@
  * colour alone), then the children. A callout is kept whole on one page when it fits on
  * one; a longer one flows across pages with its bar on each and no fill.
  */
-import {renderBlocks} from './blocks.js'
 import {applyStyle, atPageTop, drawText, indented, newPage, pageBodyHeight, spaceLeft, type RenderContext} from './context.js'
 import type {CalloutNode} from '../../report/types.js'
 import {measureBlocks} from './measure.js'
@@ -40,7 +39,7 @@ export function drawCallout(ctx: RenderContext, node: CalloutNode): void {
   drawShape(doc, kind, x + inset, top + pad + (labelH - icon) / 2, icon, colours.accent)
   drawText(ctx, node.label, labelStyle, x + inset + icon + 5, top + pad + (labelH - size * 1.17) / 2, bodyWidth - icon - 5)
   doc.y = top + pad + labelH + 4
-  indented(ctx, inset, () => renderBlocks(ctx, node.children), pad)
+  indented(ctx, inset, () => ctx.blocks.render(ctx, node.children), pad)
   if (whole) doc.y = top + height
   else {
     const end = {page: lastPageIndex(doc), y: doc.y - theme.spacing.paragraph + pad}

@@ -9,6 +9,7 @@ import {applyStyle, bodyStyle, keepSpace, measureText, pageBodyHeight, type Rend
 import {FONT_NAMES, svgFontName} from './fonts.js'
 import {drawSvg} from './pdfkit.js'
 import type {FigureNode} from '../../report/types.js'
+import type {DrawnFigure} from '../chart/compile.js'
 
 const CAPTION_GAP = 4
 
@@ -36,9 +37,17 @@ function captionText(node: FigureNode): string {
   return node.caption.trim() === '' ? `Figure ${node.number}` : `Figure ${node.number} — ${node.caption}`
 }
 
+/** The figure as compiled before layout (src/render/chart/compile.ts). */
+function drawn(ctx: RenderContext, node: FigureNode): DrawnFigure {
+  const d = ctx.figures.get(node)
+  if (d === undefined) throw new Error(`Figure ${node.number} was not compiled before rendering`)
+  return d
+}
+
 function drawnSize(ctx: RenderContext, node: FigureNode): {width: number; height: number} {
-  const w = node.width > 0 ? node.width : ctx.frame.width
-  const h = node.height > 0 ? node.height : w * 0.6
+  const d = drawn(ctx, node)
+  const w = d.width > 0 ? d.width : ctx.frame.width
+  const h = d.height > 0 ? d.height : w * 0.6
   const captionH = measureText(ctx, captionText(node), captionStyle(ctx), ctx.frame.width) + CAPTION_GAP
   const scale = Math.min(1, ctx.frame.width / w, (pageBodyHeight(ctx) - captionH - 2) / h)
   return {width: w * scale, height: h * scale}
@@ -55,9 +64,10 @@ export function drawFigure(ctx: RenderContext, node: FigureNode): void {
   keepSpace(ctx, figureHeight(ctx, node))
   const x = ctx.frame.x + (ctx.frame.width - width) / 2
   const y = doc.y
+  const {svg} = drawn(ctx, node)
   // Warn about characters the figure's text needs and DejaVu lacks (the SVG is drawn as is).
-  ctx.glyphs.clean(svgCharacters(node.svg), 'regular')
-  drawSvg(doc, node.svg, x, y, {
+  ctx.glyphs.clean(svgCharacters(svg), 'regular')
+  drawSvg(doc, svg, x, y, {
     width,
     height,
     preserveAspectRatio: 'xMidYMid meet',

@@ -3,7 +3,9 @@
  * outline bookkeeping, and the frame (left edge and width) blocks draw into. Also the few
  * helpers every block uses: setting a text style, keeping space, starting a new page.
  */
-import type {Definition, FootnoteDefinition} from 'mdast'
+import type {Definition, FootnoteDefinition, Heading, RootContent} from 'mdast'
+import type {DrawnFigure} from '../chart/compile.js'
+import type {FigureNode} from '../../report/types.js'
 import {FONT_NAMES, type FontKey, type LoadedFonts} from './fonts.js'
 import type {GlyphChecker} from './glyphs.js'
 import {maxY, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
@@ -26,8 +28,21 @@ export interface OutlineState {
   stack: {depth: number; item: OutlineItem}[]
 }
 
+/**
+ * The block dispatcher (./blocks.ts), handed down in the context so that the blocks that
+ * contain blocks (callouts, lists, footnotes, the cover's closing text, measuring) need not
+ * import it: no import loop inside src/render.
+ */
+export interface BlockDispatcher {
+  render(ctx: RenderContext, nodes: RootContent[]): void
+  heading(ctx: RenderContext, node: Heading, rest: RootContent[]): void
+}
+
 export interface RenderContext {
   doc: PdfDoc
+  blocks: BlockDispatcher
+  /** Every figure of the document, compiled (src/render/chart/compile.ts). */
+  figures: ReadonlyMap<FigureNode, DrawnFigure>
   theme: Theme
   fonts: LoadedFonts
   glyphs: GlyphChecker

@@ -7,7 +7,6 @@
  */
 import type {Heading} from 'mdast'
 import type {ReportDocument, Verdict} from '../../report/types.js'
-import {drawHeading, renderBlocks} from './blocks.js'
 import {drawText, keepSpace, measureText, type RenderContext} from './context.js'
 import {STATUS_WORDS} from './furniture.js'
 import {drawShape} from './shapes.js'
@@ -25,7 +24,7 @@ export function isoDate(date: Date): string {
 }
 
 function heading(ctx: RenderContext, text: string, depth: Heading['depth']): void {
-  drawHeading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
+  ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
 }
 
 function overallText(doc: ReportDocument): string {
@@ -106,5 +105,5 @@ export function drawCover(ctx: RenderContext, report: ReportDocument, date: Date
     fractions: [0.2, 0.3, 0.32, 0.18],
   })
   doc.y += theme.spacing.paragraph
-  renderBlocks(ctx, report.closing.children)
+  ctx.blocks.render(ctx, report.closing.children)
 }

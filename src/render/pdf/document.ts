@@ -12,7 +12,8 @@
  * the same input gives the same bytes.
  */
 import type {ReportDocument} from '../../report/types.js'
-import {renderBlocks} from './blocks.js'
+import {drawHeading, renderBlocks} from './blocks.js'
+import {compileFigures, type CompiledFigures} from '../chart/compile.js'
 import {newPage, type RenderContext} from './context.js'
 import {drawCover} from './cover.js'
 import {loadFonts, registerFonts, type FontSet} from './fonts.js'
@@ -30,6 +31,8 @@ export interface RenderOptions {
   images: ReadonlyMap<string, Uint8Array>
   /** Creation and modification date written into the PDF; also the cover date when the note has none. */
   date: Date
+  /** The document's figures already compiled (src/render/chart); compiled here when absent. */
+  figures?: CompiledFigures
 }
 
 export interface RenderOutput {
@@ -58,6 +61,8 @@ function infoOf(report: ReportDocument, date: Date): PdfInfo {
 
 export async function renderPdf(report: ReportDocument, opts: RenderOptions): Promise<RenderOutput> {
   const {theme} = opts
+  // 0. Charts: compiled from their specs, unless the caller did.
+  const figures = opts.figures ?? await compileFigures(report, {regular: opts.fonts.regular, bold: opts.fonts.bold})
   // 1. Document and fonts.
   const fonts = await loadFonts(opts.fonts)
   const doc = createPdf({
@@ -76,6 +81,8 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
   doc.addPage()
   const ctx: RenderContext = {
     doc,
+    blocks: {render: renderBlocks, heading: drawHeading},
+    figures: figures.byNode,
     theme,
     fonts,
     glyphs: createGlyphChecker(fonts, warnings),
@@ -112,5 +119,6 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
   drawFurniture(ctx, report.meta, coverPages)
   const pageCount = doc.bufferedPageRange().count
   const pdf = await collectPdf(doc)
-  return {pdf, warnings: warnings.list(), pageCount}
+  // Chart warnings come first, where they stood when charts compiled in the report phase.
+  return {pdf, warnings: [...(opts.figures ? [] : figures.warnings), ...warnings.list()], pageCount}
 }

@@ -5,7 +5,6 @@
  * "Notes" in that order, followed by any that were never referenced.
  */
 import type {Definition, FootnoteDefinition, Heading, Root} from 'mdast'
-import {drawHeading, renderBlocks} from './blocks.js'
 import {drawText, indented, keepSpace, type RenderContext} from './context.js'
 import {footnoteNumber} from './inline.js'
 
@@ -36,7 +35,7 @@ export function drawFootnotes(ctx: RenderContext): void {
   if (definitions.size === 0) return
   for (const id of definitions.keys()) footnoteNumber(ctx, id)
   const heading: Heading = {type: 'heading', depth: 2, children: [{type: 'text', value: 'Notes'}]}
-  drawHeading(ctx, heading, [])
+  ctx.blocks.heading(ctx, heading, [])
   const {doc, theme} = ctx
   const style = {font: 'regular' as const, size: theme.fontSizes.body, color: theme.colours.text}
   const printed = new Set<string>()
@@ -54,7 +53,7 @@ export function drawFootnotes(ctx: RenderContext): void {
       const y = doc.y
       drawText(ctx, `${n}.`, style, ctx.frame.x, y, theme.spacing.listIndent + 2, {align: 'left'})
       doc.y = y
-      indented(ctx, theme.spacing.listIndent + 6, () => renderBlocks(ctx, def.children))
+      indented(ctx, theme.spacing.listIndent + 6, () => ctx.blocks.render(ctx, def.children))
     }
   }
 }

@@ -4,7 +4,6 @@
  * indented past the marker, so nested lists, code and quotes work inside items.
  */
 import type {List} from 'mdast'
-import {renderBlocks} from './blocks.js'
 import {applyStyle, drawText, indented, keepSpace, type RenderContext} from './context.js'
 import {drawTaskBox} from './shapes.js'
 
@@ -35,7 +34,7 @@ export function drawList(ctx: RenderContext, node: List): void {
     ctx.listDepth += 1
     ctx.tight = node.spread !== true && item.spread !== true
     try {
-      indented(ctx, indent, () => renderBlocks(ctx, item.children))
+      indented(ctx, indent, () => ctx.blocks.render(ctx, item.children))
     } finally {
       ctx.listDepth = saved.depth
       ctx.tight = saved.tight

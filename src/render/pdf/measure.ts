@@ -6,7 +6,6 @@
  * its content is drawn (callouts).
  */
 import type {RootContent} from 'mdast'
-import {renderBlocks} from './blocks.js'
 import type {RenderContext} from './context.js'
 import {registerFonts} from './fonts.js'
 import {createGlyphChecker} from './glyphs.js'
@@ -41,6 +40,6 @@ export function measureBlocks(ctx: RenderContext, nodes: RootContent[], width: n
     outline: null,
     frame: {x: ctx.frame.x, width},
   }
-  renderBlocks(scratch, nodes)
+  scratch.blocks.render(scratch, nodes)
   return doc.y
 }

@@ -66,7 +66,7 @@ export function failedStageSection(block: StageBlockNode): BlockContent[] {
   return [heading(2, 'Stage ', code(block.id)), paragraph('This block has errors and was not evaluated.')]
 }
 
-export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: readonly RuleNote[] = []): Promise<BlockContent[]> {
+export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: readonly RuleNote[] = []): BlockContent[] {
   const {input, result} = ev
   const op = input.opamp
   const out: BlockContent[] = [
@@ -89,12 +89,12 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
     paragraph(`Worst case over ${q(input.temperature[0], '°C')} … ${q(input.temperature[1], '°C')} ` +
       `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')}.`),
     ...biasBlocks(ev),
-    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), ...networkCmrrBlocks(ev), await dcFigure(ctx, ev))
+    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), ...networkCmrrBlocks(ev), dcFigure(ctx, ev))
 
   out.push(heading(3, 'Noise budget'),
     paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +
       'all sources uncorrelated, summed in power.'),
-    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...(await noiseFigures(ctx, ev)))
+    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...noiseFigures(ctx, ev))
 
   if (input.topology === 'instrumentation') {
     out.push(heading(3, 'Bandwidth'),
@@ -104,11 +104,11 @@ export async function stageSection(ctx: ReportContext, ev: StageEvaluation, shar
       caption(nextTable(ctx, `Bandwidth of stage ${input.id}`)), stabilityTable(result))
   } else {
     out.push(heading(3, 'Stability'), ...loadBlocks(ev), caption(nextTable(ctx, `Stability of stage ${input.id}`)), stabilityTable(result),
-      await loopFigure(ctx, ev))
+      loopFigure(ctx, ev))
   }
 
   const filter = filterTable(result)
-  const response = await responseFigure(ctx, ev)
+  const response = responseFigure(ctx, ev)
   if (filter !== null && response !== null) {
     out.push(heading(3, 'Filter response'),
       paragraph('f0, Q and the passband gain are read off the solved response, op-amp included: f0 where the phase of H(f)/H(0) passes −90°, Q = |H(f0)/H(0)|. ' +

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {cumulativeRmsSpec} from '../../../src/report/charts/cumulative-rms.js'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, stageCurves, svgTexts} from './helpers.js'
 
 const render = (curves = stageCurves()) => renderChartSvg(cumulativeRmsSpec(curves), FONTS)

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {dcBarsSpec} from '../../../src/report/charts/dc-bars.js'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, dcBudget, svgTexts} from './helpers.js'
 
 const LABELS = {vos: 'Offset voltage', 'vos-drift': 'Offset drift', ib: 'Bias current', ios: 'Offset current',

@@ -5,7 +5,7 @@
 import {readFileSync} from 'node:fs'
 import {fileURLToPath} from 'node:url'
 import {NOISE_KEYS, type DcBudget, type NoiseKey, type Stability, type StageCurves} from '../../../src/engine/types.js'
-import type {ChartFonts} from '../../../src/report/vega.js'
+import type {ChartFonts} from '../../../src/render/chart/vega.js'
 
 const ttf = (name: string) =>
   new Uint8Array(readFileSync(fileURLToPath(new URL(`../../../node_modules/dejavu-fonts-ttf/ttf/${name}`, import.meta.url))))

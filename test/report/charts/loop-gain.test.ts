@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {loopGainSpec, NO_CROSSOVER_TEXT} from '../../../src/report/charts/loop-gain.js'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, stability, stageCurves, svgTexts} from './helpers.js'
 
 const textsOf = async (s = stability()) => svgTexts((await renderChartSvg(loopGainSpec(stageCurves(), s), FONTS)).svg).map((t) => t.text)

@@ -2,7 +2,7 @@ import {describe, expect, it} from 'vitest'
 import {noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {NOISE_KEYS} from '../../../src/engine/types.js'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, attributeValues, stageCurves, svgTexts} from './helpers.js'
 
 const LABELS = {en: 'Voltage noise', 'in+': 'Current noise +', 'in-': 'Current noise −', 'r:rf': 'Rf thermal', 'r:rg': 'Rg thermal'}

@@ -1,7 +1,7 @@
 import {describe, expect, it} from 'vitest'
 import type {TopLevelSpec} from 'vega-lite'
 import * as charts from '../../../src/report/charts/index.js'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {FONTS, dcBudget, stability, stageCurves} from './helpers.js'
 
 const SPECS: [string, () => TopLevelSpec][] = [

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import type {TopLevelSpec} from 'vega-lite'
-import {renderChartSvg} from '../../../src/report/vega.js'
+import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {CHART_CONFIG} from '../../../src/report/charts/theme.js'
 import {measureText} from '../../../src/report/charts/fonts.js'
 import {FONTS, svgTexts} from './helpers.js'

@@ -24,9 +24,9 @@
 import * as vega from 'vega'
 import * as vl from 'vega-lite'
 import type {TopLevelSpec} from 'vega-lite'
-import {faceOfWeight, measureText, type ChartFonts} from './charts/fonts.js'
+import {faceOfWeight, measureText, type ChartFonts} from '../../report/charts/fonts.js'
 
-export type {ChartFonts} from './charts/fonts.js'
+export type {ChartFonts} from '../../report/charts/fonts.js'
 
 /** A rendered chart. */
 export interface ChartSvg {
