@@ -23,19 +23,28 @@ function checkStage(s: Json): void {
   expect(TOPOLOGIES as readonly unknown[]).toContain(s['topology'])
   expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)
   const dc = s['dc'] as Json
-  expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'])
+  expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput', 'calibrated', 'networkCmrr'])
+  expect(isNumOrNull(dc['networkCmrr'])).toBe(true)
+  expect(s['topology'] === 'difference' || dc['networkCmrr'] === null).toBe(true)
   for (const c of dc['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['output'])).toBe(true)
   const noise = s['noise'] as Json
-  expect(Object.keys(noise)).toEqual(['band', 'temperature', 'outputRms', 'outputPeakToPeak', 'inputRms', 'contributors'])
+  expect(Object.keys(noise)).toEqual(['band', 'temperature', 'outputRms', 'zeroSignalOutputRms', 'outputPeakToPeak', 'inputRms', 'contributors'])
   expect((noise['band'] as unknown[]).every(isNum)).toBe(true)
   expect(noise['temperature'] as number).toBeGreaterThan(200) // kelvin, not °C
   for (const c of noise['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['outputRms'])).toBe(true)
   const st = s['stability'] as Json
   expect(Object.keys(st)).toEqual(['phaseMargin', 'crossover', 'bandwidth', 'peaking', 'suggestedCf'])
   expect(['phaseMargin', 'crossover', 'bandwidth', 'suggestedCf'].every((k) => isNumOrNull(st[k])) && isNum(st['peaking'])).toBe(true)
+  const filter = s['filter'] as Json | null
+  const lowpass = s['topology'] === 'lowpass-sallen-key' || s['topology'] === 'lowpass-mfb'
+  if (lowpass) expect(Object.keys(filter as Json)).toEqual(['f0', 'q', 'passbandGain'])
+  else expect(filter).toBeNull()
   for (const r of s['requirements'] as Json[]) {
-    expect(Object.keys(r)).toEqual(['key', 'limit', 'value', 'met'])
-    expect(isNum(r['limit']) && isNumOrNull(r['value']) && typeof r['met'] === 'boolean').toBe(true)
+    expect(['require', 'limit']).toContain(r['kind'])
+    if (r['kind'] === 'require') {
+      expect(Object.keys(r)).toEqual(['key', 'kind', 'limit', 'value', 'met'])
+      expect(isNum(r['limit']) && isNumOrNull(r['value']) && typeof r['met'] === 'boolean').toBe(true)
+    } else expect(r['met'] === null || typeof r['met'] === 'boolean').toBe(true)
   }
   for (const n of s['notes'] as Json[]) {
     expect(Object.keys(n)).toEqual(['rule', 'severity', 'text'])

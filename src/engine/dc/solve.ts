@@ -21,7 +21,7 @@
  * corners needs its key in `RESISTOR_KEYS` (`topology/model.ts`) and in the stage's
  * `nominalResistors`; resistors with other labels keep their netlist value.
  */
-import {buildNetlist, type NetlistSpec} from '../netlist.js'
+import {buildNetlist, type Netlist, type NetlistSpec} from '../netlist.js'
 import {nominalResistors, topologyModel} from '../topology/index.js'
 import type {StageInput} from '../types.js'
 
@@ -63,15 +63,15 @@ export type DcResistors = Readonly<Partial<Record<string, number>>>
  * Solve a netlist at DC (see module header). Resistors of 0 Ω stay wires and absent ones
  * absent; an override is applied only to a resistor present with a non-zero value.
  */
-export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitation = {}): DcSolution {
-  const moved: NetlistSpec = {
-    ...spec,
-    elements: spec.elements.map((e) => {
-      const v = resistors[e.label]
-      return e.kind === 'r' && e.value > 0 && v !== undefined && Number.isFinite(v) && v > 0 ? {...e, value: v} : e
-    })
-  }
-  const net = buildNetlist(moved, true)
+export const solveDc = (spec: NetlistSpec, resistors: DcResistors, ex: DcExcitation = {}): DcSolution =>
+  solveCompiled(buildNetlist(spec, true), resistors, ex)
+
+/**
+ * Solve a compiled DC netlist (built with `keepDcSources`) with resistors moved by label.
+ * The compiled netlist keeps exactly the resistors present with a non-zero value, so moving
+ * their conductances here is the same as moving them in the spec and compiling again.
+ */
+function solveCompiled(net: Netlist, resistors: DcResistors, ex: DcExcitation): DcSolution {
   const refs = ex.references ?? true
   const fixed = new Map<number, number>([[0, 0]])
   for (const d of net.dcSources) fixed.set(d.node, refs ? d.volts : 0)
@@ -97,8 +97,10 @@ export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitat
   }
   for (const e of net.elements) {
     if (e.kind !== 'g') continue
-    kcl(e.a, e.b, e.value)
-    kcl(e.b, e.a, e.value)
+    const v = resistors[e.label]
+    const g = v !== undefined && Number.isFinite(v) && v > 0 ? 1 / v : e.value
+    kcl(e.a, e.b, g)
+    kcl(e.b, e.a, g)
   }
   const inject = (node: number, amps: number): void => {
     const i = index[node]
@@ -170,9 +172,19 @@ export function stageDcCircuit(input: StageInput): NetlistSpec {
   return {...spec, elements: [...spec.elements, {label: 'rload', kind: 'r', a: 'o', b: 'gnd', value: input.rload}]}
 }
 
+// The DC budget solves one stage a few hundred times (corners × input ends): its circuit is
+// compiled once per StageInput object (inputs are never mutated; variants are new objects).
+const compiledCircuits = new WeakMap<StageInput, Netlist>()
+
 /** DC solve of a stage at the given resistor values (see `solveDc`). */
-export const solveStageDc = (input: StageInput, resistors: DcResistors, ex: DcExcitation = {}): DcSolution =>
-  solveDc(stageDcCircuit(input), resistors, ex)
+export function solveStageDc(input: StageInput, resistors: DcResistors, ex: DcExcitation = {}): DcSolution {
+  let net = compiledCircuits.get(input)
+  if (net === undefined) {
+    net = buildNetlist(stageDcCircuit(input), true)
+    compiledCircuits.set(input, net)
+  }
+  return solveCompiled(net, resistors, ex)
+}
 
 /** Vout,ideal(input, R) of DESIGN §4.2: the ideal op-amp's output, reference term included, V. */
 export const idealOutput = (input: StageInput, signal: number, resistors: DcResistors): number =>

@@ -18,7 +18,9 @@ export function summaryTable(r: StageResult): Table {
     ['DC error referred to input, worst case / RSS', `${q(r.dc.worstCaseInput, iu)} / ${q(r.dc.rssInput, iu)}`],
     [`Output noise over ${q(r.noise.band[0], 'Hz')} … ${q(r.noise.band[1], 'Hz')}, rms / p-p`,
       `${q(r.noise.outputRms, 'V')} / ${q(r.noise.outputPeakToPeak, 'V')}`],
-    ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
+    r.topology === 'instrumentation'
+      ? ['Phase margin', 'not analysed (compensated inside the part)']
+      : ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
     ['Closed-loop −3 dB bandwidth', q(r.stability.bandwidth, 'Hz')]
   ], ['left', 'right'])
 }
