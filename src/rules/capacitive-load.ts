@@ -4,7 +4,8 @@
  * What it checks: the phase margin with the stage's `cload` against the margin with cload
  * removed (the op-amp's `rout` with cload is a second pole in the loop).
  *
- * When it fires: the load costs more than 15°. Severity warning when the margin left is
+ * When it fires: cload without rout (caution: the loop cannot see the load); else the load
+ * costs more than 15°. Severity warning when the margin left is
  * under 45°, caution otherwise; info when the stage's own riso already holds 60°.
  *
  * What it recommends: the smallest `riso` (a search over 0.1 Ω … 10 kΩ, like the Cf
@@ -21,6 +22,13 @@ const LOW_MARGIN = 45
 const GOOD_MARGIN = 60
 
 function check({input}: RuleContext): RuleFinding[] {
+  if (input.cload > 0 && !((input.opamp.rout ?? 0) > 0) && input.topology !== 'instrumentation') {
+    return [{
+      severity: 'caution',
+      text: `cload = ${formatQuantity(input.cload, 'F')} is given but the op-amp's open-loop output resistance (rout) is not entered, so the loop ` +
+        'sees an ideal source and the load cannot cost any phase margin here. Enter the part’s rout in its opamp block for a stability figure that includes the load.'
+    }]
+  }
   const a = capacitiveLoadAdvice(input)
   if (a === null || a.cost === null || a.cost <= COST_LIMIT || a.margin === null || a.marginWithoutLoad === null) return []
   const load = `cload = ${formatQuantity(input.cload, 'F')} with rout = ${formatQuantity(input.opamp.rout ?? 0, 'Ω')}${input.riso ? ` and riso = ${formatQuantity(input.riso.value, 'Ω')}` : ''}`

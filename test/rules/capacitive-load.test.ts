@@ -23,3 +23,13 @@ describe('rules/capacitive-load', () => {
     expect(rule.check(ruleContext(none, evaluateStage(none)))).toEqual([])
   })
 })
+
+describe('rules/capacitive-load without rout', () => {
+  it('cautions that the loop cannot see the load', () => {
+    const s = stageInput({topology: 'follower', rf: null, rg: null, opamp: opamp({rout: null}), cload: 10e-9})
+    const notes = rule.check(ruleContext(s, evaluateStage(s)))
+    expect(notes).toHaveLength(1)
+    expect(notes[0]!.severity).toBe('caution')
+    expect(notes[0]!.text).toContain('rout')
+  })
+})
