@@ -27,8 +27,15 @@ function checkStage(s: Json): void {
   expect(isNumOrNull(dc['networkCmrr'])).toBe(true)
   expect(s['topology'] === 'difference' || dc['networkCmrr'] === null).toBe(true)
   for (const c of dc['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['output'])).toBe(true)
+  // DESIGN §4.6: null without calibration, else the residuals with their totals.
+  const cal = dc['calibrated'] as Json | null
+  if (cal !== null) {
+    expect(Object.keys(cal)).toEqual(['calibration', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput'])
+    expect((cal['contributors'] as Json[]).map((c) => c['key'])).toEqual((dc['contributors'] as Json[]).map((c) => c['key']))
+  }
   const noise = s['noise'] as Json
   expect(Object.keys(noise)).toEqual(['band', 'temperature', 'outputRms', 'zeroSignalOutputRms', 'outputPeakToPeak', 'inputRms', 'contributors'])
+  expect(noise['zeroSignalOutputRms'] as number).toBeLessThanOrEqual(noise['outputRms'] as number)
   expect((noise['band'] as unknown[]).every(isNum)).toBe(true)
   expect(noise['temperature'] as number).toBeGreaterThan(200) // kelvin, not °C
   for (const c of noise['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['outputRms'])).toBe(true)
@@ -39,12 +46,21 @@ function checkStage(s: Json): void {
   const lowpass = s['topology'] === 'lowpass-sallen-key' || s['topology'] === 'lowpass-mfb'
   if (lowpass) expect(Object.keys(filter as Json)).toEqual(['f0', 'q', 'passbandGain'])
   else expect(filter).toBeNull()
+  const kinds = (s['requirements'] as Json[]).map((r) => r['kind'])
+  // The author's requirements first, then the four limits of DESIGN §4.6.
+  expect(kinds.slice(-4)).toEqual(['limit', 'limit', 'limit', 'limit'])
+  expect(kinds.slice(0, -4).every((k) => k === 'require')).toBe(true)
+  const pair = (v: unknown): boolean => Array.isArray(v) && v.length === 2 && v.every(isNumOrNull)
   for (const r of s['requirements'] as Json[]) {
-    expect(['require', 'limit']).toContain(r['kind'])
     if (r['kind'] === 'require') {
       expect(Object.keys(r)).toEqual(['key', 'kind', 'limit', 'value', 'met'])
       expect(isNum(r['limit']) && isNumOrNull(r['value']) && typeof r['met'] === 'boolean').toBe(true)
-    } else expect(r['met'] === null || typeof r['met'] === 'boolean').toBe(true)
+      continue
+    }
+    expect(Object.keys(r).slice(0, 5)).toEqual(['key', 'kind', 'limit', 'value', 'met'])
+    expect(r['met'] === null || typeof r['met'] === 'boolean').toBe(true)
+    if (r['key'] === 'output-swing' || r['key'] === 'input-common-mode') expect(pair(r['value']) && (r['limit'] === null || pair(r['limit']))).toBe(true)
+    else expect(isNum(r['value']) && isNumOrNull(r['limit'])).toBe(true)
   }
   for (const n of s['notes'] as Json[]) {
     expect(Object.keys(n)).toEqual(['rule', 'severity', 'text'])

@@ -96,6 +96,10 @@ function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedV
     if (applies(key)) out.push({key, value})
   }
   add('title', id)
+  // Not a default but a reading worth listing with them: one value means 0 to it (DESIGN §3.1).
+  if (read.supplySingle && read.supply !== null) {
+    out.push({key: 'supply', value: `${formatRange(read.supply[0], read.supply[1], 'V')} (written as one value: 0 V to it)`})
+  }
   if (topology === 'follower') add('rf', '0 Ω (a wire)')
   add('rs', 'none (0 Ω)')
   add('rcomp', 'none (0 Ω)')

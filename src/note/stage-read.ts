@@ -36,6 +36,8 @@ export interface StageRead {
   rshunt: number | null
   rload: number | null
   capacitors: Partial<Record<CapacitorKey, {value: number; tolerance: number; defaulted: boolean}>>
+  /** True when the supply was written as one value (`15 V`, read as 0 … 15 V). */
+  supplySingle: boolean
   calibration: Calibration | null
   input: [number, number] | null
   inputCm: [number, number] | null
@@ -90,7 +92,9 @@ function readResistor(field: Field, key: ResistorKey, read: StageRead, report: R
     report.error(problem, r.s.at(0), 'bad-value')
     return
   }
-  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && value < 1) {
+  // `rs: 10 mΩ` with the unit written out says milli plainly (a source or shunt of milliohms is
+  // real); a bare `10m`, or rf/rg under 1 Ω however written, is suspicious.
+  if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && (r.value.unit === '' || key !== 'rs') && value < 1) {
     report.warn(noteMessages.milliOhm(key, formatQuantity(value, 'Ω')), r.s.at(0), 'suspicious-milliohm')
   }
   read.resistors[key] = {value, tolerance, tempco, defaulted: r.value.defaulted}
@@ -119,7 +123,7 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, calibration: null,
+    topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
     capacitors: {}, inputCm: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
@@ -200,7 +204,11 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'supply': {
         const r = supplyOf(field, report)
-        if (r !== null) read.supply = r.value
+        if (r !== null) {
+          read.supply = r.value
+          const t = r.s.text.trim()
+          read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
+        }
         break
       }
       case 'temperature-range': {

@@ -11,7 +11,7 @@ import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
 import type {RuleNote} from '../rules/types.js'
-import {combine, coverRows, verdictOf} from './verdicts.js'
+import {combine, counted, coverRows, verdictOf} from './verdicts.js'
 import type {ReportDocument} from './types.js'
 
 export interface ReportInput {
@@ -62,7 +62,7 @@ export function buildReport(input: ReportInput): ReportOutput {
     ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared)
   ]}
   const verdicts = coverRows(input.evaluations)
-  const overall = combine(input.evaluations.flatMap((ev) => ev.result.requirements.map(verdictOf)))
+  const overall = combine(input.evaluations.flatMap((ev) => counted(ev.result.requirements).map(verdictOf)))
   const document: ReportDocument = {
     meta: input.parsed.meta,
     cover: {verdicts, overall},

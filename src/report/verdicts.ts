@@ -56,7 +56,7 @@ export const requirementValue = (r: RequirementResult, which: 'value' | 'limit',
 /** The limit column: "≤ x", "≥ x" or "within a … b". */
 export const limitText = (r: RequirementResult, t: Topology): string => {
   if (r.kind === 'require') return `${REQUIREMENT_KEYS[r.key].sense === 'max' ? '≤' : '≥'} ${requirementValue(r, 'limit', t)}`
-  if (r.met === null) return `skipped: enter ${r.missing.map((k) => `\`${k}\``).join(', ')}`
+  if (r.met === null) return `skipped: enter ${r.missing.length === 3 ? `${r.missing[0]} (or ${r.missing[1]} and ${r.missing[2]})` : r.missing.join(', ')}`
   if (r.key === 'output-swing' || r.key === 'input-common-mode') return `within ${requirementValue(r, 'limit', t)}`
   return `≤ ${requirementValue(r, 'limit', t)}`
 }

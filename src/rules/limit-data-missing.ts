@@ -21,11 +21,11 @@ function check({result}: RuleContext): RuleFinding[] {
   const out: RuleFinding[] = []
   for (const r of result.requirements) {
     if (r.kind !== 'limit' || r.key === 'output-swing' || r.missing.length === 0) continue
-    const keys = r.missing.map((k) => `\`${k}\``).join(', ')
+    const keys = r.missing.length === 3 ? `${r.missing[0]} (or ${r.missing[1]} and ${r.missing[2]})` : r.missing.join(', ')
     out.push({
       severity: 'info',
       text: r.met === null
-        ? `The ${r.key} limit (${WHAT[r.key]}) is not checked: enter ${keys} in the op-amp block${r.key === 'output-current' ? ' (and `rload` on the stage for its load)' : ''} to check it.`
+        ? `The ${r.key} limit (${WHAT[r.key]}) is not checked: enter ${keys} in the op-amp block${r.key === 'output-current' ? ' (and rload on the stage for its load)' : ''} to check it.`
         : `The ${r.key} limit is checked on one rail only: enter ${keys} to check the other.`
     })
   }

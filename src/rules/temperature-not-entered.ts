@@ -16,12 +16,13 @@ function check({input}: RuleContext): RuleFinding[] {
   const tempco = (['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso'] as const).filter((k) => (input[k]?.tempco ?? 0) > 0)
   const drift = input.opamp.vosDrift > 0
   if (!drift && tempco.length === 0) return []
-  const which = [...(drift ? ['vos-drift'] : []), ...(tempco.length > 0 ? [`the tempco of ${tempco.join(', ')}`] : [])].join(' and ')
+  const parts = [...(drift ? ['vos-drift'] : []), ...(tempco.length > 0 ? [`the tempco of ${tempco.join(', ')}`] : [])]
+  const which = `${parts.join(' and ')} ${parts.length > 1 ? 'contribute' : 'contributes'}`
   return [{
     severity: 'caution',
     text:
-      `No temperature range is entered, so the budget uses 25 … 25 °C and ${which} contribute nothing: those terms are zero only ` +
-      'because of that default. Enter the stage’s operating range (`temperature:`).'
+      `No temperature range is entered, so the budget uses 25 … 25 °C and ${which} nothing: those terms are zero only ` +
+      'because of that default. Enter the stage’s operating range (temperature).'
   }]
 }
 

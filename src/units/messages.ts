@@ -27,7 +27,10 @@ export const unitsMessages = {
     `Unexpected \`${found}\`${where}: below any physical value (under 10^-24 ${DIMENSIONS[dim].si === 'dB' ? 'as a linear ratio, i.e. under −480 dB' : `${DIMENSIONS[dim].si}`} but not 0), expected ${expectedOf(dim)}: check the exponent and the prefix, or write 0`,
   loneSign: (where: string) => `Unexpected lone \`±\`${where}, expected a number after it (\`±15 V\`)`,
   plusMinus: (where: string) =>
-    `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply (\`supply: ±15 V\`)`,
+    `Unexpected \`±\`${where}, expected a single value; \`±\` is only for a supply or a range (\`supply: ±15 V\`, \`input: ±10 mV\`)`,
+  bareDecibel: (found: string, db: number, where: string) =>
+    `Unexpected \`${found}\`${where}: a bare number on a dB key is read as dB (${found} dB, beyond any physical ratio); ` +
+    `if ${found} is the linear ratio, write \`${Number(db.toFixed(1))} dB\``,
   unknownUnit: (unit: string, dim: Dimension, where: string) =>
     `Unexpected unit \`${unit}\`${where}, expected ${expectedOf(dim)}`,
   wrongDimension: (unit: string, found: Dimension, dim: Dimension, where: string) =>

@@ -135,6 +135,11 @@ export function readQuantity(text: string, dim: Dimension, options: QuantityOpti
   // A finite number can still leave the double range once its prefix or dB is applied
   // (`1e308 T`, `7000 dB`), or vanish to 0 (`1e-320 f`, `-7000 dB`): refuse both rather
   // than hand on ∞ or a 0 that was not written.
+  // A bare number on a dB key is dB (DESIGN §3.1); a linear ratio written bare (`cmrr: 1e6`)
+  // reads as an absurd number of dB: say how it was read and what was probably meant.
+  if (unit.decibel && symbol === '' && num.value > 0 && (!Number.isFinite(scaled) || Math.abs(scaled) > MAX_MAGNITUDE)) {
+    return {ok: false, message: unitsMessages.bareDecibel(body, 20 * Math.log10(num.value), where), offset: lead}
+  }
   if (!Number.isFinite(scaled)) {
     return {ok: false, message: unitsMessages.outOfRange(body, dim, where, 'overflow'), offset: lead}
   }

@@ -1,6 +1,7 @@
 /**
  * Ranges and supplies (DESIGN §3.1): `a .. b unit`, `a unit .. b unit`, a single value, and
- * supplies `±15 V`, `+-15 V`, `0 .. 5 V`, `-5 .. 12 V`, `5 V`. An end without a unit takes
+ * a symmetric `±10 mV` (the trade writes a range so, on every range key), and supplies `±15 V`,
+ * `+-15 V`, `0 .. 5 V`, `-5 .. 12 V`, `5 V`. An end without a unit takes
  * the other end's unit (`0.1 .. 1k Hz` is 0.1 Hz to 1 kHz; `-10m .. 10m V` is ±10 mV).
  * `…` (U+2026), as the formatter prints it, is accepted in place of `..`.
  */
@@ -48,6 +49,18 @@ function readEnds(left: string, right: string, dim: Dimension, options: Quantity
  */
 export function parseRange(text: string, dim: Dimension, options: RangeOptions = {}): RangeResult {
   const where = whereOf(options.key)
+  const lead = text.length - text.trimStart().length
+  const pm = /^(?:±|\+\/-|\+-)\s*/.exec(text.trimStart())
+  if (pm) {
+    // `±x` is `-x .. x`.
+    const restStart = lead + pm[0].length
+    const rest = text.slice(restStart)
+    if (rest.trim() === '') return {ok: false, message: unitsMessages.loneSign(where), offset: lead}
+    const q = readQuantity(rest, dim, options)
+    if (!q.ok) return shift(q, restStart)
+    if (!(q.value > 0)) return {ok: false, message: unitsMessages.supplyMagnitude(rest.trim(), where), offset: restStart}
+    return {ok: true, value: [-q.value, q.value], single: false}
+  }
   const seps = [...text.matchAll(SEPARATOR)]
   if (seps.length > 1) return {ok: false, message: unitsMessages.rangeTooMany(where), offset: seps[1]?.index ?? 0}
   const sep = seps[0]

@@ -26,6 +26,8 @@ export type ResistorResult =
       defaulted: ('tolerance' | 'tempco')[]
       /** The SI prefix of the value as written ('' when none), for the "did you mean M?" check. */
       prefix: string
+      /** The unit symbol as written after the value ('' for a bare number or RKM code). */
+      unit: string
       /** True when the text had a tolerance or a tempco (used to refuse them on `rshunt`). */
       hasParts: boolean
       /** 0-based offset of the first tolerance or tempco part, when there is one. */
@@ -89,6 +91,7 @@ export function parseResistor(text: string, options: QuantityOptions = {}): Resi
     value: {value: value.value, tolerance: tolerance ?? 0, tempco: tempco ?? 0},
     defaulted,
     prefix: value.prefix,
+    unit: value.unit,
     hasParts: parts.length > 0,
     partsOffset: parts[0]?.start ?? text.length
   }

@@ -49,7 +49,20 @@ describe('ampreview CLI', () => {
     const dir = tempNotes({'unmet.md': UNMET})
     const r = runCli(['check', join(dir, 'unmet.md')])
     expect(r.status).toBe(1)
-    expect(r.stderr).toContain(`${join(dir, 'unmet.md')}:17:3: warning: Requirement \`noise-rms\``)
+    expect(r.stderr).toContain(`${join(dir, 'unmet.md')}:18:3: warning: Requirement \`noise-rms\``)
+  })
+
+  it('check exits 1 from a physical limit alone (DESIGN §4.6): no requirement, the output clips', () => {
+    // Gain 10.09 on ±1.5 V in: ±15.1 V out, against ±12 V rails at −5 % less the archetype's headroom.
+    const clipping = GOOD.replace('input: -0.1 .. 0.1 V', 'input: ±1.5 V').replace(/require:\n {2}phase-margin: 45 deg\n/, '')
+    expect(clipping).not.toContain('require:')
+    const dir = tempNotes({'clips.md': clipping})
+    const r = runCli(['check', '--json', join(dir, 'clips.md')])
+    expect(r.status).toBe(1)
+    const stage = (JSON.parse(r.stdout) as {files: {stages: {requirements: {key: string; kind: string; met: boolean | null}[]}[]}[]}).files[0]!.stages[0]!
+    expect(stage.requirements.filter((q) => q.kind === 'require')).toEqual([])
+    expect(stage.requirements.find((q) => q.key === 'output-swing')).toMatchObject({kind: 'limit', met: false})
+    expect(r.stderr).toMatch(/warning: Limit `output-swing` of stage `amp` not met/)
   })
 
   it('check reports three different mistakes at their lines, in one run, and exits 2', () => {

@@ -21,7 +21,7 @@ describe('build --watch', () => {
   afterAll(() => child.kill())
 
   it('builds the note once at the start and prints its verdicts', () => {
-    expect(verdicts()).toEqual([expect.stringMatching(new RegExp(`^${join(dir, 'n.md')}: 1 met, 0 not met \\(\\d+\\.\\d\\d s\\) → ${join(dir, 'n.pdf')}$`))])
+    expect(verdicts()).toEqual([expect.stringMatching(new RegExp(`^${join(dir, 'n.md')}: 3 met, 0 not met \\(\\d+\\.\\d\\d s\\) → ${join(dir, 'n.pdf')}$`))])
     expect(readFileSync(join(dir, 'n.pdf')).subarray(0, 5).toString()).toBe('%PDF-')
   })
 
@@ -29,7 +29,7 @@ describe('build --watch', () => {
     const before = readFileSync(join(dir, 'n.pdf'))
     writeFileSync(join(dir, 'n.md'), goodNote({rf: '19.1k', title: 'Saved again'}))
     await child.until(() => verdicts().length >= 2, 'the rebuild line')
-    expect(verdicts()[1]).toMatch(/: 1 met, 0 not met .* → .*n\.pdf$/)
+    expect(verdicts()[1]).toMatch(/: 3 met, 0 not met .* → .*n\.pdf$/)
     expect(readFileSync(join(dir, 'n.pdf')).equals(before)).toBe(false)
   })
 

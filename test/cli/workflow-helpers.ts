@@ -24,6 +24,7 @@ rf: ${opts.rf ?? '9.09k'} 0.1%
 rg: 1k 0.1%
 input: -0.1 .. 0.1 V
 supply: ±12 V
+temperature: 25 °C
 band: 0.1 .. 100 Hz
 require:
   phase-margin: 45 deg

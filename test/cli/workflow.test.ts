@@ -111,10 +111,11 @@ describe('batch', () => {
     const rows = r.stdout.trim().split('\n')
     expect(rows[0]).toMatch(/^note\s+stages\s+met \/ not met\s+result\s+output\s+time$/)
     expect(rows.slice(1).map((row) => row.split(/\s{2,}/).slice(0, 4))).toEqual([
-      [join(dir, 'a.md'), '1', '1 / 0', 'met'],
-      [join(dir, 'b.md'), '1', '1 / 0', 'met'],
+      // One requirement and the two limits the archetype has data for (output-swing, slew).
+      [join(dir, 'a.md'), '1', '3 / 0', 'met'],
+      [join(dir, 'b.md'), '1', '3 / 0', 'met'],
       [join(dir, 'c-bad.md'), '—', '—', 'error'],
-      [join(dir, 'd.md'), '1', '0 / 1', 'NOT MET']
+      [join(dir, 'd.md'), '1', '2 / 1', 'NOT MET']
     ])
   })
 

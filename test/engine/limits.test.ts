@@ -7,6 +7,9 @@ import {checkLimits, evaluateStage, type LimitResult, type StageInput} from '../
 import {res, stageInput, testOpamp} from './helpers.js'
 
 const limit = (s: StageInput, key: LimitResult['key']): LimitResult => checkLimits(s).find((l) => l.key === key)!
+/** The window limits (`output-swing`, `input-common-mode`): [low, high] value and limit. */
+type Window = Extract<LimitResult, {value: [number, number]}>
+const win = (s: StageInput, key: 'output-swing' | 'input-common-mode'): Window => limit(s, key) as Window
 const EDGE = 1e-9
 
 describe('output-swing', () => {
@@ -20,7 +23,7 @@ describe('output-swing', () => {
     // 12 V at −5 % is 11.4 V: 0.4 V of headroom is the edge.
     expect(limit(at(0.4 - EDGE, 0.05), 'output-swing').met).toBe(true)
     expect(limit(at(0.4 + EDGE, 0.05), 'output-swing').met).toBe(false)
-    const l = limit(at(0.4, 0.05), 'output-swing')
+    const l = win(at(0.4, 0.05), 'output-swing')
     expect(l.limit?.[0]).toBeCloseTo(-11, 12)
     expect(l.limit?.[1]).toBeCloseTo(11, 12)
   })
@@ -28,7 +31,7 @@ describe('output-swing', () => {
     // Vout = −4·Vin + 2·5 over Vin ∈ [−1, 1]: 6 … 14 V on a 0 … 15 V supply.
     const s = stageInput({topology: 'inverting', rf: res(20e3), rg: res(5e3), rs: null, vref: 2, input: [-1, 1], supply: [0, 15], supplyTolerance: 0,
       opamp: testOpamp({swingHeadroom: null, swingHeadroomNeg: 0.1, swingHeadroomPos: 1 - EDGE})})
-    const l = limit(s, 'output-swing')
+    const l = win(s, 'output-swing')
     expect(l.value[0]).toBeCloseTo(6, 12)
     expect(l.value[1]).toBeCloseTo(14, 12)
     expect(l.met).toBe(true)
@@ -37,7 +40,7 @@ describe('output-swing', () => {
   it('is skipped without headroom data, and checks one rail when only that rail has data', () => {
     const s = stageInput({opamp: testOpamp({swingHeadroom: null})})
     expect(limit(s, 'output-swing')).toMatchObject({met: null, limit: null})
-    const one = limit(stageInput({opamp: testOpamp({swingHeadroom: null, swingHeadroomPos: 1})}), 'output-swing')
+    const one = win(stageInput({opamp: testOpamp({swingHeadroom: null, swingHeadroomPos: 1})}), 'output-swing')
     expect(one.met).toBe(true)
     expect(one.limit?.[0]).toBeNull()
     expect(one.missing).toEqual(['swing-headroom-neg (or swing-headroom)'])

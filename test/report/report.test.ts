@@ -104,7 +104,7 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
 
   it('shows the verdicts as words and the overall status on the cover', () => {
     expect(text).toContain('MET')
-    expect(text).toContain('Overall: all 4 requirements met')
+    expect(text).toContain('Overall: all 7 requirements met (physical limits included)')
   })
 
   it('carries the compensation-resistor note with its three-way table', () => {

@@ -20,3 +20,13 @@ describe('rules/output-swing', () => {
     expect(rule.check(ruleContext(stageInput(), stageResult()))).toEqual([])
   })
 })
+
+describe('rules/output-swing without headroom data (DESIGN §4.6)', () => {
+  it('raises a caution that the check is skipped, never a silent 0 V', () => {
+    const notes = rule.check(ruleContext(stageInput(), stageResult({requirements: [
+      {key: 'output-swing', kind: 'limit', value: [-1.1, 1.1], limit: null, met: null, missing: ['swing-headroom']}
+    ]})))
+    expect(notes.map((n) => n.severity)).toEqual(['caution'])
+    expect(notes[0]!.text).toContain('output-swing limit is skipped')
+  })
+})

@@ -27,13 +27,17 @@ function heading(ctx: RenderContext, text: string, depth: Heading['depth']): voi
   ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
 }
 
+/** Limits are counted with the requirements (DESIGN §4.6); say so when there are any. */
+const limitsNote = (doc: ReportDocument): string =>
+  doc.cover.verdicts.some((v) => v.requirement.endsWith('(limit)')) ? ' (physical limits included)' : ''
+
 function overallText(doc: ReportDocument): string {
   const {verdicts, overall} = doc.cover
   const notMet = verdicts.filter((v) => v.verdict === 'not-met').length
   if (verdicts.length === 0) return 'Overall: no requirements were stated'
   switch (overall) {
-    case 'met': return `Overall: all ${verdicts.length} requirements met`
-    case 'not-met': return `Overall: ${notMet} of ${verdicts.length} requirements not met`
+    case 'met': return `Overall: all ${verdicts.length} requirements met${limitsNote(doc)}`
+    case 'not-met': return `Overall: ${notMet} of ${verdicts.length} requirements not met${limitsNote(doc)}`
     case 'not-evaluated': return 'Overall: requirements not evaluated'
   }
 }

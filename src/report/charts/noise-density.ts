@@ -31,6 +31,9 @@ export interface NoiseDensityChart {
 /** Legend entry of the total line. */
 export const TOTAL_LABEL = 'Total'
 
+/** Legend entry of the noise floor (total without the signal's shot noise, DESIGN §4.3). */
+export const ZERO_SIGNAL_LABEL = 'Total at zero signal'
+
 const DEFAULT_MIN_SHARE = 1e-3
 
 const LINE = {type: 'line', clip: true, strokeCap: 'butt', strokeJoin: 'round'} as const
@@ -82,6 +85,11 @@ export function noiseDensitySpec(curves: StageCurves, opts: NoiseDensityOptions)
     series.push({label: opts.labels[key] ?? key, style: NOISE_STYLES[key], total: false, points: plottablePoints(f, density, true)})
   }
   const totalPoints = plottablePoints(f, curves.noiseTotal, true)
+  // The floor, drawn only where the signal's own shot noise shows: dashed in the total's ink.
+  const floor = curves.noiseTotalZeroSignal ?? curves.noiseTotal
+  if (floor.some((v, i) => Math.abs(v - (curves.noiseTotal[i] as number)) > minShare * (curves.noiseTotal[i] as number))) {
+    series.push({label: ZERO_SIGNAL_LABEL, style: {...TOTAL_STYLE, dash: [6, 3], width: CONTRIBUTOR_WIDTH}, total: false, points: plottablePoints(f, floor, true)})
+  }
   series.push({label: TOTAL_LABEL, style: TOTAL_STYLE, total: true, points: totalPoints})
 
   const all = series.flatMap((s) => s.points)

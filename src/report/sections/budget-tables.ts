@@ -16,8 +16,11 @@ export function summaryTable(r: StageResult): Table {
     ['Noise gain at DC', q(r.noiseGain, 'V/V', 4)],
     ['DC error at output, worst case / RSS', `${q(r.dc.worstCaseOutput, 'V')} / ${q(r.dc.rssOutput, 'V')}`],
     ['DC error referred to input, worst case / RSS', `${q(r.dc.worstCaseInput, iu)} / ${q(r.dc.rssInput, iu)}`],
-    [`Output noise over ${q(r.noise.band[0], 'Hz')} … ${q(r.noise.band[1], 'Hz')}, rms / p-p`,
+    [`Output noise over ${q(r.noise.band[0], 'Hz')} … ${q(r.noise.band[1], 'Hz')}, rms / p-p${signalShot(r) ? ', at full-scale signal' : ''}`,
       `${q(r.noise.outputRms, 'V')} / ${q(r.noise.outputPeakToPeak, 'V')}`],
+    ...(signalShot(r) ? [['Output noise at zero signal (the floor), rms', q(r.noise.zeroSignalOutputRms, 'V')]] : []),
+    ...(r.dc.calibrated === null ? [] : [[`DC error at output after calibration (${r.dc.calibrated.calibration}), worst case / RSS`,
+      `${q(r.dc.calibrated.worstCaseOutput, 'V')} / ${q(r.dc.calibrated.rssOutput, 'V')}`]]),
     r.topology === 'instrumentation'
       ? ['Phase margin', 'not analysed (compensated inside the part)']
       : ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
@@ -25,22 +28,31 @@ export function summaryTable(r: StageResult): Table {
   ], ['left', 'right'])
 }
 
-/** Every DC contributor, output- and input-referred, with its share of the worst case. */
+/** True when the stage has a signal-dependent noise source (the transimpedance signal's shot noise). */
+const signalShot = (r: StageResult): boolean => r.noise.contributors.some((c) => c.key === 'shot-signal')
+
+/**
+ * Every DC contributor, output- and input-referred, with its share of the worst case; with a
+ * calibration (DESIGN §4.6), a column of the residual after calibration.
+ */
 export function dcTable(r: StageResult): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
-  const rows = r.dc.contributors.map((c) => [
+  const cal = r.dc.calibrated
+  const residual = (i: number): string[] => (cal === null ? [] : [q(cal.contributors[i]?.output ?? null, 'V')])
+  const rows = r.dc.contributors.map((c, i) => [
     [DC_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.output, 'V'),
     q(g > 0 ? c.output / g : null, iu),
-    r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—'
+    r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—',
+    ...residual(i)
   ])
   rows.push(
-    [[strong('Worst case (sum)')], q(r.dc.worstCaseOutput, 'V'), q(r.dc.worstCaseInput, iu), '100.0 %'],
-    [[strong('RSS')], q(r.dc.rssOutput, 'V'), q(r.dc.rssInput, iu), '—']
+    [[strong('Worst case (sum)')], q(r.dc.worstCaseOutput, 'V'), q(r.dc.worstCaseInput, iu), '100.0 %', ...(cal === null ? [] : [q(cal.worstCaseOutput, 'V')])],
+    [[strong('RSS')], q(r.dc.rssOutput, 'V'), q(r.dc.rssInput, iu), '—', ...(cal === null ? [] : [q(cal.rssOutput, 'V')])]
   )
-  return table(['Contributor', 'At output', 'Referred to input', 'Share of worst case'], rows,
-    ['left', 'right', 'right', 'right'])
+  const head = ['Contributor', 'At output', 'Referred to input', 'Share of worst case', ...(cal === null ? [] : ['At output after calibration'])]
+  return table(head, rows, ['left', 'right', 'right', 'right', ...(cal === null ? [] : ['right' as const])])
 }
 
 /** Every noise contributor's rms over the band, with its share of the total power. */
@@ -54,10 +66,15 @@ export function noiseTable(r: StageResult): Table {
     q(g > 0 ? c.outputRms / g : null, iu),
     total2 > 0 ? pct(c.outputRms ** 2 / total2) : '—'
   ])
+  const atFull = signalShot(r) ? ' at full-scale signal' : ''
   rows.push(
-    [[strong('Total, rms')], q(r.noise.outputRms, 'V'), q(r.noise.inputRms, iu), '100.0 %'],
-    [[strong('Total, peak-to-peak (6.6 × rms)')], q(r.noise.outputPeakToPeak, 'V'), q(r.noise.inputRms * 6.6, iu), '—']
+    [[strong(`Total, rms${atFull}`)], q(r.noise.outputRms, 'V'), q(r.noise.inputRms, iu), '100.0 %'],
+    [[strong(`Total, peak-to-peak (6.6 × rms)${atFull}`)], q(r.noise.outputPeakToPeak, 'V'), q(r.noise.inputRms * 6.6, iu), '—']
   )
+  if (signalShot(r)) {
+    const z = r.noise.zeroSignalOutputRms
+    rows.push([[strong('Total, rms at zero signal (without shot-signal)')], q(z, 'V'), q(g > 0 ? z / g : null, iu), total2 > 0 ? pct(z ** 2 / total2) : '—'])
+  }
   return table(['Contributor', 'Output rms', 'Referred to input', 'Share of noise power'], rows,
     ['left', 'right', 'right', 'right'])
 }

@@ -37,11 +37,18 @@ export function opampValuesTable(op: OpampParams): Table {
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
     ['CMRR / PSRR', `${dbOf(op.cmrr)} / ${dbOf(op.psrr)}`],
     ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F')} / ${q(op.cinCm, 'F')}`],
-    ['Output swing headroom to each rail', q(op.swingHeadroom, 'V')],
-    ['Open-loop output resistance', op.rout === null ? 'not entered (0 Ω)' : q(op.rout, 'Ω')]
+    ['Slew rate', op.slew === null ? 'not entered' : q(op.slew, 'V/s')],
+    ['Output swing headroom, negative / positive rail',
+      `${entered(op.swingHeadroomNeg ?? op.swingHeadroom, 'V')} / ${entered(op.swingHeadroomPos ?? op.swingHeadroom, 'V')}`],
+    ['Input common-mode headroom, negative / positive rail',
+      `${entered(op.cmHeadroomNeg ?? op.cmHeadroom, 'V')} / ${entered(op.cmHeadroomPos ?? op.cmHeadroom, 'V')}`],
+    ['Output current, max', entered(op.ioutMax, 'A')],
+    ['Open-loop output resistance', entered(op.rout, 'Ω')]
   ]
   return table(['Parameter', 'Value used'], rows, ['left', 'right'])
 }
+
+const entered = (v: number | null, unit: string): string => (v === null ? 'not entered' : q(v, unit))
 
 /** The archetype disclaimer, wherever an archetype is used. */
 export const archetypeNotice = (op: OpampParams): BlockContent =>

@@ -22,7 +22,9 @@ function swingBlocks(ev: StageEvaluation): BlockContent[] {
   const s = ev.result.swing
   const span = `${q(s.outputSpan[0], 'V')} … ${q(s.outputSpan[1], 'V')}`
   const allowed = `${q(s.allowed[0], 'V')} … ${q(s.allowed[1], 'V')}`
-  if (s.fits) return [paragraph(`Output span over the input range: ${span}, inside the usable swing ${allowed} (supply less headroom).`)]
+  const swing = ev.result.requirements.find((r) => r.kind === 'limit' && r.key === 'output-swing')
+  if (swing?.met === null) return [paragraph(`Output span over the input range: ${span}; no swing headroom entered, so it is not checked against the rails.`)]
+  if (s.fits) return [paragraph(`Output span over the input range: ${span}, inside the usable swing ${allowed} (supply at its low tolerance less headroom).`)]
   return [callout('warning', 'OUTSIDE SWING', [paragraph(
     `Output span over the input range is ${span}, outside the usable swing ${allowed}: ` +
     `short by ${q(s.excess[0], 'V')} at the low end and ${q(s.excess[1], 'V')} at the high end.`)])]
@@ -31,9 +33,16 @@ function swingBlocks(ev: StageEvaluation): BlockContent[] {
 function biasBlocks(ev: StageEvaluation): BlockContent[] {
   const b = ev.result.bias
   const how = {'ib-max': 'as entered (ib-max)', 'ios-max': 'as entered (ios-max)', doubling: 'from the 25 °C value doubled per ib-doubling interval', 'datasheet-25C': 'the 25 °C datasheet value'} as const
+  const dark = ev.input.topology === 'transimpedance' && ev.input.idark > 0
+    ? ` Dark current at the hot end ${q(b.idarkMax, 'A')}, ${b.idarkSource === 'idark-max' ? 'as entered (idark-max)' : `from ${q(ev.input.idark, 'A')} at 25 °C doubled every ${q(ev.input.idarkDoubling, 'K')}`}.`
+    : ''
+  const cal = ev.result.dc.calibrated
+  const calibration = cal === null ? '' : ` Calibration ${cal.calibration}: the last column is the residual after a room-temperature calibration, ` +
+    (cal.calibration === 'offset' ? 'which removes vos and the 25 °C part of the bias and offset currents; the rest remain.'
+      : 'which removes vos, the 25 °C part of the currents, and the resistor-tolerance, aol-gain and cmrr terms; drift, tempco and psrr remain.')
   return [paragraph(
     `Bias current used over ${q(ev.input.temperature[0], '°C')} … ${q(ev.input.temperature[1], '°C')}: ${q(b.ibMax, 'A')}, ${how[b.ibSource]}; ` +
-    `offset current ${q(b.iosMax, 'A')}, ${how[b.iosSource]}.`)]
+    `offset current ${q(b.iosMax, 'A')}, ${how[b.iosSource]}.${dark}${calibration}`)]
 }
 
 /** What the output drives (DESIGN §8.3). */
@@ -87,7 +96,8 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
 
   out.push(heading(3, 'DC error budget'),
     paragraph(`Worst case over ${q(input.temperature[0], '°C')} … ${q(input.temperature[1], '°C')} ` +
-      `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')}.`),
+      `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')} ` +
+      '(the largest ideal output over the input range, reference term included).'),
     ...biasBlocks(ev),
     caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), ...networkCmrrBlocks(ev), dcFigure(ctx, ev))
 

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {noiseDensitySpec, TOTAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {noiseDensitySpec, TOTAL_LABEL, ZERO_SIGNAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {NOISE_KEYS} from '../../../src/engine/types.js'
 import {renderChartSvg} from '../../../src/render/chart/vega.js'
@@ -59,5 +59,16 @@ describe('noiseDensitySpec()', () => {
     const curves = stageCurves()
     curves.noiseTotal = curves.noiseTotal.map(() => 0)
     expect(() => noiseDensitySpec(curves, {labels: LABELS})).toThrow(RangeError)
+  })
+})
+
+describe('noiseDensitySpec() with a signal-dependent source', () => {
+  it('draws the zero-signal floor only when the signal\'s shot noise shows', () => {
+    const plain = stageCurves()
+    const series = (c: ReturnType<typeof stageCurves>): unknown[] =>
+      [...new Set(((noiseDensitySpec(c, {labels: {}}).spec as {data: {values: {series: string}[]}}).data.values).map((v) => v.series))]
+    expect(series(plain)).not.toContain(ZERO_SIGNAL_LABEL)
+    const floor = plain.noiseTotal.map((v) => v / 2)
+    expect(series({...plain, noiseTotalZeroSignal: floor})).toContain(ZERO_SIGNAL_LABEL)
   })
 })
