@@ -1,28 +1,43 @@
 /**
  * The content-hash build cache: one small JSON file per output folder
- * (`.ampreview-cache.json`). A note whose source, template, tool version and options are
- * unchanged, and whose outputs are all still there, is "up to date" and not rebuilt.
+ * (`.ampreview-cache.json`). The file is never trusted: anyone can edit it (or commit one).
+ * A note is "up to date" only when its key (source, template, tool version, options) is
+ * unchanged, every image it shows still reads as it did (the same checks as the build),
+ * and every recorded output lies inside the output folder, is a regular file and has the
+ * recorded size and SHA-256 — every output of the set from the same build. The verdict
+ * and exit code are never read from the file: the note is evaluated again (cheap, no
+ * report drawn), and its §6 result must hash to the one recorded at the build.
  *
  * The file is rewritten atomically after every note, so a crash leaves the previous
  * version; a file that cannot be read or parsed is treated as empty (it never blocks a
  * build) and is replaced on the next write.
  */
 import {createHash} from 'node:crypto'
-import {readFile, stat} from 'node:fs/promises'
-import {dirname, isAbsolute, join, resolve} from 'node:path'
+import {lstat, readFile} from 'node:fs/promises'
+import {isAbsolute, join, relative, resolve, sep} from 'node:path'
+import type {ImageInput} from './images.js'
 import {writeAtomic} from './write.js'
 
 export const CACHE_FILE = '.ampreview-cache.json'
-const CACHE_VERSION = 1
+const CACHE_VERSION = 2
+
+/** One output file as written: where, how long, its hash. */
+export interface OutputRecord {
+  path: string
+  size: number
+  sha256: string
+}
 
 export interface CacheEntry {
-  /** Hash of everything the outputs depend on. */
+  /** Hash of everything the outputs depend on, images apart. */
   key: string
-  outputs: string[]
-  exitCode: 0 | 1
-  stages: number
-  met: number
-  notMet: number
+  outputs: OutputRecord[]
+  /** The images the outputs embed, as read at the build. */
+  images: ImageInput[]
+  /** SHA-256 of the note's §6 stage results at the build (`resultDigest`). */
+  result: string
+  /** Every file this note's builds wrote here, the latest and earlier ones: ours to replace. */
+  owned: string[]
 }
 
 interface CacheFile {
@@ -39,74 +54,64 @@ export interface KeyParts {
   version: string
   /** The options that change the outputs, serialised. */
   options: string
-  /** Hash of the other files the outputs embed (the note's images); '' when none. */
-  inputs: string
 }
 
-/** The key of a build: note bytes, template files, tool version, options, embedded files. */
+/** The key of a build: note bytes, template files, tool version, options. */
 export function buildKey(parts: KeyParts): string {
   const h = createHash('sha256')
   // Each part is length-prefixed, so no two different sets of parts give the same bytes.
-  for (const p of [parts.version, parts.options, parts.template, parts.inputs]) h.update(`${Buffer.byteLength(p)}:`).update(p)
+  for (const p of [parts.version, parts.options, parts.template]) h.update(`${Buffer.byteLength(p)}:`).update(p)
   h.update(`${parts.source.byteLength}:`).update(parts.source)
   return h.digest('hex')
 }
 
-/** Inline image targets `![alt](target)` (alt text may hold one level of brackets) and reference definitions `[label]: target`. */
-const IMAGE_TARGET = /!\[(?:[^\]\\]|\\.|\[[^\]]*\])*\]\(\s*(?:<([^>]*)>|([^)\s]+))/g
-const DEFINITION_TARGET = /^ {0,3}\[[^\]]+\]:\s*(?:<([^>]*)>|(\S+))/gm
+/** Hash of a note's §6 stage results: what a verdict is computed from. */
+export const resultDigest = (stages: unknown): string => createHash('sha256').update(JSON.stringify(stages)).digest('hex')
 
-/**
- * Hash of the local files a note's images may refer to (names and bytes; a missing file
- * counts as missing), so that replacing an image rebuilds the PDF that embeds it. A cheap
- * scan of the source rather than a parse: it may include a file the report does not use,
- * which only costs a rebuild.
- */
-export async function imageInputsHash(source: Uint8Array, notePath: string): Promise<string> {
-  const text = Buffer.from(source.buffer, source.byteOffset, source.byteLength).toString('utf8')
-  const targets = new Set<string>()
-  for (const re of [IMAGE_TARGET, DEFINITION_TARGET]) {
-    for (const m of text.matchAll(re)) {
-      const url = m[1] ?? m[2] ?? ''
-      if (url === '' || /^[a-z][a-z0-9+.-]*:/i.test(url) || isAbsolute(url)) continue
-      targets.add(url)
-    }
-  }
-  if (targets.size === 0) return ''
-  const dir = dirname(resolve(notePath))
-  const h = createHash('sha256')
-  for (const url of [...targets].sort()) {
-    let path: string
-    try {
-      path = resolve(dir, decodeURIComponent(url))
-    } catch {
-      continue
-    }
-    const bytes = await readFile(path).catch(() => null)
-    h.update(`${url}\0`).update(bytes === null ? 'missing' : createHash('sha256').update(bytes).digest('hex')).update('\0')
-  }
-  return h.digest('hex')
+/** SHA-256 and size of an output's contents, as recorded. */
+export function recordOf(path: string, data: Uint8Array | string): OutputRecord {
+  const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data
+  return {path, size: bytes.byteLength, sha256: createHash('sha256').update(bytes).digest('hex')}
+}
+
+const inside = (dir: string, p: string): boolean => {
+  const rel = relative(dir, p)
+  return rel !== '' && !rel.startsWith('..' + sep) && rel !== '..' && !isAbsolute(rel) && !rel.includes(sep)
 }
 
 const isEntry = (e: unknown): e is CacheEntry => {
   if (typeof e !== 'object' || e === null) return false
   const x = e as Record<string, unknown>
-  const count = (v: unknown): boolean => Number.isInteger(v) && (v as number) >= 0
-  return typeof x['key'] === 'string' && Array.isArray(x['outputs']) && x['outputs'].every((o) => typeof o === 'string') &&
-    (x['exitCode'] === 0 || x['exitCode'] === 1) && count(x['stages']) && count(x['met']) && count(x['notMet'])
+  const isRecord = (o: unknown): boolean => typeof o === 'object' && o !== null &&
+    typeof (o as OutputRecord).path === 'string' && Number.isInteger((o as OutputRecord).size) && typeof (o as OutputRecord).sha256 === 'string'
+  const isImage = (o: unknown): boolean => typeof o === 'object' && o !== null &&
+    typeof (o as ImageInput).url === 'string' && typeof (o as ImageInput).digest === 'string'
+  return typeof x['key'] === 'string' && typeof x['result'] === 'string' &&
+    Array.isArray(x['outputs']) && x['outputs'].every(isRecord) && Array.isArray(x['images']) && x['images'].every(isImage) &&
+    Array.isArray(x['owned']) && x['owned'].every((o) => typeof o === 'string')
+}
+
+/** Whether a recorded output is still exactly what the build wrote, inside `dir`. */
+async function outputIntact(dir: string, o: OutputRecord): Promise<boolean> {
+  const path = resolve(dir, o.path)
+  if (path !== o.path || !inside(dir, path)) return false
+  const s = await lstat(path).catch(() => null)
+  if (s === null || !s.isFile() || s.size !== o.size) return false
+  const bytes = await readFile(path).catch(() => null)
+  return bytes !== null && createHash('sha256').update(bytes).digest('hex') === o.sha256
 }
 
 export class BuildCache {
   private entries: Record<string, CacheEntry> = {}
   private writing: Promise<void> = Promise.resolve()
-  private constructor(private readonly dir: string) {}
+  private constructor(readonly dir: string) {}
 
   static async open(dir: string): Promise<BuildCache> {
     const cache = new BuildCache(dir)
     try {
       const parsed = JSON.parse(await readFile(join(dir, CACHE_FILE), 'utf8')) as Partial<CacheFile>
       if (parsed.version === CACHE_VERSION && parsed.entries && typeof parsed.entries === 'object') {
-        for (const [k, e] of Object.entries(parsed.entries)) if (isEntry(e)) cache.entries[k] = e
+        for (const [k, e] of Object.entries(parsed.entries)) if (isEntry(e) && isAbsolute(k)) cache.entries[k] = e
       }
     } catch {
       // Missing or corrupt: start empty; the next write replaces it.
@@ -114,14 +119,26 @@ export class BuildCache {
     return cache
   }
 
-  /** The entry for a note if its key matches and every output still exists. */
+  /**
+   * The entry for a note if its key matches and every recorded output is intact (inside
+   * this folder, same size and hash). Images and the verdict are for the caller to check.
+   */
   async hit(note: string, key: string): Promise<CacheEntry | null> {
-    const e = this.entries[note]
-    if (!e || e.key !== key) return null
-    for (const o of e.outputs) {
-      if (!(await stat(o).then((s) => s.isFile(), () => false))) return null
-    }
+    const e = Object.hasOwn(this.entries, note) ? this.entries[note] : undefined
+    if (!e || e.key !== key || e.outputs.length === 0) return null
+    for (const o of e.outputs) if (!(await outputIntact(this.dir, o))) return null
     return e
+  }
+
+  /** The note whose recorded outputs include `path` (absolute), if any. */
+  ownerOf(path: string): string | null {
+    for (const [note, e] of Object.entries(this.entries)) if (e.owned.includes(path) || e.outputs.some((o) => o.path === path)) return note
+    return null
+  }
+
+  /** The entry recorded for a note, whatever its key. */
+  entry(note: string): CacheEntry | null {
+    return Object.hasOwn(this.entries, note) ? this.entries[note]! : null
   }
 
   /** Record a note's entry (or drop it with null) and write the file atomically. */

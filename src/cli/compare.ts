@@ -41,6 +41,22 @@ export function resultProblem(x: unknown): string | null {
   return null
 }
 
+/**
+ * The commit a `REV` of `REV:PATH` names, as a full id: refused when it starts with `-`
+ * (git would read an option, such as `--output=FILE`), resolved with `git rev-parse
+ * --verify --end-of-options REV^{commit}` so that nothing but a commit gets through.
+ */
+function resolveCommit(rev: string): string {
+  if (rev.startsWith('-')) throw new CompareInputError(`The revision \`${rev}\` of \`${rev}:PATH\` starts with \`-\`: give a branch, tag or commit`)
+  try {
+    const id = execFileSync('git', ['rev-parse', '--verify', '--quiet', '--end-of-options', `${rev}^{commit}`], {encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe']}).trim()
+    if (/^[0-9a-f]{40,64}$/.test(id)) return id
+  } catch {
+    // Not a commit, or not a git repository: said below.
+  }
+  throw new CompareInputError(`The revision \`${rev}\` is not a commit of the git repository here (\`git rev-parse --verify ${rev}^{commit}\` found none)`)
+}
+
 /** `PATH` of `REV:PATH` as git reads it: relative to the working folder, like every other operand. */
 const gitPath = (path: string): string => {
   const rel = isAbsolute(path) ? relative(process.cwd(), path) : path
@@ -60,9 +76,13 @@ async function load(side: string, res: Resources): Promise<RunJson> {
     }
   }
   if (rev && !(await readFile(side).then(() => true, () => false))) {
+    const commit = resolveCommit(rev[1]!)
     let bytes: Uint8Array
     try {
-      bytes = new Uint8Array(execFileSync('git', ['show', `${rev[1]}:${gitPath(rev[2]!)}`], {stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024}))
+      // `git show` takes one `REV:PATH` object name (no `--` before it): it is built from the
+      // resolved commit id and a `./`-led path, after `--end-of-options`, so no part of the
+      // operand as written can read as an option.
+      bytes = new Uint8Array(execFileSync('git', ['show', '--end-of-options', `${commit}:${gitPath(rev[2]!)}`], {stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024}))
     } catch (error) {
       const why = (error as {stderr?: unknown}).stderr
       const first = why instanceof Uint8Array || typeof why === 'string' ? why.toString().trim().split('\n')[0] : ''

@@ -24,7 +24,21 @@ export function diagnosticsOf(file: VFile): Diagnostic[] {
     .map((x) => x.d)
 }
 
+/** C0 and C1 controls, DEL, line and paragraph separators, and bidirectional overrides. */
+const CONTROLS = /[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g
+const NAMED: Record<string, string> = {'\n': '\\n', '\r': '\\r', '\t': '\\t'}
+
+/**
+ * A path (or any text from a file or its name) as printed: control characters escaped
+ * (`\n`, `\x1b`, `\u202e`), so that a file name cannot forge diagnostic lines or colour
+ * the terminal. Backslashes themselves are left as they are.
+ */
+export const printable = (s: string): string => s.replace(CONTROLS, (c) => {
+  const code = c.charCodeAt(0)
+  return NAMED[c] ?? (code <= 0xff ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u${code.toString(16).padStart(4, '0')}`)
+})
+
 export const formatDiagnostic = (file: string, d: Diagnostic): string =>
-  `${file}:${d.line}:${d.column}: ${d.severity}: ${d.message.replace(/\s*\n\s*/g, ' ')}`
+  `${printable(file)}:${d.line}:${d.column}: ${d.severity}: ${printable(d.message.replace(/\s*\n\s*/g, ' '))}`
 
 export const hasErrors = (ds: Diagnostic[]): boolean => ds.some((d) => d.severity === 'error')

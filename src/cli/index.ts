@@ -5,6 +5,7 @@
  * 0 met, 1 not met, 2 not evaluated. No stack trace unless --debug.
  */
 import {parseCliArgs, USAGE, UsageError, type CliArgs} from './args.js'
+import {printable} from './diagnostics.js'
 import {runBatch} from './batch.js'
 import {CompareInputError, compareCommand} from './compare.js'
 import {mergeCommand} from './merge.js'
@@ -64,21 +65,24 @@ async function run(args: CliArgs, abort: AbortController): Promise<number> {
 const argv = process.argv.slice(2)
 const debug = argv.includes('--debug')
 const abort = new AbortController()
-// First Ctrl-C: finish the notes under way (no partial files), start no more. Second: leave now.
-process.on('SIGINT', () => {
+// First Ctrl-C, or SIGTERM (how CI cancels a job): finish the notes under way (no partial
+// files), start no more, exit 130. A second signal: leave now.
+const interrupt = (): void => {
   if (abort.signal.aborted) process.exit(130)
   abort.abort()
   err('\nampreview: interrupted; finishing the notes under way (Ctrl-C again to stop at once)\n')
-})
+}
+process.on('SIGINT', interrupt)
+process.on('SIGTERM', interrupt)
 try {
   process.exitCode = await run(parseCliArgs(argv), abort)
 } catch (error) {
   if (error instanceof UsageError) {
-    err(`ampreview: ${error.message}\n\n${USAGE}\n`)
+    err(`ampreview: ${printable(error.message)}\n\n${USAGE}\n`)
   } else if (error instanceof CompareInputError || error instanceof MergeError) {
-    err(`ampreview: ${error.message}\n`)
+    err(`ampreview: ${printable(error.message)}\n`)
   } else {
-    err(`ampreview: ${error instanceof Error ? error.message : String(error)}\n`)
+    err(`ampreview: ${printable(error instanceof Error ? error.message : String(error))}\n`)
     if (debug && error instanceof Error && error.stack) err(`${error.stack}\n`)
   }
   process.exitCode = 2

@@ -14,7 +14,7 @@
  * stops before the report and writes nothing.
  */
 import {createHash} from 'node:crypto'
-import {readFile, stat} from 'node:fs/promises'
+import {lstat, readFile, stat} from 'node:fs/promises'
 import {basename, dirname, extname, join, resolve} from 'node:path'
 import type {Root} from 'mdast'
 import {VFile} from 'vfile'
@@ -24,9 +24,10 @@ import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
+import {recordOf, type OutputRecord} from './cache.js'
 import {reportDate} from './dates.js'
 import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
-import {readImages} from './images.js'
+import {readImages, type ImageInput, type NoteImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
 import {writeAllAtomic} from './write.js'
 import type {Format} from './formats.js'
@@ -49,7 +50,7 @@ export interface NoteResources {
   version: string
   template: (name: string) => Promise<Template>
   /** The images the note's tree names (messages for refused ones go on `file`). */
-  images: (tree: Root, file: VFile) => Promise<Map<string, Uint8Array>>
+  images: (tree: Root, file: VFile) => Promise<NoteImages>
 }
 
 export interface RunOptions {
@@ -60,6 +61,11 @@ export interface RunOptions {
   /** Treat warnings as errors. */
   strict: boolean
   sourceDateEpoch: string | undefined
+  /**
+   * Existing files the outputs may replace (the cache's record of this note's outputs);
+   * any other existing file at an output path is refused. (optional: no check)
+   */
+  owned?: readonly string[]
 }
 
 export interface NoteOutcome {
@@ -76,6 +82,10 @@ export interface NoteOutcome {
   exitCode: 0 | 1 | 2
   /** Paths of the files written (absolute), if any. */
   outputs: string[]
+  /** The images the outputs embed, as read (for the build cache). (optional: none) */
+  inputs?: ImageInput[]
+  /** Size and hash of each file written (for the build cache). (optional: none) */
+  records?: OutputRecord[]
 }
 
 /** A run of one note before anything is written: the outcome and each output's name and contents. */
@@ -182,7 +192,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   const evaluations = evaluateNote(parsed, file)
   markUnmet(file, evaluations)
   const wantPdf = opts.formats.includes('pdf')
-  const images = wantPdf ? await res.images(parsed.tree, file) : new Map<string, Uint8Array>()
+  const {images, inputs} = wantPdf ? await res.images(parsed.tree, file) : {images: new Map<string, Uint8Array>(), inputs: []}
 
   let diagnostics = diagnosticsOf(file)
   if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') && !d.message.startsWith('Limit ') ? {...d, severity: 'error'} : d))
@@ -192,7 +202,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
     file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
-    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: []
+    met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: [], inputs
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
 
@@ -239,14 +249,22 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
  * Write a result's files into `outDir` (null: beside the note), all or nothing. A failed
  * write becomes an error diagnostic (exit code 2) and replaces no earlier output.
  */
-export async function writeOutputs(result: NoteResult, outDir: string | null): Promise<NoteOutcome> {
+export async function writeOutputs(result: NoteResult, outDir: string | null, owned?: readonly string[]): Promise<NoteOutcome> {
   const o = result.outcome
   if (result.files.length === 0) return o
   const dir = outDir === null ? dirname(resolve(o.file)) : resolve(outDir)
   const files = result.files.map((f): [string, Uint8Array | string] => [join(dir, f.name), f.data])
+  if (owned !== undefined) {
+    for (const [path] of files) {
+      if (owned.includes(path) || !(await lstat(path).then(() => true, () => false))) continue
+      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
+        message: `Not written: ${path} exists and was not written by ampreview for this note; no output file was replaced (remove it, build into another folder with --out, or replace it with --force)`}
+      return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
+    }
+  }
   try {
     await writeAllAtomic(files)
-    return {...o, outputs: files.map(([p]) => p)}
+    return {...o, outputs: files.map(([p]) => p), records: files.map(([p, data]) => recordOf(p, data))}
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code
     const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
@@ -262,5 +280,5 @@ export async function writeOutputs(result: NoteResult, outDir: string | null): P
 export async function processNote(path: string, res: Resources, opts: RunOptions): Promise<NoteOutcome> {
   const read = await readNote(path, res)
   if (!read.ok) return read.outcome
-  return writeOutputs(await runNote(read.bytes, path, read.resources, opts), opts.outDir)
+  return writeOutputs(await runNote(read.bytes, path, read.resources, opts), opts.outDir, opts.owned)
 }

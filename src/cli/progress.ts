@@ -3,6 +3,8 @@
  * terminal one plain line per note. Colour only on a terminal and never under NO_COLOR;
  * the bar is drawn and cleared with carriage returns and spaces only, no escape codes.
  */
+import {printable} from './diagnostics.js'
+
 export interface ProgressOptions {
   tty: boolean
   color: boolean
@@ -33,7 +35,7 @@ export class Progress {
       this.drawn = line.length
       if (this.done === this.total) { this.o.write('\n'); this.drawn = 0 }
     } else {
-      this.o.write(`[${this.done}/${this.total}] ${status}: ${file} (${seconds.toFixed(2)} s)\n`)
+      this.o.write(`[${this.done}/${this.total}] ${status}: ${printable(file)} (${seconds.toFixed(2)} s)\n`)
     }
   }
 

@@ -4,12 +4,13 @@
  */
 import {relative} from 'node:path'
 import type {BatchItem} from './batch.js'
+import {printable} from './diagnostics.js'
 import {paint} from './progress.js'
 
 /** The output cell: each file relative to `cwd`, a Markdown report's SVG figures counted rather than listed. */
 function outputCell(outputs: string[], cwd: string): string {
   const svgs = outputs.filter((p) => p.endsWith('.svg')).length
-  const named = outputs.filter((p) => !p.endsWith('.svg')).map((p) => relative(cwd, p))
+  const named = outputs.filter((p) => !p.endsWith('.svg')).map((p) => printable(relative(cwd, p)))
   return [...named, ...(svgs > 0 ? [`${svgs} SVG figure${svgs === 1 ? '' : 's'}`] : [])].join(', ')
 }
 
@@ -19,7 +20,7 @@ export function summaryTable(items: BatchItem[], color: boolean, cwd: string): s
     const result = o.exitCode === 2 ? 'error' : o.exitCode === 1 ? 'NOT MET' : 'met'
     const output = it.upToDate ? `up to date (${outputCell(o.outputs, cwd)})`
       : o.outputs.length > 0 ? outputCell(o.outputs, cwd) : '—'
-    return [o.file, o.exitCode === 2 ? '—' : String(it.stages), o.exitCode === 2 ? '—' : `${o.met} / ${o.notMet}`,
+    return [printable(o.file), o.exitCode === 2 ? '—' : String(it.stages), o.exitCode === 2 ? '—' : `${o.met} / ${o.notMet}`,
       result, output, `${it.seconds.toFixed(2)} s`]
   })
   const header = ['note', 'stages', 'met / not met', 'result', 'output', 'time']

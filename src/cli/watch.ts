@@ -6,8 +6,9 @@
 import {watch, type FSWatcher} from 'node:fs'
 import {basename, dirname, resolve} from 'node:path'
 import {outputClashes} from './batch.js'
-import {formatDiagnostic} from './diagnostics.js'
-import {failedOutcome, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
+import {BuildCache, resultDigest} from './cache.js'
+import {formatDiagnostic, printable} from './diagnostics.js'
+import {failedOutcome, outputPath, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 
 export interface WatchIo {
   out: (s: string) => void
@@ -16,7 +17,7 @@ export interface WatchIo {
 
 const verdictLine = (o: NoteOutcome, seconds: number): string => {
   const result = o.exitCode === 2 ? 'error, no output written' : `${o.met} met, ${o.notMet} not met`
-  return `${o.file}: ${result} (${seconds.toFixed(2)} s)${o.outputs.length > 0 ? ` → ${o.outputs.join(', ')}` : ''}\n`
+  return `${printable(o.file)}: ${result} (${seconds.toFixed(2)} s)${o.outputs.length > 0 ? ` → ${printable(o.outputs.join(', '))}` : ''}\n`
 }
 
 /** Resolves when `signal` aborts; every watcher is closed then. */
@@ -35,13 +36,27 @@ export async function watchNotes(all: string[], res: Resources, opts: RunOptions
   /** Notes whose debounce delay is running: more events for them are the same save. */
   const waiting = new Set<string>()
   const again = new Set<string>()
+  const outDir = opts.outDir === null ? null : resolve(opts.outDir)
+  /** One cache per output folder for the whole session, so that notes built at once do not lose each other's records. */
+  const caches = new Map<string, Promise<BuildCache>>()
   const build = async (note: string): Promise<void> => {
     const t0 = performance.now()
-    const o = await processNote(note, res, opts).catch((e: unknown) => {
-      io.err(`${note}: internal error: ${e instanceof Error ? e.message : String(e)}\n`)
+    // Outputs replace only files this note wrote (the folder's cache says which); what a
+    // save writes is recorded there too, with no key (a later `build` rebuilds once).
+    const dir = dirname(outputPath(note, outDir, 'pdf'))
+    let opened = caches.get(dir)
+    if (opened === undefined) { opened = BuildCache.open(dir); caches.set(dir, opened) }
+    const cache = await opened
+    const previous = cache.entry(resolve(note))
+    const o = await processNote(note, res, {...opts, owned: previous?.owned ?? []}).catch((e: unknown) => {
+      io.err(`${printable(note)}: internal error: ${e instanceof Error ? e.message : String(e)}\n`)
       return null
     })
     if (o === null) return
+    if (o.records !== undefined && o.records.length > 0) {
+      const owned = [...new Set([...(previous?.owned ?? []), ...o.records.map((r) => r.path)])].sort()
+      await cache.set(resolve(note), {key: '', outputs: o.records, images: o.inputs ?? [], result: resultDigest(o.stages), owned})
+    }
     for (const d of o.diagnostics) io.err(`${formatDiagnostic(note, d)}\n`)
     io.out(verdictLine(o, (performance.now() - t0) / 1000))
   }
@@ -74,7 +89,7 @@ export async function watchNotes(all: string[], res: Resources, opts: RunOptions
     watchers.push(watch(dir, (_event, name) => {
       const note = name === null ? undefined : names.get(name.toString())
       if (note !== undefined) schedule(note)
-    }).on('error', (e) => io.err(`cannot watch ${dir} any longer: ${e.message}\n`)))
+    }).on('error', (e) => io.err(`cannot watch ${printable(dir)} any longer: ${e.message}\n`)))
   }
   io.err(`watching ${notes.length} note(s); press Ctrl-C to stop\n`)
   // The signal may have fired already, during the first builds.

@@ -5,7 +5,7 @@
  * rename.
  */
 import {randomBytes} from 'node:crypto'
-import {mkdir, rename, rm, writeFile} from 'node:fs/promises'
+import {mkdir, readdir, rename, rm, writeFile} from 'node:fs/promises'
 import {basename, dirname, join} from 'node:path'
 
 const tmpName = (target: string): string =>
@@ -29,3 +29,29 @@ export async function writeAllAtomic(files: readonly (readonly [string, Uint8Arr
 }
 
 export const writeAtomic = (target: string, data: Uint8Array | string): Promise<void> => writeAllAtomic([[target, data]])
+
+/** Our temporary files: `.<target>.<pid>.<8 hex>.tmp`. */
+const TMP_NAME = /^\..+\.(\d+)\.[0-9a-f]{8}\.tmp$/
+
+const running = (pid: number): boolean => {
+  if (pid === process.pid) return true
+  try {
+    process.kill(pid, 0)
+    return true
+  } catch (error) {
+    // EPERM: the process exists but is someone else's.
+    return (error as NodeJS.ErrnoException).code === 'EPERM'
+  }
+}
+
+/**
+ * Removes the temporary files a killed run left in `dir` (ours by name, from a process
+ * that is no longer running); other files, and those of a run still going, stay.
+ */
+export async function removeStaleTemporaries(dir: string): Promise<void> {
+  const names = await readdir(dir).catch(() => [] as string[])
+  await Promise.all(names.map(async (name) => {
+    const m = TMP_NAME.exec(name)
+    if (m && !running(Number(m[1]))) await rm(join(dir, name), {force: true}).catch(() => undefined)
+  }))
+}

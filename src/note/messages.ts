@@ -90,6 +90,8 @@ export const noteMessages = {
     `Unexpected ${q(text)} after the capacitance, expected at most a tolerance (\`10 nF 5%\`)`,
   rgWithoutRf: () =>
     'Unexpected `rg` without `rf` on a Sallen-Key stage, expected both (gain 1 + rf/rg) or neither (unity gain): add `rf` or remove `rg`',
+  implausible: (key: string, what: string, value: string, bound: string) =>
+    `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>

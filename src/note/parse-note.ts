@@ -22,6 +22,7 @@ import {reporterFor, type Reporter} from './diagnostics.js'
 import {emptyMeta, readFrontMatter} from './front-matter.js'
 import {noteMessages} from './messages.js'
 import {sourceOf, valueMapper, type SourceText} from './place.js'
+import {nestingTooDeep} from './prescan.js'
 import type {OpampBlockNode, ParsedNote, StageBlockNode} from './types.js'
 
 export {MAX_BLOCKS} from './block-reader.js'
@@ -66,6 +67,12 @@ function frontMatterUnclosed(source: SourceText, report: Reporter): void {
 export function parseNote(file: VFile): ParsedNote {
   const report = reporterFor(file)
   const text = file.toString()
+  // A linear pre-scan first: the parser is slow on deep nesting, or overflows its stack.
+  const bomb = nestingTooDeep(text, MAX_NESTING)
+  if (bomb !== null) {
+    report.error(noteMessages.tooDeep(MAX_NESTING), bomb, 'too-deep')
+    return {meta: emptyMeta(), tree: {type: 'root', children: []}, stages: [], opamps: []}
+  }
   const source = sourceOf(text)
   const processor = unified().use(remarkParse).use(remarkFrontmatter, ['yaml']).use(remarkGfm).use(blockReader)
   const tree: Root = processor.parse(text)

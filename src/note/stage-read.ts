@@ -15,7 +15,7 @@ import {
 } from './keys.js'
 import {noteMessages} from './messages.js'
 import {capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
-import {formatQuantity} from '../units/index.js'
+import {formatQuantity, formatRange, formatTempco} from '../units/index.js'
 
 export interface ReadResistor {
   value: number
@@ -97,7 +97,24 @@ function readResistor(field: Field, key: ResistorKey, read: StageRead, report: R
   if (MILLI_CHECKED.includes(key) && r.value.prefix === 'm' && (r.value.unit === '' || key !== 'rs') && value < 1) {
     report.warn(noteMessages.milliOhm(key, formatQuantity(value, 'Ω')), r.s.at(0), 'suspicious-milliohm')
   }
+  implausibleResistor(key, value, tempco, r.s.at(0), report)
   read.resistors[key] = {value, tolerance, tempco, defaulted: r.value.defaulted}
+}
+
+/**
+ * Bounds of what a practising engineer would call plausible (common practice): a tempco
+ * over 10,000 ppm/K (1 %/K: thermistors, not resistors), a resistance over 1 TΩ or under
+ * 1 mΩ, a supply beyond 1 kV. Beyond them a value is accepted, with a warning at the key.
+ */
+export const PLAUSIBLE = {tempco: 10_000e-6, resistanceMax: 1e12, resistanceMin: 1e-3, supply: 1000} as const
+
+function implausibleResistor(key: string, value: number, tempco: number, at: Point, report: Reporter): void {
+  if (Math.abs(tempco) > PLAUSIBLE.tempco) {
+    report.warn(noteMessages.implausible(key, 'tempco', formatTempco(tempco), '10,000 ppm/K'), at, 'suspicious-value')
+  }
+  if (value > PLAUSIBLE.resistanceMax || (value > 0 && value < PLAUSIBLE.resistanceMin)) {
+    report.warn(noteMessages.implausible(key, 'resistance', formatQuantity(value, 'Ω'), '1 mΩ … 1 TΩ'), at, 'suspicious-value')
+  }
 }
 
 function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: StageRead, report: Reporter): void {
@@ -208,6 +225,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
           read.supply = r.value
           const t = r.s.text.trim()
           read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
+        }
+        if (r !== null && Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
+          report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
         }
         break
       }

@@ -35,12 +35,42 @@ function special(value: number, unit: string): string | null {
   return null
 }
 
+/**
+ * Magnitudes the SI prefixes of the report cover, fT … 999 T (a mantissa from 0.001 f up):
+ * a value outside them is no everyday quantity — it comes from an implausible input — and
+ * prints in plain scientific form with the unit itself, flagged: `1.01 × 10²⁸ V ⚠`.
+ */
+const IN_RANGE = {low: 1e-18, high: 1e15}
+/** The flag after an out-of-range value. */
+export const OUT_OF_RANGE_FLAG = '⚠'
+
+const SUPERSCRIPT: Record<string, string> = {'-': '⁻', 0: '⁰', 1: '¹', 2: '²', 3: '³', 4: '⁴', 5: '⁵', 6: '⁶', 7: '⁷', 8: '⁸', 9: '⁹'}
+
+/** `value` as `m × 10ⁿ` (m to `digits` significant digits), e.g. `−5.46 × 10²⁷`. */
+export function formatScientific(value: number, opts: FormatOptions = {}): string {
+  const s = special(value, '')
+  if (s !== null) return s
+  if (value === 0) return '0'
+  let exp = Math.floor(Math.log10(Math.abs(value)))
+  let mantissa = roundSig(value / 10 ** exp, opts.digits ?? 3)
+  if (Math.abs(mantissa) >= 10) { exp += 1; mantissa = roundSig(value / 10 ** exp, opts.digits ?? 3) }
+  return `${sign(String(mantissa))} × 10${String(exp).split('').map((c) => SUPERSCRIPT[c] ?? c).join('')}`
+}
+
+/** Whether a finite, non-zero value lies outside the magnitudes the report prints with prefixes. */
+export const outOfRange = (value: number): boolean =>
+  Number.isFinite(value) && value !== 0 && (Math.abs(value) >= IN_RANGE.high || Math.abs(value) < IN_RANGE.low)
+
 /** A plain number to `digits` significant digits, no exponent for everyday sizes, U+2212 minus. */
 export function formatNumber(value: number, opts: FormatOptions = {}): string {
   const s = special(value, '')
   if (s !== null) return s
   if (value === 0) return '0'
-  return sign(String(roundSig(value, opts.digits ?? 3)))
+  if (outOfRange(value)) return `${formatScientific(value, opts)} ${OUT_OF_RANGE_FLAG}`
+  const rounded = roundSig(value, opts.digits ?? 3)
+  // JavaScript writes 1e21 and up, and below 1e-6, with an exponent: never shown as such.
+  if (Math.abs(rounded) >= 1e21 || Math.abs(rounded) < 1e-6) return formatScientific(value, opts)
+  return sign(String(rounded))
 }
 
 /** A number rounded to a fixed count of decimals with trailing zeros dropped. */
@@ -62,6 +92,7 @@ export function formatQuantity(value: number, unit: string, opts: FormatOptions 
   const s = special(value, unit)
   if (s !== null) return s
   if (value === 0) return join('0', unit)
+  if (outOfRange(value)) return `${join(formatScientific(value, opts), unit)} ${OUT_OF_RANGE_FLAG}`
   const digits = opts.digits ?? 3
   let exp = Math.max(-15, Math.min(12, Math.floor(Math.log10(Math.abs(value)) / 3) * 3))
   let mantissa = roundSig(scaleBy(value, exp), digits)
@@ -73,9 +104,13 @@ export function formatQuantity(value: number, unit: string, opts: FormatOptions 
   return join(sign(String(mantissa)), `${prefix}${unit}`)
 }
 
-/** A fraction as percent: `formatPercent(0.001)` is `0.1 %`. */
+/** A fraction as percent: `formatPercent(0.001)` is `0.1 %`; beyond 10⁶ % (or below 10⁻⁶ %) scientific and flagged. */
 export function formatPercent(fraction: number, opts: FormatOptions = {}): string {
-  return join(formatNumber(fraction * 100, opts), '%')
+  const pct = fraction * 100
+  if (Number.isFinite(pct) && pct !== 0 && (Math.abs(pct) >= 1e6 || Math.abs(pct) < 1e-6)) {
+    return `${join(formatScientific(pct, opts), '%')} ${OUT_OF_RANGE_FLAG}`
+  }
+  return join(formatNumber(pct, opts), '%')
 }
 
 /** A linear ratio in dB, 20·lg: `formatDb(1e6)` is `120 dB`. */

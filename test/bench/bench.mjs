@@ -10,7 +10,9 @@
  *   (c) notes of 50, 200 and 1,000 stages built with --format json (the 50-stage one also
  *       as PDF): time and growth per stage;
  *   (d) a no-op rebuild of 100 cached notes;
- *   (e) `build --watch`: from writing a note to its rebuilt PDF (median of 5 saves).
+ *   (e) `build --watch`: from writing a note to its rebuilt PDF (median of 5 saves);
+ *   (f) hostile text: long words and a 600 KB table cell built, nesting bombs refused by
+ *       `check` — time per MB.
  *
  * Everything is written under one temporary folder, removed at the end; sample-designs/ is
  * only read. Usage: `node test/bench/bench.mjs [--quick]` (--quick: fewer repetitions, no
@@ -363,6 +365,26 @@ const saves = await new Promise((resolvePromise, reject) => {
 })
 const saveMedian = median(saves)
 row('e', `build --watch: save → rebuilt PDF (median of ${REPEAT})`, `${saveMedian.toFixed(2)} s`, '< 1 s', saveMedian < 1)
+
+// ---------------------------------------------------------------------------------------
+// (f) Hostile text: long words and nesting bombs, time per MB (README, Limits)
+
+const hostileDir = join(TMP, 'hostile')
+mkdirSync(hostileDir)
+const hostile = [
+  ['one 200,000-character word in prose, build', 'word.md', `# Long word\n\n${'x'.repeat(200_000)}\n`, 'build'],
+  ['one 200,000-character word in a code fence, build', 'code.md', `# Long code\n\n\`\`\`\n${'y'.repeat(200_000)}\n\`\`\`\n`, 'build'],
+  ['600 KB of words in one table cell, build', 'cell.md', `# Cell\n\n| a | b |\n| - | - |\n| ${'word '.repeat(120_000)} | b |\n`, 'build'],
+  ['4 MB of nested `[`, check (refused)', 'brackets.md', `# Brackets\n\n${'['.repeat(4_000_000)}\n`, 'check'],
+  ['4 MB of `>`, check (refused)', 'quotes.md', `# Quotes\n\n${'>'.repeat(4_000_000)} x\n`, 'check']
+]
+for (const [what, name, text, command] of hostile) {
+  progress(`hostile: ${what}`)
+  writeFileSync(join(hostileDir, name), text)
+  const mb = Buffer.byteLength(text) / 1e6
+  const t = await medianOf(QUICK ? 1 : 3, () => cli([command, join(hostileDir, name), ...(command === 'build' ? ['--force'] : [])], {okCodes: [0, 1, 2]}))
+  row('f', `${what} (${mb.toFixed(2)} MB)`, `${t.toFixed(2)} s = ${(t / mb).toFixed(2)} s/MB`)
+}
 
 // ---------------------------------------------------------------------------------------
 // The table

@@ -1,13 +1,17 @@
 import {beforeAll, describe, expect, it} from 'vitest'
 import {existsSync, readFileSync, rmSync, statSync, writeFileSync} from 'node:fs'
 import {join} from 'node:path'
-import {buildKey, CACHE_FILE, imageInputsHash, type KeyParts} from '../../src/cli/cache.js'
+import {unified} from 'unified'
+import remarkParse from 'remark-parse'
+import {VFile} from 'vfile'
+import {buildKey, CACHE_FILE, type KeyParts} from '../../src/cli/cache.js'
+import {imagesUnchanged, readImages} from '../../src/cli/images.js'
 import {runCli, tempNotes} from './helpers.js'
 import {goodNote, png, tmpFiles} from './workflow-helpers.js'
 
 const PARTS: KeyParts = {
   source: new TextEncoder().encode(goodNote()), template: 'a'.repeat(64), version: '0.1.0',
-  options: JSON.stringify({formats: ['pdf'], strict: false, epoch: null, file: 'n.md'}), inputs: ''
+  options: JSON.stringify({formats: ['pdf'], strict: false, epoch: null, file: 'n.md'})
 }
 
 describe('buildKey()', () => {
@@ -19,8 +23,7 @@ describe('buildKey()', () => {
     ['the note source', {source: new TextEncoder().encode(goodNote({rf: '10k'}))}],
     ['the template folder hash', {template: 'b'.repeat(64)}],
     ['the tool version', {version: '0.1.1'}],
-    ['the options (another --format)', {options: JSON.stringify({formats: ['pdf', 'json'], strict: false, epoch: null, file: 'n.md'})}],
-    ['the embedded image files', {inputs: 'c'.repeat(64)}]
+    ['the options (another --format)', {options: JSON.stringify({formats: ['pdf', 'json'], strict: false, epoch: null, file: 'n.md'})}]
   ])('changes when %s changes', (_name, change) => {
     expect(buildKey({...PARTS, ...change})).not.toBe(buildKey(PARTS))
   })
@@ -31,22 +34,26 @@ describe('buildKey()', () => {
   })
 })
 
-describe('imageInputsHash()', () => {
-  it('changes when an image the note shows is replaced, and is empty without images', async () => {
+describe('the images a cache entry records', () => {
+  const recorded = async (md: string, dir: string) =>
+    (await readImages(unified().use(remarkParse).parse(md), join(dir, 'n.md'), new VFile())).inputs
+
+  it('are read from the parsed tree, and a replaced image no longer matches', async () => {
     const dir = tempNotes({'fig.png': png(4, 4, 10)})
-    const note = new TextEncoder().encode('# N\n\n![A board, [top] side](fig.png)\n')
-    const before = await imageInputsHash(note, join(dir, 'n.md'))
+    const inputs = await recorded('# N\n\n![A board, [top] side](fig.png)\n', dir)
+    expect(inputs.map((i) => i.url)).toEqual(['fig.png'])
+    expect(await imagesUnchanged(join(dir, 'n.md'), inputs)).toBe(true)
     writeFileSync(join(dir, 'fig.png'), png(4, 4, 200))
-    expect(await imageInputsHash(note, join(dir, 'n.md'))).not.toBe(before)
-    expect(await imageInputsHash(new TextEncoder().encode('# No images\n'), join(dir, 'n.md'))).toBe('')
+    expect(await imagesUnchanged(join(dir, 'n.md'), inputs)).toBe(false)
+    expect(await recorded('# No images\n', dir)).toEqual([])
   })
 
-  it('follows reference-style images', async () => {
+  it('follow reference-style images', async () => {
     const dir = tempNotes({'fig.png': png(4, 4, 10)})
-    const note = new TextEncoder().encode('# N\n\n![Board][b]\n\n[b]: <fig.png>\n')
-    const before = await imageInputsHash(note, join(dir, 'n.md'))
+    const inputs = await recorded('# N\n\n![Board][b]\n\n[b]: <fig.png>\n', dir)
+    expect(inputs.map((i) => i.url)).toEqual(['fig.png'])
     writeFileSync(join(dir, 'fig.png'), png(4, 4, 90))
-    expect(await imageInputsHash(note, join(dir, 'n.md'))).not.toBe(before)
+    expect(await imagesUnchanged(join(dir, 'n.md'), inputs)).toBe(false)
   })
 })
 
@@ -117,9 +124,9 @@ describe('build cache', () => {
     const r = runCli(['build', join(dir, 'n.md'), '--format', 'json'])
     expect(r.status).toBe(0)
     expect(existsSync(join(dir, 'n.json'))).toBe(true)
-    const cache = JSON.parse(readFileSync(join(dir, CACHE_FILE), 'utf8')) as {version: number; entries: Record<string, {outputs: string[]}>}
-    expect(cache.version).toBe(1)
-    expect(cache.entries[join(dir, 'n.md')]!.outputs).toEqual([join(dir, 'n.json')])
+    const cache = JSON.parse(readFileSync(join(dir, CACHE_FILE), 'utf8')) as {version: number; entries: Record<string, {outputs: {path: string}[]}>}
+    expect(cache.version).toBe(2)
+    expect(cache.entries[join(dir, 'n.md')]!.outputs.map((o) => o.path)).toEqual([join(dir, 'n.json')])
     expect(tmpFiles(dir)).toEqual([])
   })
 })

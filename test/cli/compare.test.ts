@@ -150,9 +150,9 @@ describe('compare', () => {
     expect(r.stdout).toContain('verdict amp phase-margin: met → NOT MET')
   })
 
-  it('exits 2 with git’s reason when REV:PATH does not exist', () => {
+  it('exits 2 saying so when the REV of REV:PATH is not a commit', () => {
     const r = runCli(['compare', 'no-such-revision-here:x.md', 'x.md'], {cwd: tempNotes({'x.md': goodNote()})})
     expect(r.status).toBe(2)
-    expect(r.stderr).toContain('ampreview: git could not show x.md at revision no-such-revision-here')
+    expect(r.stderr).toContain('ampreview: The revision `no-such-revision-here` is not a commit of the git repository here')
   })
 })

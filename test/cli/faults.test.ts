@@ -36,8 +36,10 @@ describe('build faults', () => {
     expect(runCli(['build', join(dir, 'n.md')]).status).toBe(0)
     writeFileSync(join(dir, 'n.md'), goodNote({title: 'Faults', rf: '9.09 mV'}))
     expect(runCli(['build', join(dir, 'n.md')]).status).toBe(2)
-    const cache = JSON.parse(readFileSync(join(dir, '.ampreview-cache.json'), 'utf8')) as {entries: Record<string, unknown>}
-    expect(Object.keys(cache.entries)).toEqual([])
+    // The failed note's entry stays, with no key (never up to date), to record which files are ours.
+    const cache = JSON.parse(readFileSync(join(dir, '.ampreview-cache.json'), 'utf8')) as {entries: Record<string, {key: string; owned: string[]}>}
+    expect(Object.values(cache.entries).map((e) => e.key)).toEqual([''])
+    expect(Object.values(cache.entries)[0]!.owned).toEqual([join(dir, 'n.pdf')])
     expect(readdirSync(dir).filter((f) => f.endsWith('.tmp'))).toEqual([])
   })
 })

@@ -80,8 +80,8 @@ describe('SIGINT during a batch', () => {
   })
 
   it('leaves a cache file that parses and lists only outputs that exist', () => {
-    const cache = JSON.parse(readFileSync(join(dir, 'out', CACHE_FILE), 'utf8')) as {entries: Record<string, {outputs: string[]}>}
-    const outputs = Object.values(cache.entries).flatMap((e) => e.outputs)
+    const cache = JSON.parse(readFileSync(join(dir, 'out', CACHE_FILE), 'utf8')) as {entries: Record<string, {outputs: {path: string}[]}>}
+    const outputs = Object.values(cache.entries).flatMap((e) => e.outputs.map((o) => o.path))
     expect(outputs.length).toBeGreaterThanOrEqual(1)
     for (const o of outputs) expect(existsSync(o), o).toBe(true)
   })

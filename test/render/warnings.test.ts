@@ -55,7 +55,7 @@ describe('renderPdf() warnings', () => {
 
   it('prints a placeholder for bytes that are not PNG or JPEG', async () => {
     const out = await render('![Scan](scan.png)', [], new Map([['scan.png', new Uint8Array([1, 2, 3, 4])]]))
-    expect(out.warnings[0]).toMatch(/`scan\.png` could not be read/)
+    expect(out.warnings[0]).toMatch(/`scan\.png` could not be used \(only PNG and JPEG images are supported\)/)
   })
 
   it('embeds a PNG given in the image map, without a warning', async () => {

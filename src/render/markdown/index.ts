@@ -8,6 +8,7 @@ import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
 import {verdictText} from '../../report/format.js'
 import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
+import {webLink} from '../links.js'
 import type {FigureNode, ReportDocument} from '../../report/types.js'
 import type {CompiledFigures} from '../chart/compile.js'
 
@@ -24,7 +25,10 @@ interface Figures {
 }
 
 /** Our own node types mapped onto plain mdast. */
-function plain(nodes: RootContent[], figures: Figures): RootContent[] {
+/** Nodes whose children are phrasing content. */
+const PHRASING_PARENTS = new Set(['paragraph', 'heading', 'emphasis', 'strong', 'delete', 'link', 'linkReference', 'tableCell'])
+
+function plain(nodes: RootContent[], figures: Figures, phrasing = false): RootContent[] {
   const out: RootContent[] = []
   for (const node of nodes) {
     switch (node.type) {
@@ -46,13 +50,22 @@ function plain(nodes: RootContent[], figures: Figures): RootContent[] {
         break
       case 'pageBreak':
         break
+      // Raw HTML of the note is text in the report, as in the PDF: never passed through.
+      case 'html':
+        out.push(phrasing ? text(node.value) : paragraph(node.value))
+        break
+      // A link to anything but the web or mail keeps its text only, as in the PDF.
+      case 'link':
+        if (webLink(node.url) === null) out.push(...plain(node.children, figures, true))
+        else out.push({...node, children: plain(node.children, figures, true)} as RootContent)
+        break
       case 'stageBlock':
       case 'opampBlock':
         out.push(paragraph(`(block ${node.id} not evaluated)`))
         break
       default:
         if ('children' in node && Array.isArray(node.children)) {
-          out.push({...node, children: plain(node.children as RootContent[], figures)} as RootContent)
+          out.push({...node, children: plain(node.children as RootContent[], figures, phrasing || PHRASING_PARENTS.has(node.type))} as RootContent)
         } else {
           out.push(node)
         }

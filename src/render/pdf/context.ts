@@ -8,6 +8,7 @@ import type {DrawnFigure} from '../chart/compile.js'
 import type {FigureNode} from '../../report/types.js'
 import {FONT_NAMES, type FontKey, type LoadedFonts} from './fonts.js'
 import type {GlyphChecker} from './glyphs.js'
+import {breakLongWords} from './long-words.js'
 import {maxY, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
 import type {Theme} from './theme.js'
 import type {Warnings} from './warnings.js'
@@ -74,22 +75,30 @@ export function bodyStyle(ctx: RenderContext): TextStyle {
   return {font: 'regular', size: ctx.theme.fontSizes.body, color: ctx.theme.colours.text}
 }
 
+/**
+ * Text as pdfkit gets it, in the style already applied: glyphs checked, and words wider
+ * than the line cut into line-wide pieces (long-words.ts: pdfkit's own cutting is quadratic).
+ */
+export function layoutText(ctx: RenderContext, text: string, font: FontKey, size: number, width: number, report = true): string {
+  return breakLongWords(ctx.glyphs.clean(text, font, report), width, size, (ch) => ctx.doc.widthOfString(ch))
+}
+
 /** Height of a one-style string `width` wide, measured as drawn. */
 export function measureText(ctx: RenderContext, text: string, style: TextStyle, width: number, options: TextOptions = {}): number {
   applyStyle(ctx, style)
-  return ctx.doc.heightOfString(ctx.glyphs.clean(text, style.font), {width, lineGap: ctx.theme.lineGap, ...options})
+  return ctx.doc.heightOfString(layoutText(ctx, text, style.font, style.size, width), {width, lineGap: ctx.theme.lineGap, ...options})
 }
 
 /** Like `measureText`, for an estimate in a style the text is not drawn in: no glyph warnings. */
 export function estimateText(ctx: RenderContext, text: string, style: TextStyle, width: number): number {
   applyStyle(ctx, style)
-  return ctx.doc.heightOfString(ctx.glyphs.clean(text, style.font, false), {width, lineGap: ctx.theme.lineGap})
+  return ctx.doc.heightOfString(layoutText(ctx, text, style.font, style.size, width, false), {width, lineGap: ctx.theme.lineGap})
 }
 
 /** Draws a one-style string at (x, y) wrapped to `width`; leaves `doc.y` below it. */
 export function drawText(ctx: RenderContext, text: string, style: TextStyle, x: number, y: number, width: number, options: TextOptions = {}): void {
   applyStyle(ctx, style)
-  ctx.doc.text(ctx.glyphs.clean(text, style.font), x, y, {width, lineGap: ctx.theme.lineGap, ...options})
+  ctx.doc.text(layoutText(ctx, text, style.font, style.size, width), x, y, {width, lineGap: ctx.theme.lineGap, ...options})
 }
 
 /** Space left on the current page below `doc.y`, pt. */

@@ -5,6 +5,7 @@
  * text and raises a warning.
  */
 import {drawText, keepSpace, measureText, pageBodyHeight, type RenderContext} from './context.js'
+import {checkImage} from './image-check.js'
 import type {PdfImage} from './pdfkit.js'
 
 function placeholder(ctx: RenderContext, url: string, alt: string, why: string): void {
@@ -25,6 +26,9 @@ export function drawImage(ctx: RenderContext, url: string, alt: string): void {
   const {doc, theme} = ctx
   const bytes = ctx.images.get(url)
   if (bytes === undefined) return placeholder(ctx, url, alt, 'was not found')
+  // The header is checked against the data first: pdfkit trusts it (image-check.ts).
+  const check = checkImage(bytes)
+  if (!check.ok) return placeholder(ctx, url, alt, `could not be used (${check.why})`)
   let image: PdfImage
   try {
     image = doc.openImage(bytes)

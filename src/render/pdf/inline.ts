@@ -5,9 +5,10 @@
  * alt text. HTML is printed as written, never interpreted.
  */
 import type {PhrasingContent} from 'mdast'
-import {applyStyle, type RenderContext} from './context.js'
+import {applyStyle, layoutText, type RenderContext} from './context.js'
 import type {FontKey} from './fonts.js'
 import type {TextOptions} from './pdfkit.js'
+import {webLink} from '../links.js'
 import {textContent} from './text-content.js'
 
 export interface Run {
@@ -83,10 +84,10 @@ export function runsOf(ctx: RenderContext, nodes: PhrasingContent[], base: RunBa
         case 'delete': walk(node.children, {...state, strike: true}); break
         case 'inlineCode': push(node.value, state, true); break
         case 'break': push('\n', state); break
-        case 'link': walk(node.children, {...state, link: node.url}); break
+        case 'link': walk(node.children, {...state, link: webLink(node.url)}); break
         case 'linkReference': {
           const def = ctx.definitions.get(node.identifier.toLowerCase())
-          walk(node.children, def === undefined ? state : {...state, link: def.url})
+          walk(node.children, def === undefined ? state : {...state, link: webLink(def.url)})
           break
         }
         case 'image':
@@ -142,7 +143,7 @@ export function drawRuns(ctx: RenderContext, runs: Run[], x: number, y: number, 
       underline: run.underline,
       strike: run.strike,
     }
-    const text = ctx.glyphs.clean(run.text, run.font)
+    const text = layoutText(ctx, run.text, run.font, run.size, width)
     if (i === 0) doc.text(text, x, y, options)
     else doc.text(text, options)
   })

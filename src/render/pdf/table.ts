@@ -10,6 +10,7 @@ import {
 } from './context.js'
 import type {FontKey} from './fonts.js'
 import {drawShape} from './shapes.js'
+import {maxCharsInBox} from './long-words.js'
 import {splitToHeight} from './split.js'
 import {textContent} from './text-content.js'
 import type {CalloutKind} from './theme.js'
@@ -61,7 +62,9 @@ function columnWidths(ctx: RenderContext, spec: TableSpec, pad: number, shapeSiz
       applyStyle(ctx, style)
       const extra = 2 * pad + (cell.shape === undefined ? 0 : shapeSize + 3)
       const text = ctx.glyphs.clean(cell.text, style.font)
-      const longestWord = Math.max(0, ...text.split(/\s+/).map((w) => ctx.doc.widthOfString(w)))
+      // A loop, not a spread: a cell of 100,000 words would overflow the stack as arguments.
+      let longestWord = 0
+      for (const w of text.split(/\s+/)) if (w !== '') longestWord = Math.max(longestWord, ctx.doc.widthOfString(w))
       min[c] = Math.max(min[c] as number, Math.min(longestWord + extra, total * 0.45))
       max[c] = Math.max(max[c] as number, ctx.doc.widthOfString(text) + extra + 1)
     })
@@ -74,16 +77,23 @@ function columnWidths(ctx: RenderContext, spec: TableSpec, pad: number, shapeSiz
   return min.map((w, i) => w + (((max[i] as number) - w) * (total - sumMin)) / (sumMax - sumMin))
 }
 
-function cellHeight(ctx: RenderContext, layout: Layout, cell: Cell, width: number, header: boolean): number {
+/**
+ * A cell's height; a cell holding more characters than can fit in `cap` points is not
+ * measured (it is certainly taller) and counts as just over `cap`, so a huge cell split
+ * over many pages is never measured whole once a page.
+ */
+function cellHeight(ctx: RenderContext, layout: Layout, cell: Cell, width: number, header: boolean, cap = Infinity): number {
   const inner = width - 2 * layout.pad - shapeExtra(layout, cell)
   const style = cellStyle(ctx, cell, header)
   const line = measureText(ctx, 'Ag', style, inner)
+  if (cell.text.length > maxCharsInBox(inner, cap, style.size, line)) return cap + 1
   return Math.max(line, cell.text === '' ? 0 : measureText(ctx, cell.text, style, inner))
 }
 
-function rowHeight(ctx: RenderContext, layout: Layout, row: Cell[], header: boolean, minRow: number): number {
-  const heights = layout.widths.map((w, c) => cellHeight(ctx, layout, row[c] ?? {text: ''}, w, header))
-  return Math.max(minRow, Math.max(...heights) + 2 * layout.pad)
+function rowHeight(ctx: RenderContext, layout: Layout, row: Cell[], header: boolean, minRow: number, cap = Infinity): number {
+  let tallest = 0
+  layout.widths.forEach((w, c) => { tallest = Math.max(tallest, cellHeight(ctx, layout, row[c] ?? {text: ''}, w, header, cap)) })
+  return Math.max(minRow, tallest + 2 * layout.pad)
 }
 
 function drawRow(ctx: RenderContext, spec: TableSpec, layout: Layout, row: Cell[], y: number, height: number, kind: 'header' | 'odd' | 'even'): void {
@@ -133,12 +143,12 @@ export function drawTable(ctx: RenderContext, spec: TableSpec): void {
     const kind = r % 2 === 0 ? 'even' : 'odd'
     let row = original
     for (;;) {
-      const h = rowHeight(ctx, layout, row, false, minRow)
+      const fresh = doc.page.height - doc.page.margins.top - doc.page.margins.bottom - headerH
+      const h = rowHeight(ctx, layout, row, false, minRow, fresh)
       if (h <= spaceLeft(ctx)) {
         drawRow(ctx, spec, layout, row, doc.y, h, kind)
         return
       }
-      const fresh = doc.page.height - doc.page.margins.top - doc.page.margins.bottom - headerH
       const oneLine = rowHeight(ctx, layout, row.map(() => ({text: 'Ag'})), false, 0)
       if (h <= fresh || spaceLeft(ctx) < oneLine + 1) {
         newPage(ctx)
