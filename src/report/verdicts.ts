@@ -72,7 +72,7 @@ export function margin(r: RequirementResult, t: Topology): string {
     }
     if (r.key === 'slew' || r.key === 'output-current') {
       const m = r.limit - r.value
-      const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+      const rel = relativeMargin(m, r.limit)
       const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
       return q(m, unit) + rel + fpbw
     }
@@ -82,8 +82,14 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = r.limit !== 0 ? ` (${((m / Math.abs(r.limit)) * 100).toFixed(0)} %)` : ''
+  const rel = relativeMargin(m, r.limit)
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
+}
+
+/** The margin as a percentage of the limit, or nothing when that is not a printable number (a limit of 0, or a value far outside any usual range). */
+function relativeMargin(m: number, limit: number): string {
+  const pct = (m / Math.abs(limit)) * 100
+  return limit !== 0 && Number.isFinite(pct) && Math.abs(pct) < 1e6 ? ` (${pct.toFixed(0)} %)` : ''
 }
 
 /** The cover's rows: every requirement and every checked limit (skipped limits are in the stage sections). */
