@@ -61,6 +61,14 @@ export const limitText = (r: RequirementResult, t: Topology): string => {
   return `≤ ${requirementValue(r, 'limit', t)}`
 }
 
+/** The margin as a share of the limit, " (16 %)"; beyond ±10 000 % it says so rather than print an exponent. */
+function relative(m: number, limit: number): string {
+  if (limit === 0) return ''
+  const p = (m / Math.abs(limit)) * 100
+  if (!Number.isFinite(p)) return ''
+  return Math.abs(p) >= 1e4 ? ` (${p < 0 ? 'below −' : 'over '}10 000 %)` : ` (${p.toFixed(0)} %)`
+}
+
 /** Margin to the limit, signed so that positive is good, in the requirement's unit. */
 export function margin(r: RequirementResult, t: Topology): string {
   if (r.kind === 'limit') {
@@ -72,7 +80,7 @@ export function margin(r: RequirementResult, t: Topology): string {
     }
     if (r.key === 'slew' || r.key === 'output-current') {
       const m = r.limit - r.value
-      const rel = relativeMargin(m, r.limit)
+      const rel = relative(m, r.limit)
       const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
       return q(m, unit) + rel + fpbw
     }
@@ -82,14 +90,8 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = relativeMargin(m, r.limit)
+  const rel = relative(m, r.limit)
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
-}
-
-/** The margin as a percentage of the limit, or nothing when that is not a printable number (a limit of 0, or a value far outside any usual range). */
-function relativeMargin(m: number, limit: number): string {
-  const pct = (m / Math.abs(limit)) * 100
-  return limit !== 0 && Number.isFinite(pct) && Math.abs(pct) < 1e6 ? ` (${pct.toFixed(0)} %)` : ''
 }
 
 /** The cover's rows: every requirement and every checked limit (skipped limits are in the stage sections). */

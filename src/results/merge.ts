@@ -12,7 +12,7 @@ export class MergeError extends Error {}
 /** The exit code of one note from its result: the rule of the `build` and `check` commands. */
 export function noteExitCode(n: Pick<JsonNote, 'diagnostics' | 'stages'>): 0 | 1 | 2 {
   if (n.diagnostics.some((d) => d.severity === 'error')) return 2
-  return n.stages.some((s) => s.requirements.some((r) => !r.met)) ? 1 : 0
+  return n.stages.some((s) => s.requirements.some((r) => r.met === false)) ? 1 : 0
 }
 
 /** Merge runs given by name (for messages); a note in two runs is an error. */
