@@ -20,9 +20,11 @@ export interface CliArgs {
   force: boolean
   quiet: boolean
   watch: boolean
-  /** Worker threads; null = one per core. */
+  /** Worker threads; null = one per free core. */
   jobs: number | null
   markdown: boolean
+  /** compare: relative change below which a value is left out, a fraction (default 0.001 = 0.1 %). */
+  threshold: number
   topology: Topology
   strict: boolean
   debug: boolean
@@ -32,10 +34,13 @@ export interface CliArgs {
 
 export class UsageError extends Error {}
 
+/** compare's default threshold: changes under 0.1 % are rounding, not news. */
+export const DEFAULT_THRESHOLD = 0.001
+
 export const USAGE = `Usage:
   ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch] [--shard I/N]
   ampreview check NOTE… [--json] [--shard I/N]
-  ampreview compare OLD NEW [--markdown]
+  ampreview compare OLD NEW [--markdown] [--threshold P%]
   ampreview merge RESULT.json…
   ampreview new FILE [--topology noninverting|inverting|follower|transimpedance]
   ampreview --help | --version
@@ -49,10 +54,11 @@ Options:
   --format LIST  build outputs, comma-separated: pdf (default), json, md (Markdown + SVG charts)
   --force        rebuild notes even when their outputs are up to date
   --watch        keep running and rebuild a note each time it is saved
-  --jobs N       worker threads for a batch (default: one per core)
+  --jobs N       worker threads for a batch (default: one per free core)
   --shard I/N    only the notes of shard I of N (split by a hash of each note's path)
   --json         check: print one JSON object on stdout; diagnostics also go to stderr
   --markdown     compare: print the comparison as Markdown (for a CI comment)
+  --threshold P% compare: leave out values that changed by less than P % (default 0.1 %)
   --topology T   new: the stage topology of the starting note (default noninverting)
   --quiet        print only diagnostics
   --strict       treat warnings as errors
@@ -82,7 +88,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
       options: {
         out: {type: 'string'}, format: {type: 'string'}, jobs: {type: 'string'}, topology: {type: 'string'},
         json: {type: 'boolean'}, force: {type: 'boolean'}, quiet: {type: 'boolean', short: 'q'}, watch: {type: 'boolean'},
-        markdown: {type: 'boolean'}, strict: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
+        markdown: {type: 'boolean'}, threshold: {type: 'string'}, strict: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
         help: {type: 'boolean', short: 'h'}, version: {type: 'boolean', short: 'v'}
       }
     })
@@ -94,7 +100,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
   const command: CliArgs['command'] = v.help ? 'help' : v.version ? 'version' : (first as Command)
   const args: CliArgs = {
     command, operands, out: v.out ?? null, json: v.json ?? false, formats: ['pdf'], force: v.force ?? false,
-    quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false,
+    quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false, threshold: DEFAULT_THRESHOLD,
     topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false, shard: null
   }
   if (command === 'help' || command === 'version') return args
@@ -109,6 +115,12 @@ export function parseCliArgs(argv: string[]): CliArgs {
   if (v.watch) only(cmd, '--watch', ['build'])
   if (v.json) only(cmd, '--json', ['check'])
   if (v.markdown) only(cmd, '--markdown', ['compare'])
+  if (v.threshold !== undefined) {
+    only(cmd, '--threshold', ['compare'])
+    const m = /^\s*(\d+(?:\.\d+)?)\s*%\s*$/.exec(v.threshold)
+    if (m === null) throw new UsageError(`Unexpected \`--threshold ${v.threshold}\`, expected a percentage such as \`1%\``)
+    args.threshold = Number(m[1]) / 100
+  }
   if (v.jobs !== undefined) {
     only(cmd, '--jobs', ['build', 'check'])
     if (!/^[1-9]\d*$/.test(v.jobs)) throw new UsageError(`Unexpected \`--jobs ${v.jobs}\`, expected a whole number ≥ 1`)

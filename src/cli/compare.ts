@@ -97,8 +97,8 @@ async function load(side: string, res: Resources): Promise<RunJson> {
 }
 
 /** Prints the comparison; returns the exit code (1 when a verdict went from met to not met). */
-export async function compareCommand(oldSide: string, newSide: string, markdown: boolean, res: Resources, out: (s: string) => void): Promise<number> {
-  const c = compareRuns(await load(oldSide, res), await load(newSide, res))
+export async function compareCommand(oldSide: string, newSide: string, markdown: boolean, res: Resources, out: (s: string) => void, threshold = 0.001): Promise<number> {
+  const c = compareRuns(await load(oldSide, res), await load(newSide, res), {threshold})
   out(comparisonText(c, markdown))
   return c.regressed ? 1 : 0
 }

@@ -19,14 +19,16 @@ import {basename, dirname, extname, join, resolve} from 'node:path'
 import type {Root} from 'mdast'
 import {VFile} from 'vfile'
 import {decodeNote, parseNote} from '../note/index.js'
-import {evaluateNote, type StageEvaluation} from '../evaluate/index.js'
-import {jsonStage, noteJson, toJson, type JsonStage} from '../results/json.js'
+import {evaluateNoteWithChains, type ChainEvaluation, type StageEvaluation} from '../evaluate/index.js'
+import {jsonChain, jsonStage, noteJson, toJson, type JsonChain, type JsonStage} from '../results/json.js'
+import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
+import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js'
 import type {FontSet} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
 import {recordOf, type OutputRecord} from './cache.js'
 import {reportDate} from './dates.js'
-import {diagnosticsOf, hasErrors, type Diagnostic} from './diagnostics.js'
+import {cliDiagnostic, diagnosticsOf, hasErrors, strictly, type Diagnostic} from './diagnostics.js'
 import {readImages, type ImageInput, type NoteImages} from './images.js'
 import {loadTemplate, type Template} from './resources.js'
 import {writeAllAtomic} from './write.js'
@@ -75,7 +77,9 @@ export interface NoteOutcome {
   diagnostics: Diagnostic[]
   /** The DESIGN §6 result of each evaluated stage. */
   stages: JsonStage[]
-  /** Requirements met and not met, over all stages. */
+  /** The DESIGN §8.6 result of each evaluated chain (absent where nothing was evaluated). */
+  chains?: JsonChain[]
+  /** Requirements met and not met, over all stages and chains. */
   met: number
   notMet: number
   /** 0 all met, 1 a requirement not met, 2 could not be evaluated. */
@@ -96,7 +100,7 @@ export interface NoteResult {
 }
 
 export const failedOutcome = (file: string, message: string, sha = ''): NoteOutcome => ({
-  file, sourceSha256: sha, diagnostics: [{severity: 'error', message, line: 1, column: 1}], stages: [], met: 0, notMet: 0, exitCode: 2, outputs: []
+  file, sourceSha256: sha, diagnostics: [cliDiagnostic('error', message)], stages: [], chains: [], met: 0, notMet: 0, exitCode: 2, outputs: []
 })
 
 /** A file beside a note's outputs: `<outDir or the note's folder>/<name>.<ext>`. */
@@ -144,26 +148,59 @@ export async function readNote(path: string, res: Resources): Promise<{ok: true;
 
 /**
  * Place a message for each requirement not met at its key in the block, and one for each
- * practice note of severity `warning` or `caution` at the block's fence, so that CI logs show them.
+ * practice note of severity `warning` or `caution` at the block's fence, so that CI logs show
+ * them, each with its rule id. A note the author accepted, and everything a `baseline` stage
+ * raises, is an info message instead: shown, never a warning or a failure.
  */
 function markUnmet(file: VFile, evaluations: StageEvaluation[]): void {
   for (const ev of evaluations) {
+    const baseline = ev.role === 'baseline'
     for (const n of ev.notes) {
       if (n.severity !== 'warning' && n.severity !== 'caution') continue
-      file.message(`Stage \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place: ev.block.position?.start, ruleId: n.rule, source: 'ampreview'})
+      const opts = {place: ev.block.position?.start, ruleId: n.rule, source: 'ampreview'}
+      if (n.accepted !== undefined) file.info(`Stage \`${ev.input.id}\`: accepted by the author (${n.accepted}): ${n.text}`, opts)
+      else if (baseline) file.info(`Baseline stage \`${ev.input.id}\` (not counted): ${n.text}`, opts)
+      else file.message(`Stage \`${ev.input.id}\`: ${n.text}`, opts)
     }
     for (const r of ev.result.requirements) {
       if (r.met !== false) continue
       const t = ev.input.topology
       if (r.kind === 'limit') {
-        file.message(`Limit \`${r.key}\` of stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${limitText(r, t)}`,
-          {place: ev.block.position?.start, ruleId: 'limit-not-met', source: 'ampreview'})
+        const text = `Limit \`${r.key}\` of ${baseline ? 'baseline ' : ''}stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${limitText(r, t)}`
+        const opts = {place: ev.block.position?.start, ruleId: 'limit-not-met', source: 'ampreview'}
+        if (baseline) file.info(`${text} (a baseline stage: shown, not counted)`, opts)
+        else file.message(text, opts)
         continue
       }
       const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
       const sense = REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
-      file.message(`Requirement \`${r.key}\` of stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${sense} ${requirementValue(r, 'limit', t)}`,
-        {place: entry ? {line: entry.line, column: entry.column} : ev.block.position?.start, ruleId: 'requirement-not-met', source: 'ampreview'})
+      const text = `Requirement \`${r.key}\` of ${baseline ? 'baseline ' : ''}stage \`${ev.input.id}\` not met: ${requirementValue(r, 'value', t)}, expected ${sense} ${requirementValue(r, 'limit', t)}`
+      const opts = {place: entry ? {line: entry.line, column: entry.column} : ev.block.position?.start, ruleId: 'requirement-not-met', source: 'ampreview'}
+      if (baseline) file.info(`${text} (a baseline stage: shown, not counted)`, opts)
+      else file.message(text, opts)
+    }
+  }
+}
+
+/** The same for chains: a note at the chain block for each practice note and each verdict not met. */
+function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
+  for (const ev of chains) {
+    const place = ev.block.position?.start
+    for (const n of ev.notes) {
+      if (n.severity !== 'warning' && n.severity !== 'caution') continue
+      file.message(`Chain \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place, ruleId: n.rule, source: 'ampreview'})
+    }
+    for (const r of ev.result.requirements) {
+      if (r.met !== false) continue
+      if (r.kind === 'limit') {
+        file.message(`Limit \`${r.key}\` of chain \`${ev.input.id}\` not met: ${chainRequirementValue(ev, r, 'value')}, expected ${chainLimitText(ev, r)}`,
+          {place, ruleId: 'limit-not-met', source: 'ampreview'})
+        continue
+      }
+      const entry = ev.block.entries.find((e) => e.key === `require.${r.key}`)
+      const sense = CHAIN_REQUIREMENT_KEYS[r.key].sense === 'max' ? 'at most' : 'at least'
+      file.message(`Requirement \`${r.key}\` of chain \`${ev.input.id}\` not met: ${chainRequirementValue(ev, r, 'value')}, expected ${sense} ${chainRequirementValue(ev, r, 'limit')}`,
+        {place: entry ? {line: entry.line, column: entry.column} : place, ruleId: 'requirement-not-met', source: 'ampreview'})
     }
   }
 }
@@ -189,19 +226,25 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   }
 
   // 2. Evaluate: engine and rules, per stage.
-  const evaluations = evaluateNote(parsed, file)
+  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file)
   markUnmet(file, evaluations)
+  markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')
   const {images, inputs} = wantPdf ? await res.images(parsed.tree, file) : {images: new Map<string, Uint8Array>(), inputs: []}
 
   let diagnostics = diagnosticsOf(file)
-  if (opts.strict) diagnostics = diagnostics.map((d) => (d.severity === 'warning' && !d.message.startsWith('Requirement ') && !d.message.startsWith('Limit ') ? {...d, severity: 'error'} : d))
-  const requirements = evaluations.flatMap((ev) => ev.result.requirements)
-  // A limit not met fails like a requirement (exit 1); a skipped limit (met null) counts neither way.
+  if (opts.strict) diagnostics = strictly(diagnostics)
+  // Baseline stages are shown but not counted (exit code, summary). A limit not met fails
+  // like a requirement (exit 1); a skipped limit (met null) counts neither way. Chain
+  // verdicts count like a stage's.
+  const requirements: {met: boolean | null}[] = [
+    ...evaluations.filter((ev) => ev.role !== 'baseline').flatMap((ev) => ev.result.requirements),
+    ...chains.flatMap((ev) => ev.result.requirements)
+  ]
   const notMet = requirements.filter((r) => r.met === false).length
   const exitCode = hasErrors(diagnostics) || template === null ? 2 : notMet > 0 ? 1 : 0
   const outcome: NoteOutcome = {
-    file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage),
+    file: name, sourceSha256: sha, diagnostics, stages: evaluations.map(jsonStage), chains: chains.map(jsonChain),
     met: requirements.filter((r) => r.met === true).length, notMet, exitCode, outputs: [], inputs
   }
   if (opts.formats.length === 0 || exitCode === 2 || template === null) return {outcome, files: []}
@@ -217,7 +260,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
     import('../report/build.js'), import('../render/chart/compile.js'), import('../render/pdf/index.js'), import('../render/markdown/index.js'), res.fonts()
   ])
   const report = buildReport({
-    parsed, evaluations,
+    parsed, evaluations, chains,
     fragments: {method: template.method, closing: template.closing},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })
@@ -233,7 +276,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
     renderWarnings = rendered.warnings
     files.push({name: outputName(name, 'pdf'), data: rendered.pdf})
   }
-  const warnings = [...report.warnings, ...figures.warnings, ...renderWarnings].map((message): Diagnostic => ({severity: 'warning', message, line: 1, column: 1}))
+  const warnings = [...report.warnings, ...figures.warnings, ...renderWarnings].map((message): Diagnostic => cliDiagnostic('warning', message, 'build'))
   const final = {...outcome, diagnostics: [...diagnostics, ...warnings]}
   if (opts.formats.includes('json')) files.push(jsonFile(final))
   if (opts.formats.includes('md')) {
@@ -257,8 +300,8 @@ export async function writeOutputs(result: NoteResult, outDir: string | null, ow
   if (owned !== undefined) {
     for (const [path] of files) {
       if (owned.includes(path) || !(await lstat(path).then(() => true, () => false))) continue
-      const d: Diagnostic = {severity: 'error', line: 1, column: 1,
-        message: `Not written: ${path} exists and was not written by ampreview for this note; no output file was replaced (remove it, build into another folder with --out, or replace it with --force)`}
+      const d: Diagnostic = cliDiagnostic('error',
+        `Not written: ${path} exists and was not written by ampreview for this note; no output file was replaced (remove it, build into another folder with --out, or replace it with --force)`, 'build')
       return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
     }
   }
@@ -270,8 +313,7 @@ export async function writeOutputs(result: NoteResult, outDir: string | null, ow
     const why = code === 'EACCES' || code === 'EPERM' ? 'permission denied'
       : code === 'ENOSPC' ? 'no space left on the device' : code === 'EROFS' ? 'read-only file system'
         : error instanceof Error ? error.message : String(error)
-    const d: Diagnostic = {severity: 'error', line: 1, column: 1,
-      message: `Cannot write the outputs of this note (${why}); no output file was replaced (choose another folder with --out)`}
+    const d: Diagnostic = cliDiagnostic('error', `Cannot write the outputs of this note (${why}); no output file was replaced (choose another folder with --out)`, 'build')
     return {...o, diagnostics: [...o.diagnostics, d], exitCode: 2, outputs: []}
   }
 }

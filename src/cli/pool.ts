@@ -1,9 +1,9 @@
 /**
  * Where notes are processed: in this thread for a small batch, or on a pool of worker
- * threads (one per core by default) for a larger one. Either way a caller gets one
+ * threads (one per free core by default, see `freeCores`) for a larger one. Either way a caller gets one
  * promise per note.
  */
-import {availableParallelism} from 'node:os'
+import {availableParallelism, loadavg} from 'node:os'
 import {Worker} from 'node:worker_threads'
 import {failedOutcome, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
 import type {WorkerReply, WorkerRequest} from './worker.js'
@@ -85,9 +85,18 @@ export function workerPool(size: number): NoteRunner {
   }
 }
 
+/**
+ * Threads worth starting by default: the cores not already busy (one-minute load average;
+ * 0 where the system reports none), at least one. A worker costs a load of the modules
+ * (about 0.5 s of CPU), which pays only when a core is free to run it; on a busy machine the
+ * notes run faster in this thread. `--jobs N` overrides it. The outputs do not depend on it.
+ */
+export const freeCores = (cores = availableParallelism(), load = loadavg()[0] ?? 0): number =>
+  Math.max(1, Math.min(cores, Math.round(cores - load)))
+
 /** The runner for `count` notes: in this thread for small or check-only batches, else a pool. */
 export function runnerFor(count: number, jobs: number | null, res: Resources, building: boolean): NoteRunner {
-  const size = Math.min(jobs ?? availableParallelism(), count)
+  const size = Math.min(jobs ?? freeCores(), count)
   // Evaluating without writing takes milliseconds a note: a worker's start-up would cost more.
   return size <= 1 || (jobs === null && (count <= 2 || !building)) ? inThread(res) : workerPool(size)
 }

@@ -56,8 +56,10 @@ export async function loadFonts(): Promise<FontSet> {
 export interface Template {
   name: string
   theme: Theme
-  method: Root
-  closing: Root
+  /** The method appendix, parsed (on first read). */
+  readonly method: Root
+  /** The sign-off and closing text, parsed (on first read). */
+  readonly closing: Root
 }
 
 const parseMarkdown = (md: string): Root => unified().use(remarkParse).use(remarkGfm).runSync(unified().use(remarkParse).use(remarkGfm).parse(md)) as Root
@@ -116,7 +118,15 @@ export async function loadTemplate(name: string, seen: readonly string[] = []): 
     texts[k] = text
   }
   templateSources.set(name, {themeJson, texts})
-  return {name, theme: parseTheme(themeJson), method: parseMarkdown(texts.method), closing: parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)}
+  // The fragments are parsed on first use: `check` reads the template (a missing or broken
+  // one is an error there too) but never the parsed fragments, which only a report needs.
+  let method: Root | null = null
+  let closing: Root | null = null
+  return {
+    name, theme: parseTheme(themeJson),
+    get method(): Root { return (method ??= parseMarkdown(texts.method)) },
+    get closing(): Root { return (closing ??= parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)) }
+  }
 }
 
 /** Raw sources of templates already read, for templates that extend them. */

@@ -5,33 +5,76 @@
 import type {VFile} from 'vfile'
 import {evaluateStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
-import type {ParsedNote, StageBlockNode} from '../note/types.js'
+import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
 import type {RuleNote} from '../rules/types.js'
+import {chainedInput, chainPlan, evaluateChains, type ChainEvaluation} from './chains.js'
+
+export {chainPlan, chainedInput, evaluateChains, outputSpanOf, type ChainEvaluation, type ChainPlan, type EvaluatedStage} from './chains.js'
+import {applyWaivers, roleOf, waiversOf} from './waivers.js'
+
+export {evaluateMessages, roleOf} from './waivers.js'
 
 export interface StageEvaluation {
   block: StageBlockNode
   input: StageInput
   result: StageResult
+  /** The rules' notes, those of accepted rules marked with the author's reason. */
   notes: RuleNote[]
+  /** `baseline` stages are shown but count toward neither the verdict nor the exit code. */
+  role: StageRole
 }
 
-/** Evaluate every stage of the note whose block parsed cleanly, in document order. */
+/**
+ * Evaluate every stage of the note whose block parsed cleanly, returned in document order.
+ * Stages of a chain are evaluated in signal order, each later one on the output range of
+ * the one before (DESIGN §8.6, ./chains.ts); a stage that leaves its input to a chain that
+ * could not be read is not evaluated (the chain's errors say why).
+ */
 export function evaluateNote(parsed: ParsedNote, file: VFile): StageEvaluation[] {
-  const out: StageEvaluation[] = []
-  for (const block of parsed.stages) {
-    if (block.input === null) continue
-    try {
-      const result = evaluateStage(block.input)
-      const notes = runRules({input: block.input, result, context: parsed.meta.context})
-      out.push({block, input: block.input, result, notes})
-    } catch (error) {
-      const m = file.message(
-        `Could not evaluate stage \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,
-        {place: block.position?.start, ruleId: 'evaluation-failed', source: 'ampreview'}
-      )
-      m.fatal = true
-    }
+  return evaluateNoteWithChains(parsed, file).stages
+}
+
+/** Evaluate the note's stages, then its chains from those evaluations. */
+export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
+  const plan = chainPlan(parsed)
+  const byId = new Map(parsed.stages.filter((b) => b.input !== null).map((b) => [b.id, b] as const))
+  const done = new Map<StageBlockNode, StageEvaluation>()
+  const spans = new Map<string, [number, number]>()
+  const order: StageBlockNode[] = []
+  for (const {input} of plan.chains) for (const id of input.stages) {
+    const b = byId.get(id)
+    if (b !== undefined && !order.includes(b)) order.push(b)
   }
-  return out
+  for (const b of parsed.stages) if (!order.includes(b)) order.push(b)
+  for (const block of order) {
+    if (block.input === null) continue
+    if (block.inputFromChain === true && !plan.previous.has(block.id)) continue
+    const ev = evaluateOne(block, chainedInput(block, block.input, plan, spans, file), parsed, file)
+    if (ev === null) continue
+    done.set(block, ev)
+    spans.set(block.id, [ev.result.swing.outputSpan[0], ev.result.swing.outputSpan[1]])
+  }
+  const stages = parsed.stages.flatMap((b) => {
+    const ev = done.get(b)
+    return ev === undefined ? [] : [ev]
+  })
+  const chains = evaluateChains(plan, new Map(stages.map((ev) => [ev.input.id, ev] as const)), file)
+  return {stages, chains}
+}
+
+function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNote, file: VFile): StageEvaluation | null {
+  const waivers = waiversOf(block, file)
+  try {
+    const result = evaluateStage(input)
+    const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
+    return {block, input, result, notes, role: roleOf(block)}
+  } catch (error) {
+    const m = file.message(
+      `Could not evaluate stage \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,
+      {place: block.position?.start, ruleId: 'evaluation-failed', source: 'ampreview'}
+    )
+    m.fatal = true
+    return null
+  }
 }

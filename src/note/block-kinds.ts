@@ -17,6 +17,10 @@ import type {InaParams} from '../engine/types.js'
 import type {OpampRegistry} from './opamp-registry.js'
 import {buildStage} from './stage-block.js'
 import type {BlockEntry, OpampBlockNode, StageBlockNode} from './types.js'
+import {buildAdc} from './adc-block.js'
+import {buildChain, type ChainScope} from './chain-block.js'
+import type {AdcBlockNode, ChainBlockNode} from './chain-types.js'
+import {isAdcArchetypeName} from '../engine/chain/archetypes.js'
 
 /** What a kind's reader gets for one block. */
 export interface BlockRead {
@@ -37,10 +41,14 @@ export interface BlockRead {
   opamps: OpampRegistry
   /** The ina blocks read so far (first definition per id), DESIGN §8.2. */
   inas: Map<string, import('../engine/types.js').InaParams | null>
+  /** What a chain block may name: stages and converters above it, chain membership. */
+  chains: ChainScope
+  /** True for a stage that a chain names after its first place (its input comes from the chain). */
+  inputFromChain: (id: string) => boolean
 }
 
 /** A block node of ours, as a kind's reader makes it. */
-export type BlockNode = StageBlockNode | OpampBlockNode
+export type BlockNode = StageBlockNode | OpampBlockNode | AdcBlockNode | ChainBlockNode
 
 export interface BlockKind {
   /** Read a block into its node; null: recognised, not read (see `unsupported`). */
@@ -76,13 +84,18 @@ const nodeFields = (b: BlockRead): {id: string; entries: BlockEntry[]; position?
 export const BLOCK_KINDS = {
   stage: {
     read(b) {
+      const fromChain = b.inputFromChain(b.id)
       const built = buildStage(b.fields, {
         id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report,
-        resolveOpamp: b.opamps.resolver(b.where, b.report), resolveIna: inaResolver(b.inas, b.where, b.report)
+        resolveOpamp: b.opamps.resolver(b.where, b.report), resolveIna: inaResolver(b.inas, b.where, b.report),
+        inputOptional: fromChain
       })
       const input = b.report.errors > b.errorsBefore ? null : built.input
       const {id, entries, ...rest} = nodeFields(b)
-      return {type: 'stageBlock', id, entries, input, defaulted: built.defaulted, ...rest}
+      const node: StageBlockNode = {type: 'stageBlock', id, entries, input, defaulted: built.defaulted, ...rest}
+      if (built.inputFromChain) node.inputFromChain = true
+      if (b.firstOfId && id !== '') (b.chains.stagesAbove as Map<string, StageBlockNode>).set(id, node)
+      return node
     }
   },
   opamp: {
@@ -108,7 +121,29 @@ export const BLOCK_KINDS = {
       return {type: 'opampBlock', id, entries, opamp: null, ina, defaulted: built.defaulted, ...rest}
     }
   },
-  chain: {read: null, unsupported: {message: (): string => noteMessages.chainUnsupported(), rule: 'chain-unsupported'}}
+  adc: {
+    predeclared: true,
+    checkId(id, idAt, report) {
+      if (isAdcArchetypeName(id)) report.warn(noteMessages.archetypeShadowed(id).replace('opamp block', 'adc block'), idAt, 'archetype-shadowed')
+    },
+    read(b) {
+      const built = buildAdc(b.fields, {id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report})
+      const adc = b.report.errors > b.errorsBefore ? null : built.adc
+      const {id, entries, ...rest} = nodeFields(b)
+      const node: AdcBlockNode = {type: 'adcBlock', id, entries, adc, defaulted: built.defaulted, ...rest}
+      if (b.firstOfId && id !== '') (b.chains.adcsAbove as Map<string, AdcBlockNode>).set(id, node)
+      return node
+    }
+  },
+  chain: {
+    read(b) {
+      const built = buildChain(b.fields, {id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report, scope: b.chains})
+      const input = b.report.errors > b.errorsBefore ? null : built.input
+      const {id, entries, ...rest} = nodeFields(b)
+      const node: ChainBlockNode = {type: 'chainBlock', id, entries, input, defaulted: built.defaulted, ...rest}
+      return node
+    }
+  }
 } as const satisfies Record<string, BlockKind>
 
 export type BlockLang = keyof typeof BLOCK_KINDS

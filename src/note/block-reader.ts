@@ -14,6 +14,8 @@ import {fenceInfo, isValidId, type FenceInfo} from './fences.js'
 import {blockName, noteMessages} from './messages.js'
 import {opampRegistry} from './opamp-registry.js'
 import {sourceOf, valueMapper, type SourceText} from './place.js'
+import {isMap, isScalar, isSeq, parseDocument} from 'yaml'
+import type {ChainScope} from './chain-block.js'
 
 declare module 'vfile' {
   interface DataMap {
@@ -66,6 +68,26 @@ function predeclaredIds(found: readonly Found[], source: SourceText, lang: Block
 }
 
 /**
+ * Stage ids that a chain names after its first place, read quietly from every chain fence
+ * before any block is read: such a stage may leave out `input` (DESIGN §8.6). The chain's
+ * own reading reports whatever is wrong with its list.
+ */
+function laterChainStages(found: readonly Found[]): Set<string> {
+  const later = new Set<string>()
+  for (const f of found) {
+    if (f.lang !== 'chain') continue
+    const doc = parseDocument(f.code.value, {uniqueKeys: false})
+    if (!isMap(doc.contents)) continue
+    const list = doc.contents.get('stages', true)
+    if (!isSeq(list)) continue
+    list.items.slice(1).forEach((item) => {
+      if (isScalar(item) && item.value !== null) later.add(String(item.value).trim())
+    })
+  }
+  return later
+}
+
+/**
  * The checks every block's fence and id get: an id is given, is one word and is unique per
  * kind (a duplicate points at the first), the fence is closed, then the kind's own checks.
  * Returns whether this is the first block of its kind with this id.
@@ -99,6 +121,12 @@ export function readBlocks(tree: Root, file: VFile): void {
   }
   const opamps = opampRegistry(predeclaredIds(found, source, 'opamp'))
   const inas = new Map<string, import('../engine/types.js').InaParams | null>()
+  const chains: ChainScope = {
+    stagesAbove: new Map(), allStages: predeclaredIds(found, source, 'stage'),
+    adcsAbove: new Map(), allAdcs: predeclaredIds(found, source, 'adc'), member: new Map()
+  }
+  const later = laterChainStages(found)
+  const inputFromChain = (id: string): boolean => later.has(id)
   const seen = new Map<BlockLang, Map<string, Point>>(BLOCK_LANGS.map((l) => [l, new Map()]))
   for (const {code, lang, parent, index} of found) {
     const kind: BlockKind = BLOCK_KINDS[lang]
@@ -119,7 +147,7 @@ export function readBlocks(tree: Root, file: VFile): void {
     const {fields, broken} = swallowed === null ? readYaml(code.value, mapper, where, report) : {fields: [], broken: true}
     const node = kind.read({
       id: info.id ?? '', idAt: info.idAt, where, broken, report, fields, entries: entriesOf(fields),
-      position: code.position, errorsBefore, firstOfId, opamps, inas
+      position: code.position, errorsBefore, firstOfId, opamps, inas, chains, inputFromChain
     })
     parent.children[index] = node
     ;(blocks[lang] ??= []).push(node)

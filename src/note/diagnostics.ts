@@ -13,7 +13,9 @@ export const NOTE_RULES = [
   'binary-file', 'front-matter-position', 'front-matter', 'yaml-syntax', 'duplicate-key', 'unknown-key',
   'key-not-for-topology', 'missing-key', 'bad-value', 'missing-id', 'bad-id', 'duplicate-id',
   'chain-unsupported', 'unclosed-fence', 'swallowed-block', 'unknown-opamp', 'opamp-defined-later', 'opamp-has-errors',
-  'archetype-shadowed', 'suspicious-milliohm', 'suspicious-value', 'inconsistent-keys', 'too-deep', 'too-many-blocks'
+  'archetype-shadowed', 'suspicious-milliohm', 'suspicious-value', 'inconsistent-keys', 'too-deep', 'too-many-blocks',
+  'unknown-stage', 'stage-defined-later', 'stage-repeated', 'stage-in-two-chains', 'stage-only-first', 'stage-has-errors',
+  'unknown-adc', 'adc-defined-later', 'adc-has-errors', 'input-from-chain'
 ] as const
 export type NoteRule = (typeof NOTE_RULES)[number]
 

@@ -52,6 +52,10 @@ export type StageKind =
   /** Frequency range; a single value is 0 .. x (and so refused: it starts at 0 Hz). */
   | {kind: 'band'}
   | {kind: 'require'}
+  /** `design` (default) or `baseline`: a stage kept for comparison, shown but not counted. */
+  | {kind: 'role'}
+  /** A map of rule id → the author's reason for accepting that rule's note (the ids are checked in src/evaluate). */
+  | {kind: 'accept'}
 
 export interface StageKeySpec {
   readonly read: StageKind
@@ -96,7 +100,9 @@ export const STAGE_KEYS = {
   'signal-frequency': {read: {kind: 'quantity', dim: 'frequency'}, use: ALL_O},
   rload: {read: {kind: 'shunt'}, use: ALL_O},
   calibration: {read: {kind: 'calibration'}, use: ALL_O},
-  require: {read: {kind: 'require'}, use: ALL_O}
+  require: {read: {kind: 'require'}, use: ALL_O},
+  role: {read: {kind: 'role'}, use: ALL_O},
+  accept: {read: {kind: 'accept'}, use: ALL_O}
 } as const satisfies Record<string, StageKeySpec>
 
 export type StageKey = keyof typeof STAGE_KEYS

@@ -42,8 +42,6 @@ export const noteMessages = {
   duplicateId: (kind: BlockKind, id: string) =>
     `Unexpected second ${kind} ${q(id)}, expected each ${kind} id once: rename one`,
   firstId: (kind: BlockKind, id: string) => `First ${kind} ${q(id)} defined here`,
-  chainUnsupported: () =>
-    'Unexpected `chain` block, expected `stage` or `opamp`: chains are not supported yet; printed as code',
   swallowedBlock: (inner: string, where: string) =>
     `Unexpected \`${inner}\` fence inside the unclosed ${where}, expected ${where} closed before it (as written it swallows the rest of the note): add \`\`\` after its last key (a closing fence needs at least as many backticks as the opening one)`,
   unclosedFence: (where: string) =>
@@ -96,6 +94,10 @@ export const noteMessages = {
     `Unexpected ${q(value)} for ${q(key)}, a resistance under 1 Ω written with \`m\` (milli), expected more for this key; did you mean \`M\` (mega)?`,
   unknownRequirement: (key: string, suggestion: string | null, known: readonly string[] = []) =>
     `Unexpected requirement ${q(key)}, expected a requirement key${suggestion === null && known.length > 0 ? ` (one of ${known.map(q).join(', ')})` : hint(suggestion)}`,
+  unknownRole: (value: string, suggestion: string | null) =>
+    `Unexpected role ${q(value)}, expected ${q('design')} or ${q('baseline')}${hint(suggestion)}`,
+  acceptNotMap: () => 'Unexpected value for `accept`, expected a map of rule ids to the reason each is accepted (`bandwidth-margin: "reason"` on the lines below, indented)',
+  acceptNoReason: (rule: string) => `Expected a reason after ${q(rule)} in \`accept\`: say why the note is accepted, so that the reviewer can judge it`,
   requireNotMap: () => 'Unexpected value for `require`, expected a map of requirements (`noise-rms: 30 uV` on the lines below, indented)',
 
   unknownOpamp: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>

@@ -24,6 +24,7 @@ import {noteMessages} from './messages.js'
 import {sourceOf, valueMapper, type SourceText} from './place.js'
 import {nestingTooDeep} from './prescan.js'
 import type {OpampBlockNode, ParsedNote, StageBlockNode} from './types.js'
+import type {AdcBlockNode, ChainBlockNode} from './chain-types.js'
 
 export {MAX_BLOCKS} from './block-reader.js'
 
@@ -96,5 +97,7 @@ export function parseNote(file: VFile): ParsedNote {
   const blocks = file.data.blocks ?? {}
   const stages = (blocks.stage ?? []).filter((n): n is StageBlockNode => n.type === 'stageBlock')
   const opamps = (blocks.opamp ?? []).filter((n): n is OpampBlockNode => n.type === 'opampBlock')
-  return {meta, tree, stages, opamps}
+  const adcs = (blocks.adc ?? []).filter((n): n is AdcBlockNode => n.type === 'adcBlock')
+  const chains = (blocks.chain ?? []).filter((n): n is ChainBlockNode => n.type === 'chainBlock')
+  return {meta, tree, stages, opamps, adcs, chains}
 }

@@ -43,18 +43,22 @@ export interface StageContext {
   resolveOpamp: OpampResolver
   /** Resolves an instrumentation stage's `ina:` (DESIGN §8.2). */
   resolveIna: (name: string, at: Point) => InaParams | null
+  /** True for a stage a chain names after its first place: `input` may be left out (DESIGN §8.6). (optional) */
+  inputOptional?: boolean
 }
 
 export interface BuiltStage {
   input: StageInput | null
   defaulted: DefaultedValue[]
+  /** True when `input` was left out for the chain to supply (the input's range is a placeholder). */
+  inputFromChain: boolean
 }
 
 const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso']
 
 function reportMissing(read: StageRead, ctx: StageContext): void {
   for (const key of Object.keys(STAGE_KEYS) as StageKey[]) {
-    if (read.given.has(key)) continue
+    if (read.given.has(key) || (key === 'input' && ctx.inputOptional === true)) continue
     const use = STAGE_KEYS[key].use
     const everywhere = Object.values(use).every((u) => u === 'r')
     if (everywhere) ctx.report.error(noteMessages.missingKey(key, ctx.where, 'in every stage'), ctx.idAt, 'missing-key')
@@ -142,9 +146,12 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
   // An instrumentation stage's amplifier is its INA; the op-amp view carries its input values.
   const opamp = read.topology === 'instrumentation' ? (ina === null ? null : inaAsOpamp(ina))
     : read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
-  const {topology, input, supply} = read
+  const {topology, supply} = read
+  // A later stage of a chain may leave `input` out: the chain supplies the previous stage's output range.
+  const inputFromChain = read.input === null && !read.given.has('input') && ctx.inputOptional === true
+  const input: [number, number] | null = read.input ?? (inputFromChain ? [0, 0] : null)
   if (ctx.report.errors > errorsBefore || topology === null || opamp === null || input === null || supply === null) {
-    return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id)}
+    return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id), inputFromChain}
   }
   const q = read.quantities
   const stage: StageInput = {
@@ -189,5 +196,5 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     calibration: read.calibration ?? 'none',
     require: read.require
   }
-  return {input: stage, defaulted: defaultsOf(read, topology, ctx.id)}
+  return {input: stage, defaulted: defaultsOf(read, topology, ctx.id), inputFromChain}
 }

@@ -14,6 +14,7 @@ import {
   type CapacitorKey, type QuantityKey, type ResistorKey
 } from './keys.js'
 import {noteMessages} from './messages.js'
+import {STAGE_ROLES} from './types.js'
 import {capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
 import {formatQuantity, formatRange, formatTempco} from '../units/index.js'
 
@@ -76,6 +77,22 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
       continue
     }
     read.require[key] = q.value
+  }
+}
+
+/** `accept:` must be a map whose every value is a reason; the rule ids are checked by src/evaluate. */
+function readAccept(field: Field, report: Reporter): void {
+  const v = field.value
+  if (v.type === 'scalar' && v.text === null) return
+  if (v.type !== 'map') {
+    report.error(noteMessages.acceptNotMap(), v.type === 'scalar' ? v.at(0) : v.at, 'bad-value')
+    return
+  }
+  for (const sub of v.fields) {
+    const rule = sub.key.slice('accept.'.length)
+    if (sub.value.type !== 'scalar' || sub.value.text === null || sub.value.text.trim() === '') {
+      report.error(noteMessages.acceptNoReason(rule), sub.keyAt, 'bad-value')
+    }
   }
 }
 
@@ -225,9 +242,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
           read.supply = r.value
           const t = r.s.text.trim()
           read.supplySingle = !/^(?:±|\+\/-|\+-)/.test(t) && !/\.\.|…/.test(t)
-        }
-        if (r !== null && Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
-          report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+          if (Math.max(Math.abs(r.value[0]), Math.abs(r.value[1])) > PLAUSIBLE.supply) {
+            report.warn(noteMessages.implausible('supply', 'supply', formatRange(r.value[0], r.value[1], 'V'), '±1 kV'), r.s.at(0), 'suspicious-value')
+          }
         }
         break
       }
@@ -246,6 +263,16 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'require':
         readRequire(field, read, report)
+        break
+      case 'role': {
+        const s = scalarOf(field, '`design` or `baseline`', report)
+        if (s === null) break
+        const value = s.text.trim()
+        if (!(STAGE_ROLES as readonly string[]).includes(value)) report.error(noteMessages.unknownRole(value, didYouMean(value, STAGE_ROLES)), s.at(0), 'bad-value')
+        break
+      }
+      case 'accept':
+        readAccept(field, report)
         break
     }
   }

@@ -12,6 +12,14 @@ export type HazardContext = (typeof HAZARD_CONTEXTS)[number]
 export const DOCUMENT_STATUSES = ['draft', 'for-review', 'approved'] as const
 export type DocumentStatus = (typeof DOCUMENT_STATUSES)[number]
 
+/**
+ * What a stage is in the review: `design` (the default) counts toward the verdict and the
+ * exit code; `baseline` (e.g. the circuit as drawn, kept for comparison) is evaluated and
+ * shown, but its verdicts do not count.
+ */
+export const STAGE_ROLES = ['design', 'baseline'] as const
+export type StageRole = (typeof STAGE_ROLES)[number]
+
 export interface Reviewer {
   /** Person's name; may be empty (a row to fill in by hand). */
   name: string
@@ -60,6 +68,8 @@ export interface StageBlockNode {
   /** Null when the block had errors. */
   input: StageInput | null
   defaulted: DefaultedValue[]
+  /** True when the block gives no `input`: a chain supplies it (DESIGN §8.6; `input` is then a placeholder). */
+  inputFromChain?: true
   position?: Position
 }
 
@@ -81,6 +91,10 @@ export interface ParsedNote {
   tree: import('mdast').Root
   stages: StageBlockNode[]
   opamps: OpampBlockNode[]
+  /** Converter blocks (DESIGN §8.5), in document order. */
+  adcs?: import('./chain-types.js').AdcBlockNode[]
+  /** Chain blocks (DESIGN §8.6), in document order. */
+  chains?: import('./chain-types.js').ChainBlockNode[]
 }
 
 declare module 'mdast' {

@@ -11,12 +11,20 @@ import {buildAppendix} from './appendix.js'
 import {failedStageSection, opampSection, stageSection} from './sections/stage.js'
 import {sharedNoteBlocks, sharedNotes} from './sections/notes.js'
 import type {RuleNote} from '../rules/types.js'
-import {combine, counted, coverRows, verdictOf} from './verdicts.js'
+import {coverSummary} from './verdicts.js'
+import {paragraph} from './mdast.js'
+import {q} from './format.js'
 import type {ReportDocument} from './types.js'
+import type {ChainEvaluation} from '../evaluate/chains.js'
+import type {ChainBlockNode} from '../note/chain-types.js'
+import {adcSection, chainSection, failedChainSection} from './sections/chain.js'
+import {chainCoverRows, chainVerdictOf} from './chain-verdicts.js'
 
 export interface ReportInput {
   parsed: ParsedNote
   evaluations: StageEvaluation[]
+  /** Evaluated chains (DESIGN §8.6); none when absent. */
+  chains?: ChainEvaluation[]
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
   fragments: {method: Root; closing: Root}
   sourceSha256: string
@@ -34,16 +42,41 @@ type Parent = {children: RootContent[]}
 const hasChildren = (n: RootContent): n is RootContent & Parent =>
   'children' in n && Array.isArray((n as Partial<Parent>).children)
 
-function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[]): RootContent[] {
+/** What the chain sections need besides the stage evaluations. */
+interface ChainsInReport {
+  byBlock: Map<ChainBlockNode, ChainEvaluation>
+  /** Stage id → its evaluation. */
+  stages: Map<string, StageEvaluation>
+  /** Stage id → where its input comes from, for a later stage of a chain. */
+  fed: Map<string, {chain: string; previous: string}>
+}
+
+/** A line at the top of a later chain stage's section: where its input range came from. */
+function fedLine(ev: StageEvaluation, chains: ChainsInReport): RootContent[] {
+  const fed = chains.fed.get(ev.input.id)
+  if (fed === undefined) return []
+  const [lo, hi] = ev.input.input
+  return [paragraph(`Input range ${q(lo, 'V')} … ${q(hi, 'V')}: the output of stage ${fed.previous} in chain ${fed.chain} (DESIGN §8.6), used throughout this section.`)]
+}
+
+function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<StageBlockNode, StageEvaluation>, shared: readonly RuleNote[], chains: ChainsInReport): RootContent[] {
   const out: RootContent[] = []
   for (const node of nodes) {
     if (node.type === 'stageBlock') {
       const ev = byBlock.get(node)
-      out.push(...(ev ? stageSection(ctx, ev, shared) : failedStageSection(node)))
+      if (ev) {
+        const section = stageSection(ctx, ev, shared)
+        out.push(...section.slice(0, 1), ...fedLine(ev, chains), ...section.slice(1))
+      } else out.push(...failedStageSection(node))
+    } else if (node.type === 'chainBlock') {
+      const ev = chains.byBlock.get(node)
+      out.push(...(ev ? chainSection(ctx, ev, chains.stages) : failedChainSection(node)))
+    } else if (node.type === 'adcBlock') {
+      out.push(...adcSection(ctx, node))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
     } else if (hasChildren(node)) {
-      out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared)} as RootContent)
+      out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
     } else {
       out.push(node)
     }
@@ -51,24 +84,36 @@ function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<St
   return out
 }
 
+function chainsInReport(input: ReportInput): ChainsInReport {
+  const chains = input.chains ?? []
+  const fed = new Map<string, {chain: string; previous: string}>()
+  for (const ev of chains) ev.result.stages.forEach((id, i) => {
+    if (i > 0) fed.set(id, {chain: ev.input.id, previous: ev.result.stages[i - 1]!})
+  })
+  return {
+    byBlock: new Map(chains.map((ev) => [ev.block, ev] as const)),
+    stages: new Map(input.evaluations.map((ev) => [ev.input.id, ev] as const)),
+    fed
+  }
+}
+
 /** Build the report tree: synchronous, no I/O, no chart library. */
 export function buildReport(input: ReportInput): ReportOutput {
-  const ctx: ReportContext = {figure: 0, table: 0, warnings: []}
+  const ctx: ReportContext = {figure: 0, table: 0, warnings: [], coverNotes: []}
   const byBlock = new Map(input.evaluations.map((ev) => [ev.block, ev] as const))
   // Notes that several stages share word for word are printed once, before the prose.
   const shared = sharedNotes(input.evaluations.map((ev) => ev.notes))
   const body: Root = {type: 'root', children: [
-    ...sharedNoteBlocks(shared),
-    ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared)
+    ...sharedNoteBlocks(shared, ctx.coverNotes),
+    ...replaceBlocks(input.parsed.tree.children, ctx, byBlock, shared, chainsInReport(input))
   ]}
-  const verdicts = coverRows(input.evaluations)
-  const overall = combine(input.evaluations.flatMap((ev) => counted(ev.result.requirements).map(verdictOf)))
+  const chains = input.chains ?? []
   const document: ReportDocument = {
     meta: input.parsed.meta,
-    cover: {verdicts, overall},
+    cover: coverSummary(input.evaluations, ctx.coverNotes, chainCoverRows(chains)),
     body,
     appendix: buildAppendix({
-      evaluations: input.evaluations, method: input.fragments.method,
+      evaluations: input.evaluations, chains, method: input.fragments.method,
       sourceSha256: input.sourceSha256, toolVersion: input.toolVersion, fileName: input.fileName
     }),
     closing: input.fragments.closing,

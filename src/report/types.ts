@@ -5,7 +5,9 @@
  */
 import type {BlockContent, Root} from 'mdast'
 import type {DocumentMeta} from '../note/types.js'
+import type {NoteRuleId} from '../rules/index.js'
 import type {Severity} from '../rules/types.js'
+import type {Drawing} from './schematic/types.js'
 import type {TopLevelSpec} from 'vega-lite'
 
 export type Verdict = 'met' | 'not-met' | 'not-evaluated'
@@ -28,6 +30,15 @@ export interface FigureNode {
   height?: number
 }
 
+/** A stage's schematic as vector drawing data (DESIGN §8.9), numbered with the figures. */
+export interface SchematicNode {
+  type: 'schematic'
+  /** Figure number in the document, 1-based. */
+  number: number
+  caption: string
+  drawing: Drawing
+}
+
 /** A boxed note: a rule's practice/safety note, or a verdict line. Shown with a word and a shape. */
 export interface CalloutNode {
   type: 'callout'
@@ -35,6 +46,8 @@ export interface CalloutNode {
   /** The word printed in front, e.g. "CAUTION", "NOT MET". */
   label: string
   children: BlockContent[]
+  /** A name the cover refers to (its page is looked up when drawn); optional. */
+  anchor?: string
 }
 
 /** A caption kept with the table that follows it ("Table 3 — DC error budget"). */
@@ -51,12 +64,14 @@ export interface PageBreakNode {
 declare module 'mdast' {
   interface RootContentMap {
     figure: FigureNode
+    schematic: SchematicNode
     callout: CalloutNode
     caption: CaptionNode
     pageBreak: PageBreakNode
   }
   interface BlockContentMap {
     figure: FigureNode
+    schematic: SchematicNode
     callout: CalloutNode
     caption: CaptionNode
     pageBreak: PageBreakNode
@@ -70,11 +85,40 @@ export interface CoverVerdict {
   value: string
   limit: string
   verdict: Verdict
+  /** False for a `baseline` stage: shown, not counted in the overall verdict. */
+  counted: boolean
+}
+
+/** A caution, warning or safety note the signer must see, listed on the cover. */
+export interface CoverNote {
+  /** Stage id, or null for a note shared by every stage. */
+  stage: string | null
+  rule: NoteRuleId
+  severity: Exclude<Severity, 'info'>
+  title: string
+  /** The author's reason when the stage accepts the rule, else null. */
+  accepted: string | null
+  /** Anchor of the note's callout in the body (for its page). */
+  anchor: string
+}
+
+/** The cover's summary: what the overall verdict counts, and what it leaves out. */
+export interface CoverSummary {
+  verdicts: CoverVerdict[]
+  /** Verdict over the counted requirements only. */
+  overall: Verdict
+  /** Counted stages (role `design`) and their requirements. */
+  counted: {stages: number; chains: number; requirements: number; notMet: number}
+  /** Ids of the baseline stages (shown, not counted). */
+  baseline: string[]
+  /** Stages whose op-amp is an archetype: figures for the class, not a part. */
+  archetypes: {stage: string; opamp: string}[]
+  notes: CoverNote[]
 }
 
 export interface ReportDocument {
   meta: DocumentMeta
-  cover: {verdicts: CoverVerdict[]; overall: Verdict}
+  cover: CoverSummary
   /** The note's prose in order, each block replaced by its section. */
   body: Root
   /** Method, assumptions, inputs. */

@@ -7,7 +7,8 @@ import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine
 import type {StageEvaluation} from '../evaluate/index.js'
 import {LIMIT_LABELS, REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
-import type {CoverVerdict, Verdict} from './types.js'
+import {formatNumber} from '../units/format.js'
+import type {CoverNote, CoverSummary, CoverVerdict, Verdict} from './types.js'
 
 export const verdictOf = (r: RequirementResult): Verdict =>
   r.kind === 'limit' ? (r.met === null ? 'not-evaluated' : r.met ? 'met' : 'not-met') : r.value === null ? 'not-evaluated' : r.met ? 'met' : 'not-met'
@@ -62,7 +63,7 @@ export const limitText = (r: RequirementResult, t: Topology): string => {
 }
 
 /** The margin as a share of the limit, " (16 %)"; beyond ±10 000 % it says so rather than print an exponent. */
-function relative(m: number, limit: number): string {
+export function relative(m: number, limit: number): string {
   if (limit === 0) return ''
   const p = (m / Math.abs(limit)) * 100
   if (!Number.isFinite(p)) return ''
@@ -90,7 +91,12 @@ export function margin(r: RequirementResult, t: Topology): string {
   const sense = REQUIREMENT_KEYS[r.key].sense
   const m = sense === 'max' ? r.limit - r.value : r.value - r.limit
   const unit = requirementUnit(r.key, t)
-  const rel = relative(m, r.limit)
+  // Above 100 % a margin reads better as a ratio of value to limit ("15 ×") than as "1396 %".
+  const share = r.limit !== 0 ? m / Math.abs(r.limit) : null
+  const ratio = share === null ? null : sense === 'max' ? r.limit / r.value : r.value / r.limit
+  const rel = share !== null && share > 1 && ratio !== null && Number.isFinite(ratio) && ratio < 1e6
+    ? ` (${formatNumber(ratio, {digits: 2})} ×)`
+    : relative(m, r.limit)
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 
@@ -101,6 +107,23 @@ export function coverRows(evaluations: StageEvaluation[]): CoverVerdict[] {
     requirement: requirementLabel(r),
     value: requirementValue(r, 'value', ev.input.topology),
     limit: limitText(r, ev.input.topology),
-    verdict: verdictOf(r)
+    verdict: verdictOf(r),
+    counted: ev.role !== 'baseline'
   })))
+}
+
+/** The cover's summary of a note's evaluations; `notes` comes from the sections (their anchors). */
+export function coverSummary(evaluations: readonly StageEvaluation[], notes: CoverNote[], chainRows: readonly CoverVerdict[] = []): CoverSummary {
+  const counted = evaluations.filter((ev) => ev.role !== 'baseline')
+  const requirements = counted.flatMap((ev) => ev.result.requirements).filter((r) => !isSkipped(r))
+  const verdicts = [...requirements.map(verdictOf), ...chainRows.map((v) => v.verdict)]
+  const chains = new Set(chainRows.map((v) => v.stage)).size
+  return {
+    verdicts: [...coverRows([...evaluations]), ...chainRows],
+    overall: combine(verdicts),
+    counted: {stages: counted.length, chains, requirements: verdicts.length, notMet: verdicts.filter((v) => v === 'not-met').length},
+    baseline: evaluations.filter((ev) => ev.role === 'baseline').map((ev) => ev.input.id),
+    archetypes: evaluations.filter((ev) => ev.input.opamp.archetype).map((ev) => ({stage: ev.input.id, opamp: ev.input.opamp.name})),
+    notes
+  }
 }

@@ -7,6 +7,8 @@ import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js
 import {formatQuantity} from '../units/format.js'
 import {gainUnit, inputUnit, requirementUnit} from './labels.js'
 import type {JsonStage} from './json.js'
+import type {JsonChain} from './chain-json.js'
+import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 
 /** The parts of a stage's §6 object that a comparison reads (older result files may lack the topology). */
 type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> & {
@@ -18,7 +20,35 @@ type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> &
 
 /** The parts of a run (`JsonRun`, declared once in ./json.ts) that a comparison reads. */
 export interface RunJson {
-  files: {file: string; stages: StageJson[]}[]
+  files: {file: string; stages: StageJson[]; chains?: ChainJson[]}[]
+}
+
+/** The parts of a chain's §8.6 object that a comparison reads. */
+type ChainJson = Pick<JsonChain, 'id' | 'gain' | 'bandwidth' | 'rangeUsed' | 'aliasRejection' | 'requirements'> & {
+  dc: Pick<JsonChain['dc'], 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'worstCaseLsb'>
+  noise: JsonChain['noise']
+}
+
+/** A chain's values by dotted name (units: V at the converter, LSB, bits, dB). */
+function chainValues(c: ChainJson): Map<string, {unit: string; v: number | null}> {
+  const m = new Map<string, {unit: string; v: number | null}>()
+  m.set('gain', {unit: 'V/V', v: c.gain})
+  m.set('bandwidth', {unit: 'Hz', v: c.bandwidth})
+  m.set('rangeUsed', {unit: '', v: c.rangeUsed})
+  for (const k of ['worstCaseOutput', 'rssOutput', 'worstCaseInput'] as const) m.set(`dc.${k}`, {unit: 'V', v: c.dc[k]})
+  m.set('dc.worstCaseLsb', {unit: 'LSB', v: c.dc.worstCaseLsb})
+  for (const k of ['outputRms', 'zeroSignalOutputRms', 'inputRms', 'converterRms', 'widebandRms'] as const) m.set(`noise.${k}`, {unit: 'V', v: c.noise[k]})
+  for (const k of ['noiseFreeBits', 'effectiveBits'] as const) m.set(`noise.${k}`, {unit: 'bits', v: c.noise[k]})
+  m.set('aliasRejection', {unit: 'dB', v: c.aliasRejection})
+  for (const r of c.requirements) if (r.kind === 'require') m.set(`require.${r.key}`, {unit: CHAIN_REQUIREMENT_KEYS[r.key]?.unit === 'input' ? 'V' : CHAIN_REQUIREMENT_KEYS[r.key]?.unit ?? '', v: r.value})
+  return m
+}
+
+/** Chains by `chain <id>`; prefixed by the note's file name when either side holds several notes. */
+function chainsOf(run: RunJson, multi: boolean): Map<string, ChainJson> {
+  const out = new Map<string, ChainJson>()
+  for (const f of run.files) for (const c of f.chains ?? []) out.set(`${multi ? `${f.file.split('/').pop()}/` : ''}chain ${c.id}`, c)
+  return out
 }
 
 export interface ValueChange {
@@ -72,8 +102,14 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   return m
 }
 
-const differs = (a: number | null, b: number | null): boolean =>
-  a === null || b === null ? a !== b : Math.abs(a - b) > REL * Math.max(Math.abs(a), Math.abs(b), 1e-30)
+/** A change worth printing: appeared or vanished, or moved by more than `threshold` (relative; at least rounding noise). */
+const differs = (a: number | null, b: number | null, threshold: number): boolean =>
+  a === null || b === null ? a !== b : Math.abs(a - b) > Math.max(threshold, REL) * Math.max(Math.abs(a), Math.abs(b), 1e-30)
+
+export interface CompareOptions {
+  /** Relative change below which a value is left out, a fraction (default 0: every change). Verdict flips are always listed. */
+  threshold?: number
+}
 
 /** Stages by id; prefixed by the note's file name when either side holds several notes. */
 function stagesOf(run: RunJson, multi: boolean): Map<string, StageJson> {
@@ -82,7 +118,8 @@ function stagesOf(run: RunJson, multi: boolean): Map<string, StageJson> {
   return out
 }
 
-export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
+export function compareRuns(oldRun: RunJson, newRun: RunJson, opts: CompareOptions = {}): Comparison {
+  const threshold = opts.threshold ?? 0
   const multi = oldRun.files.length > 1 || newRun.files.length > 1
   const a = stagesOf(oldRun, multi)
   const b = stagesOf(newRun, multi)
@@ -96,7 +133,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
     for (const name of new Set([...vo.keys(), ...vn.keys()])) {
       const o = vo.get(name)?.v ?? null
       const n = vn.get(name)?.v ?? null
-      if (differs(o, n)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+      if (differs(o, n, threshold)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
     }
     const ro = new Map(so.requirements.map((r) => [r.key, r.met]))
     const rn = new Map(sn.requirements.map((r) => [r.key, r.met]))
@@ -106,15 +143,36 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson): Comparison {
       if (o !== n) flips.push({stage: id, requirement: key, old: o, new: n})
     }
   }
-  const removedStages = [...a.keys()].filter((k) => !b.has(k))
-  const addedStages = [...b.keys()].filter((k) => !a.has(k))
+  const ca = chainsOf(oldRun, multi)
+  const cb = chainsOf(newRun, multi)
+  for (const [id, co] of ca) {
+    const cn = cb.get(id)
+    if (!cn) continue
+    const vo = chainValues(co)
+    const vn = chainValues(cn)
+    for (const name of new Set([...vo.keys(), ...vn.keys()])) {
+      const o = vo.get(name)?.v ?? null
+      const n = vn.get(name)?.v ?? null
+      if (differs(o, n, threshold)) changes.push({stage: id, name, unit: (vo.get(name) ?? vn.get(name))!.unit, old: o, new: n})
+    }
+    const ro = new Map(co.requirements.map((r) => [r.key, r.met] as const))
+    const rn = new Map(cn.requirements.map((r) => [r.key, r.met] as const))
+    for (const key of new Set([...ro.keys(), ...rn.keys()])) {
+      const o = ro.get(key) ?? null
+      const n = rn.get(key) ?? null
+      if (o !== n) flips.push({stage: id, requirement: key, old: o, new: n})
+    }
+  }
+  const removedStages = [...[...a.keys()].filter((k) => !b.has(k)), ...[...ca.keys()].filter((k) => !cb.has(k))]
+  const addedStages = [...[...b.keys()].filter((k) => !a.has(k)), ...[...cb.keys()].filter((k) => !ca.has(k))]
   const regressed = flips.some((f) => f.old === true && f.new === false) ||
-    removedStages.some((id) => a.get(id)!.requirements.some((r) => r.met === true))
+    removedStages.some((id) => (a.get(id)?.requirements ?? ca.get(id)?.requirements ?? []).some((r) => r.met === true))
   return {changes, flips, addedStages, removedStages, regressed}
 }
 
 const show = (v: number | null, unit: string): string =>
-  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB` : formatQuantity(v, unit, {digits: 4})
+  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB`
+    : unit === 'LSB' || unit === 'bits' ? `${v.toFixed(2)} ${unit}` : unit === '' ? v.toFixed(4) : formatQuantity(v, unit, {digits: 4})
 
 const delta = (c: ValueChange): string => {
   if (c.old === null || c.new === null) return ''

@@ -5,6 +5,12 @@
  */
 import type {RequirementResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
+import type {JsonChain} from './chain-json.js'
+
+export {jsonChain, type JsonChain} from './chain-json.js'
+import type {Topology} from '../engine/types.js'
+import type {StageRole} from '../note/types.js'
+import type {NoteRuleId} from '../rules/index.js'
 
 /** One diagnostic of a note, as the contract carries it. */
 export interface JsonDiagnostic {
@@ -12,6 +18,10 @@ export interface JsonDiagnostic {
   message: string
   line: number
   column: number
+  /** What raised it: a rule id, `requirement-not-met`, `unknown-key`, …; null when none. */
+  rule: string | null
+  /** `input`, `note` (a rule's note), `requirement` or `build`. */
+  kind: 'input' | 'note' | 'requirement' | 'build'
 }
 
 /** One note of a run: the path as given, the source's hash, its diagnostics and stages. */
@@ -20,6 +30,8 @@ export interface JsonNote {
   sourceSha256: string
   diagnostics: JsonDiagnostic[]
   stages: JsonStage[]
+  /** Measurement chains (DESIGN §8.6); absent in results written before chains existed. */
+  chains?: JsonChain[]
 }
 
 /** The whole result of a run (`--json`, `<note>.json`, what `compare` and `merge` read). */
@@ -29,7 +41,7 @@ export interface JsonRun {
 
 export interface JsonStage {
   id: string
-  topology: string
+  topology: Topology
   opamp: string
   gain: number
   noiseGain: number
@@ -39,7 +51,10 @@ export interface JsonStage {
   /** Low-pass stages (DESIGN §8.4); null elsewhere. */
   filter: StageEvaluation['result']['filter']
   requirements: StageEvaluation['result']['requirements']
-  notes: {rule: string; severity: string; text: string}[]
+  /** Practice and safety notes; `accepted` is the author's reason when the stage's `accept:` accepts the rule, else null. */
+  notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
+  /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
+  role: StageRole
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -89,7 +104,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     },
     filter: r.filter === null ? null : {f0: finite(r.filter.f0), q: finite(r.filter.q), passbandGain: r.filter.passbandGain},
     requirements: r.requirements.map(jsonRequirement),
-    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text}))
+    notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
+    role: ev.role
   }
 }
 
@@ -113,8 +129,9 @@ function jsonRequirement(q: RequirementResult): RequirementResult {
 export const noteJson = (o: JsonNote): JsonNote => ({
   file: o.file,
   sourceSha256: o.sourceSha256,
-  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column})),
-  stages: o.stages
+  diagnostics: o.diagnostics.map((d) => ({severity: d.severity, message: d.message, line: d.line, column: d.column, rule: d.rule, kind: d.kind})),
+  stages: o.stages,
+  chains: o.chains ?? []
 })
 
 /** JSON text with non-finite numbers as null (JSON.stringify already writes them as null; this makes it explicit). */

@@ -13,8 +13,9 @@
  */
 import {formatFixed, formatNumber, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
+import {BANDWIDTH_MARGIN, rfNoiseAgainstBandwidth} from './stage-terms.js'
 
-const MARGIN = 10
+const MARGIN = BANDWIDTH_MARGIN
 
 function check({input, result}: RuleContext): RuleFinding[] {
   const bw = result.stability.bandwidth
@@ -36,8 +37,11 @@ function check({input, result}: RuleContext): RuleFinding[] {
     severity: 'caution',
     text:
       `The closed-loop bandwidth, ${formatQuantity(bw, 'Hz')}, is only ${formatFixed(ratio)} × the band's top of ${formatQuantity(fH, 'Hz')} ` +
-      `(under ${MARGIN} ×): gain error and phase shift near the top of the band are no longer negligible. Consider more ` +
-      'gain-bandwidth or less gain in this stage.'
+      `(under ${MARGIN} ×): gain error and phase shift near the top of the band are no longer negligible. ` +
+      (rfNoiseAgainstBandwidth(input, result)
+        ? 'Consider an amplifier with more gain-bandwidth: less gain here (a smaller rf) would widen the bandwidth but raise rf’s ' +
+          'noise, which dominates this stage (resistor-noise-dominant).'
+        : 'Consider more gain-bandwidth or less gain in this stage.')
   }]
 }
 

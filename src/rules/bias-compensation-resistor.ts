@@ -15,13 +15,23 @@
  * bias currents), or when its added p-p noise is at least the DC error it removes.
  * Severity: caution when it does not earn its place, info when it does.
  *
- * What it recommends: remove it, or keep it and bypass it (the bypassed noise is quoted).
+ * What it recommends: remove it, or keep it and bypass it (the bypassed noise is quoted) —
+ * but only with a film capacitor of at most 10 µF: a larger bypass is not suggested, and the
+ * note advises removing the resistor or rethinking the impedances instead.
  */
 import {evaluateStage} from '../engine/index.js'
 import type {Resistor, StageInput, StageResult} from '../engine/types.js'
 import {roundUpToSeries} from './e-series.js'
 import {formatFixed, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
+
+/**
+ * Largest bypass capacitor the rule suggests, F. Film capacitors are practical up to about
+ * 10 µF (common practice); above that only an electrolytic remains, whose leakage current on
+ * a precision node would upset the very match the resistor is there for. Beyond this value
+ * the rule advises removing or rethinking the part instead of a capacitor.
+ */
+export const FILM_MAX = 10e-6
 
 /** IOS/IB above which matching the input resistances buys little (DESIGN §4.2). */
 const IOS_RATIO_LIMIT = 0.5
@@ -91,30 +101,27 @@ function check({input, result}: RuleContext): RuleFinding[] {
     `${formatQuantity(fL, 'Hz')} … ${formatQuantity(input.band[1], 'Hz')}).`
   const existing = name === 'rcomp' ? input.ccomp : input.cf
   const corner = (cap: number): string => formatQuantity(1 / (2 * Math.PI * resistor.value * cap), 'Hz')
-  const capNote = c > 1e-6
-    ? ` A capacitor that large is awkward: an electrolytic's leakage would upset the very match it protects, so weigh removing ${name} instead.`
-    : ''
+  const practical = existing >= c || c <= FILM_MAX
   const bypassText = existing >= c
     ? `It is already bypassed by ${formatQuantity(existing, 'F')} (corner ${corner(existing)}, at most a tenth of the band's lower edge), ` +
       `which keeps its noise out of the band: ${formatQuantity(result.noise.outputRms, 'V')} rms.`
-    : `Bypassing ${name} with ${formatQuantity(c, 'F')} (corner ${corner(c)}, at most a tenth of the band's lower edge) keeps its ` +
-      `DC effect and brings the noise to ${formatQuantity(bypass.noise.outputRms, 'V')} rms ` +
-      `(${formatQuantity(result.noise.outputRms, 'V')} rms as drawn).${capNote}`
-  const table = {
-    header: ['Variant', 'DC worst case', 'DC RSS', 'Noise rms over band'],
-    rows: [
-      row('As drawn', result),
-      row(`Without ${name}`, without),
-      row(`${name} bypassed by ${formatQuantity(Math.max(existing, c), 'F')}`, bypass)
-    ]
-  }
+    : practical
+      ? `Bypassing ${name} with ${formatQuantity(c, 'F')} of film (corner ${corner(c)}, at most a tenth of the band's lower edge) keeps its ` +
+        `DC effect and brings the noise to ${formatQuantity(bypass.noise.outputRms, 'V')} rms ` +
+        `(${formatQuantity(result.noise.outputRms, 'V')} rms as drawn).`
+      : `A bypass capacitor is no answer here: a corner at a tenth of the band's lower edge takes ${formatQuantity(c, 'F')}, beyond the ` +
+        `${formatQuantity(FILM_MAX, 'F')} a film capacitor reaches, and an electrolytic's leakage would upset the very match ${name} is there for. ` +
+        `Remove ${name}, or rethink the impedances around the inputs (lower resistances, or an input type with lower bias current).`
+  const rows = [row('As drawn', result), row(`Without ${name}`, without)]
+  if (practical) rows.push(row(`${name} bypassed by ${formatQuantity(Math.max(existing, c), 'F')}`, bypass))
+  const table = {header: ['Variant', 'DC worst case', 'DC RSS', 'Noise rms over band'], rows}
 
   if (reasons.length > 0) {
     return [{
       severity: 'caution',
       text:
         `${what} does not earn its place: ${reasons.join('; ')}. ${comparison} Consider removing it. ` +
-        (existing >= c ? bypassText : `If it stays, ${bypassText.charAt(0).toLowerCase()}${bypassText.slice(1)}`),
+        (existing >= c || !practical ? bypassText : `If it stays, ${bypassText.charAt(0).toLowerCase()}${bypassText.slice(1)}`),
       table
     }]
   }

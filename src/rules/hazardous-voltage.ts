@@ -2,8 +2,8 @@
  * hazardous-voltage: the stage works at, or is connected to, a hazard.
  *
  * What it checks: a supply span above 60 V DC (commonly taken as the upper limit of extra-low
- * voltage for DC, common practice), and the note's hazard contexts `mains-connected`,
- * `patient-connected` and `high-voltage`.
+ * voltage for DC, common practice), and the note's hazard contexts `mains-connected` and
+ * `high-voltage` (`patient-connected` has a rule of its own, `patient-connected.ts`).
  *
  * When it fires: any of these holds. Severity safety.
  *
@@ -18,15 +18,15 @@ import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
 const SPAN_LIMIT = 60
 
-const CAUTION: Record<Exclude<HazardContext, 'battery'>, string> = {
+/** The deferral every safety note ends with. */
+export const DEFERRAL = 'These are reminders, not a safety assessment: follow the local codes and the safety standards that ' +
+  'apply to the product, and have the design assessed and signed off under licensed professional practice.'
+
+const CAUTION: Record<Exclude<HazardContext, 'battery' | 'patient-connected'>, string> = {
   'mains-connected':
     'Mains-connected: check the isolation barrier (basic, double or reinforced insulation as the parts that can be touched require), ' +
     'creepage and clearance for the working voltage, overvoltage category and pollution degree, protective earthing and fusing, ' +
     'and touch current.',
-  'patient-connected':
-    'Patient-connected: check patient leakage and auxiliary currents in normal and single-fault conditions, the isolation of the ' +
-    'applied part from mains and from earth, protection against defibrillation where it applies, and that the input stays safe ' +
-    'if the amplifier fails.',
   'high-voltage':
     'High voltage: check clearance and creepage across the board and along high-value input resistors (split them in series so ' +
     'each carries its share of the voltage), the energy stored in capacitors (bleed resistors, discharge before handling), ' +
@@ -42,15 +42,14 @@ function check({input, context}: RuleContext): RuleFinding[] {
       'they can reach as hazardous live parts (insulation, spacing, guarding, stored energy in the supply capacitors).'
     )
   }
-  for (const hazard of ['mains-connected', 'patient-connected', 'high-voltage'] as const) {
+  for (const hazard of ['mains-connected', 'high-voltage'] as const) {
     if (context.includes(hazard)) parts.push(CAUTION[hazard])
   }
   if (parts.length === 0) return []
   return [{
     severity: 'safety',
     text:
-      `${parts.join(' ')} These are reminders, not a safety assessment: follow the local codes and the safety standards that ` +
-      'apply to the product, and have the design assessed and signed off under licensed professional practice.'
+      `${parts.join(' ')} ${DEFERRAL}`
   }]
 }
 

@@ -21,43 +21,23 @@ import lowValueResistor from './low-value-resistor.js'
 import lowerBiasInputType from './lower-bias-input-type.js'
 import matchedDcResistance from './matched-dc-resistance.js'
 import outputSwing from './output-swing.js'
+import patientConnected from './patient-connected.js'
 import phaseMarginLow from './phase-margin-low.js'
 import resistorNoiseDominant from './resistor-noise-dominant.js'
 import temperatureNotEntered from './temperature-not-entered.js'
 import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
+import {RULE_IDS, type RuleId} from './ids.js'
 import type {Rule, RuleContext} from './rule.js'
 import type {RuleNote} from './types.js'
 
 export type {Rule, RuleContext, RuleFinding} from './rule.js'
 
-/** Rule ids, in run order: safety first, then stability, swing, DC, noise, parts. */
-export const RULE_IDS = [
-  'hazardous-voltage',
-  'battery-stored-energy',
-  'phase-margin-low',
-  'capacitive-load',
-  'transimpedance-feedback-cap',
-  'follower-feedback-resistor',
-  'output-swing',
-  'limit-data-missing',
-  'bandwidth-margin',
-  'filter-gbw',
-  'bias-compensation-resistor',
-  'matched-dc-resistance',
-  'lower-bias-input-type',
-  'fet-bias-hot-end',
-  'bias-over-temperature-missing',
-  'temperature-not-entered',
-  'resistor-noise-dominant',
-  'low-value-resistor',
-  'e-series-values'
-] as const
-export type RuleId = (typeof RULE_IDS)[number]
-export const isRuleId = (s: string): s is RuleId => (RULE_IDS as readonly string[]).includes(s)
+export {CHAIN_RULE_IDS, RULE_IDS, isNoteRuleId, isRuleId, type ChainRuleId, type NoteRuleId, type RuleId} from './ids.js'
 
 /** Every rule under its own id. */
 export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'hazardous-voltage': hazardousVoltage,
+  'patient-connected': patientConnected,
   'battery-stored-energy': batteryStoredEnergy,
   'phase-margin-low': phaseMarginLow,
   'capacitive-load': capacitiveLoad,

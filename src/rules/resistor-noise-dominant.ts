@@ -14,14 +14,14 @@
  * falls as rf rises, so more transimpedance in rf helps; r1, r2, r3 of a low-pass stage:
  * scale the resistors down and the capacitors up together, which keeps f0 and Q.
  */
-import type {NoiseKey, StageInput} from '../engine/types.js'
+import type {NoiseKey, StageInput, StageResult} from '../engine/types.js'
 import {formatPercent, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
-import {unmetRequirements} from './stage-terms.js'
+import {BANDWIDTH_MARGIN, rfNoiseAgainstBandwidth, unmetRequirements} from './stage-terms.js'
 
 const SHARE_LIMIT = 0.5
 
-function advice(input: StageInput, key: NoiseKey): string {
+function advice(input: StageInput, result: StageResult, key: NoiseKey): string {
   switch (key) {
     case 'r:rs':
     case 'r:rshunt':
@@ -40,6 +40,11 @@ function advice(input: StageInput, key: NoiseKey): string {
     case 'r:rload':
       return 'The load network itself dominates: check riso and rload.'
     case 'r:rf':
+      if (rfNoiseAgainstBandwidth(input, result)) {
+        return 'In a transimpedance stage rf’s input-referred noise current √(4kT/Rf) falls as rf rises, but a larger rf would narrow a ' +
+          `closed-loop bandwidth that is already short of ${BANDWIDTH_MARGIN} × the band's top (bandwidth-margin): an amplifier with more ` +
+          'gain-bandwidth serves both, keeping the bandwidth with a larger rf; a smaller rf or less gain in this stage would raise this noise.'
+      }
       if (input.topology === 'transimpedance') {
         return 'In a transimpedance stage rf’s input-referred noise current √(4kT/Rf) falls as rf rises: put more of the gain in rf rather than in later stages.'
       }
@@ -63,7 +68,7 @@ function check({input, result}: RuleContext): RuleFinding[] {
     text:
       `Resistor thermal noise is ${formatPercent(share)} of the output noise power (${formatQuantity(Math.sqrt(power), 'V')} of ` +
       `${formatQuantity(total, 'V')} rms); the largest is ${largest.key.slice(2)} with ${formatQuantity(largest.outputRms, 'V')} rms. ` +
-      advice(input, largest.key) +
+      advice(input, result, largest.key) +
       (unmet.length > 0 ? ` Unmet here: ${unmet.map((r) => r.key).join(', ')}.` : '')
   }]
 }

@@ -62,3 +62,34 @@ export function unmetRequirements(result: StageResult, keys: readonly Requiremen
   return result.requirements.filter((r): r is RequireResult => r.kind === 'require' && !r.met && keys.includes(r.key))
 }
 
+
+/** Ratio under which the closed-loop bandwidth is too close to the band's top (bandwidth-margin; common practice). */
+export const BANDWIDTH_MARGIN = 10
+
+/** Closed-loop bandwidth ÷ the band's top, or null when the bandwidth is not reached. */
+export function bandwidthRatio(input: StageInput, result: StageResult): number | null {
+  const bw = result.stability.bandwidth
+  return bw === null ? null : bw / input.band[1]
+}
+
+/** Share of the output noise power that resistors' thermal noise makes (0 … 1). */
+export function resistorNoiseShare(result: StageResult): number {
+  const total = result.noise.outputRms
+  if (!(total > 0)) return 0
+  const power = result.noise.contributors.filter((c) => c.key.startsWith('r:')).reduce((sum, c) => sum + c.outputRms ** 2, 0)
+  return power / total ** 2
+}
+
+/**
+ * True when rf's thermal noise dominates a transimpedance stage whose bandwidth margin is
+ * short: "more gain in rf" (noise) and "less gain" (bandwidth) pull against each other, and
+ * both rules then give the one recommendation that serves both, more gain-bandwidth.
+ */
+export function rfNoiseAgainstBandwidth(input: StageInput, result: StageResult): boolean {
+  if (input.topology !== 'transimpedance') return false
+  const ratio = bandwidthRatio(input, result)
+  if (ratio === null || ratio >= BANDWIDTH_MARGIN || resistorNoiseShare(result) <= 0.5) return false
+  const resistors = result.noise.contributors.filter((c) => c.key.startsWith('r:'))
+  const largest = resistors.reduce((a, b) => (b.outputRms > a.outputRms ? b : a), resistors[0] ?? {key: 'r:rf', outputRms: 0})
+  return largest.key === 'r:rf'
+}

@@ -2,6 +2,8 @@
  * What a practice or safety rule returns. Each rule is a pure function of a stage's inputs
  * and results; `src/rules/index.ts` stamps the rule id and runs them in order.
  */
+import type {NoteRuleId} from './ids.js'
+
 export const SEVERITIES = ['info', 'caution', 'warning', 'safety'] as const
 export type Severity = (typeof SEVERITIES)[number]
 
@@ -12,10 +14,15 @@ export interface NoteTable {
 }
 
 export interface RuleNote {
-  /** Rule id, from `src/rules/index.ts`. */
-  rule: string
+  /** Rule id (`src/rules/ids.ts`). */
+  rule: NoteRuleId
   severity: Severity
   /** One paragraph quoting the numbers that triggered it and what to consider. */
   text: string
   table?: NoteTable
+  /**
+   * The author's reason when the stage's `accept:` map accepts this rule (set by
+   * src/evaluate, never by a rule): the note is shown as accepted and is no warning.
+   */
+  accepted?: string
 }

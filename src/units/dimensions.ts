@@ -114,6 +114,31 @@ export const DIMENSIONS = {
     ]
   },
   angle: {label: 'an angle', si: '°', example: '60 deg', rkm: '', units: [{symbols: ['deg', '°'], exp: 0, prefixed: false}]},
+  // Converter keys only (DESIGN §8.5): a voltage, or a count of LSB that the adc block turns
+  // into volts with its own LSB = span / 2^bits. No other dimension knows `LSB`.
+  'converter-voltage': {
+    label: 'a converter voltage (V or LSB)', si: 'V', example: '0.5 LSB', rkm: '',
+    units: [
+      {symbols: ['V'], exp: 0, prefixed: true},
+      {symbols: ['LSB', 'LSBs'], exp: 0, prefixed: false}
+    ]
+  },
+  'converter-drift': {
+    label: 'a converter drift (V/K or LSB/K)', si: 'V/K', example: '0.1 LSB/K', rkm: '',
+    units: [
+      {symbols: perKelvin('V'), exp: 0, prefixed: true},
+      {symbols: perKelvin('LSB'), exp: 0, prefixed: false}
+    ]
+  },
+  /** A count of LSB: a bare number is LSB (`inl`, `error-lsb`). */
+  lsb: {label: 'a number of LSB', si: 'LSB', example: '2 LSB', rkm: '', units: [{symbols: ['LSB', 'LSBs', ''], exp: 0, prefixed: false}]},
+  /** A count of bits (`bits`, `noise-free-bits`, `effective-bits`). */
+  bits: {label: 'a number of bits', si: 'bits', example: '17 bits', rkm: '', units: [{symbols: ['', 'bits', 'bit'], exp: 0, prefixed: false}]},
+  /** A sampling rate: Hz or samples per second. */
+  'sample-rate': {
+    label: 'a sample rate', si: 'Hz', example: '1 MS/s', rkm: '',
+    units: [{symbols: ['Hz'], exp: 0, prefixed: true}, {symbols: ['S/s', 'SPS', 'sps'], exp: 0, prefixed: true}]
+  },
   slew: {
     label: 'a slew rate', si: 'V/s', example: '0.5 V/µs', rkm: '',
     units: [

@@ -134,10 +134,22 @@ export function formatTempco(perKelvin: number, opts: FormatOptions = {}): strin
 }
 
 /**
+ * Enough significant digits (from `digits`, at most 7) that two different ends of a range
+ * print differently: 2.499 … 2.501 V, never "2.5 … 2.5 V".
+ */
+export function distinctDigits(low: number, high: number, unit: string, digits = 3): number {
+  let d = digits
+  while (low !== high && d < 7 && formatQuantity(low, unit, {digits: d}) === formatQuantity(high, unit, {digits: d})) d++
+  return d
+}
+
+/**
  * A range with the unit once where both ends share it: `−10 … 10 mV`, `0 … 10 kHz`,
  * `100 mHz … 10 kHz`.
  */
 export function formatRange(low: number, high: number, unit: string, opts: FormatOptions = {}): string {
+  const digits = distinctDigits(low, high, unit, opts.digits ?? 3)
+  opts = {...opts, digits}
   const hi = formatQuantity(high, unit, opts)
   if (low === 0 && unit !== '') return `0 … ${hi}`
   const lo = formatQuantity(low, unit, opts)

@@ -35,6 +35,8 @@ export const unitsMessages = {
     `Unexpected unit \`${unit}\`${where}, expected ${expectedOf(dim)}`,
   wrongDimension: (unit: string, found: Dimension, dim: Dimension, where: string) =>
     `Unexpected unit \`${unit}\` (${DIMENSIONS[found].label})${where}, expected ${expectedOf(dim)}`,
+  lsbNotHere: (unit: string, dim: Dimension, where: string) =>
+    `Unexpected unit \`${unit}\`${where}, expected ${expectedOf(dim)}: \`LSB\` is legal only on the keys of an adc block and a chain's converter requirements`,
   wrongCase: (prefix: string, meant: string, unit: string, where: string) =>
     `Unexpected prefix \`${prefix}\` in \`${unit}\`${where}, expected \`${meant}\`: SI prefixes are case-sensitive`,
   prefixNotAllowed: (unit: string, dim: Dimension, where: string) =>

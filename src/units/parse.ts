@@ -88,6 +88,10 @@ function unitProblem(rest: string, dim: Dimension, where: string): string {
       return unitsMessages.prefixNotAllowed(rest, dim, where)
     }
   }
+  // `LSB` is a converter's own unit (DESIGN §8.5): legal only on converter keys.
+  if (/^LSBs?(\/|$)/.test(rest) && !dimensionSpec(dim).units.some((u) => u.symbols.includes('LSB'))) {
+    return unitsMessages.lsbNotHere(rest, dim, where)
+  }
   const meant = WRONG_CASE_PREFIXES[rest.charAt(0)]
   if (meant !== undefined && lookup(meant + rest.slice(1), dim)) {
     return unitsMessages.wrongCase(rest.charAt(0), meant, rest, where)

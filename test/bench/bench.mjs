@@ -6,7 +6,8 @@
  *       sample reports — against a cold `build` of sample-designs/, and `node -e 0` against
  *       a cold `check`; each ratio with its target and pass/FAIL; and a module-load trace of
  *       `check` (it must load no pdfkit, fontkit or vega and read no font);
- *   (b) stage evaluations per second, in this process, on sample-like inputs;
+ *   (b) stage evaluations per second, in this process, on sample-like inputs, and a chain
+ *       of four stages into a converter (target: under 2 ms on one core);
  *   (c) notes of 50, 200 and 1,000 stages built with --format json (the 50-stage one also
  *       as PDF): time and growth per stage;
  *   (d) a no-op rebuild of 100 cached notes;
@@ -278,6 +279,38 @@ for (const [name, input] of Object.entries(inputs)) {
 const overall = allEvals / allSeconds
 for (const [name, rate] of Object.entries(rates)) row('b', `evaluateStage, ${name} (${EVALS} runs)`, `${rate.toFixed(0)} /s`, '≥ 2000 /s', rate >= 2000)
 row('b', 'evaluateStage, all topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
+
+// ---------------------------------------------------------------------------------------
+// (b2) A measurement chain of four stages into a converter (DESIGN §8.6), in this process:
+// the cascade alone (each stage evaluated once beforehand), and the whole chain with its
+// four stage evaluations.
+
+progress('chain evaluations')
+const {evaluateChain, stageSpectrum, ADC_ARCHETYPES} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
+const chainStages = [
+  {...base, id: 's1'},
+  {...inputs.inverting, id: 's2', rf: res(10e3), rg: res(10e3), cf: 100e-9, input: [-1, 1], band: [0.1, 10]},
+  {...base, id: 's3', rf: res(1e3), rg: res(1e3), rs: null, input: [-1, 1]},
+  {...base, id: 's4', topology: 'follower', rf: null, rg: null, rs: null, input: [-2, 2]}
+]
+const chainInput = {id: 'bench-chain', title: 'bench', stages: chainStages.map((s) => s.id), adc: ADC_ARCHETYPES['delta-sigma-24'],
+  temperature: [0, 50], band: [0.1, 10], calibration: 'none', require: {'noise-free-bits': 16}}
+const viewsOf = (evaluated) => evaluated.map(({input, result}) => ({
+  id: input.id, gain: result.gain, contributors: result.dc.contributors, calibrated: null, outputSpan: result.swing.outputSpan,
+  inputSpan: input.input, bandwidth: result.stability.bandwidth, spectrum: stageSpectrum(input)
+}))
+const wholeChain = () => evaluateChain(chainInput, viewsOf(chainStages.map((input) => ({input, result: evaluateStage(input)}))))
+const evaluatedOnce = chainStages.map((input) => ({input, result: evaluateStage(input)}))
+const CHAINS = QUICK ? 200 : 1000
+for (let i = 0; i < 50; i++) wholeChain()
+let t0 = performance.now()
+for (let i = 0; i < CHAINS; i++) evaluateChain(chainInput, viewsOf(evaluatedOnce))
+const cascadeMs = (performance.now() - t0) / CHAINS
+t0 = performance.now()
+for (let i = 0; i < CHAINS; i++) wholeChain()
+const chainMs = (performance.now() - t0) / CHAINS
+row('b', `chain of 4 stages + converter, cascade only (${CHAINS} runs)`, `${cascadeMs.toFixed(3)} ms`, '—')
+row('b', `chain of 4 stages + converter, with its 4 stage evaluations (${CHAINS} runs)`, `${chainMs.toFixed(3)} ms`, '< 2 ms', chainMs < 2)
 
 // ---------------------------------------------------------------------------------------
 // (c) Large notes

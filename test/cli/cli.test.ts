@@ -1,7 +1,7 @@
 import {describe, expect, it} from 'vitest'
 import {existsSync, readFileSync, statSync, writeFileSync} from 'node:fs'
 import {join} from 'node:path'
-import {ROOT, runCli, tempNotes} from './helpers.js'
+import {ROOT, runCli, runCliProcess, tempNotes} from './helpers.js'
 import {goodNote, unmetNote} from './workflow-helpers.js'
 
 const GOOD = goodNote()
@@ -23,16 +23,18 @@ temperature: 85 .. -40 °C
 \`\`\`
 `
 
+// Most runs below go in-process (see helpers.ts); these few start the real executable, so
+// that its exit codes, streams and argument handling are proven as a user meets them.
 describe('ampreview CLI', () => {
   it('prints its version', () => {
     const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as {version: string}
-    const r = runCli(['--version'])
+    const r = runCliProcess(['--version'])
     expect(r.status).toBe(0)
     expect(r.stdout.trim()).toBe(`ampreview ${pkg.version}`)
   })
 
   it('exits 2 with usage on an unknown command', () => {
-    const r = runCli(['bild', 'x.md'])
+    const r = runCliProcess(['bild', 'x.md'])
     expect(r.status).toBe(2)
     expect(r.stderr).toContain('Unexpected command `bild`')
     expect(r.stderr).not.toMatch(/\n\s+at /)
@@ -40,14 +42,14 @@ describe('ampreview CLI', () => {
 
   it('check exits 0 when every requirement is met', () => {
     const dir = tempNotes({'good.md': GOOD})
-    const r = runCli(['check', join(dir, 'good.md')])
+    const r = runCliProcess(['check', join(dir, 'good.md')])
     expect(r.stderr).not.toMatch(/: (error|warning): /)
     expect(r.status).toBe(0)
   })
 
   it('check exits 1 when a requirement is not met, and says where', () => {
     const dir = tempNotes({'unmet.md': UNMET})
-    const r = runCli(['check', join(dir, 'unmet.md')])
+    const r = runCliProcess(['check', join(dir, 'unmet.md')])
     expect(r.status).toBe(1)
     expect(r.stderr).toContain(`${join(dir, 'unmet.md')}:18:3: warning: Requirement \`noise-rms\``)
   })
@@ -83,7 +85,7 @@ describe('ampreview CLI', () => {
     expect(out.files).toHaveLength(1)
     expect(out.files[0]!.sourceSha256).toMatch(/^[0-9a-f]{64}$/)
     expect(Object.keys(out.files[0]!.stages[0]!)).toEqual(
-      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes'])
+      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role'])
   })
 
   it.each([

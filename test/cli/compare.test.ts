@@ -82,6 +82,26 @@ describe('compare', () => {
     expect(r.stdout.trim().split('\n')).toEqual([`amp gain: ${base.files[0]!.stages[0]!.gain.toPrecision(4)} V/V → 12.5 V/V +2.41 V/V (+23.89 %)`])
   })
 
+  it('leaves out changes under the default 0.1 %, and under --threshold 1%', () => {
+    const g = base.files[0]!.stages[0]!.gain
+    const tiny = write('tiny.json', edit(base, (s) => { s.gain = g * 1.0005 }))
+    const small = write('small.json', edit(base, (s) => { s.gain = g * 1.005 }))
+    expect(runCli(['compare', write('o1.json', base), tiny]).stdout.trim()).toBe('No value or verdict changed.')
+    expect(runCli(['compare', write('o2.json', base), small]).stdout).toContain('amp gain:')
+    expect(runCli(['compare', '--threshold', '1%', write('o3.json', base), small]).stdout.trim()).toBe('No value or verdict changed.')
+  })
+
+  it('still lists a verdict flip whatever the threshold', () => {
+    const r = runCli(['compare', '--threshold', '50%', write('o4.json', base), write('n4.json', edit(base, (s) => { s.requirements[0]!.met = false }))])
+    expect(r.status).toBe(1)
+  })
+
+  it('refuses a threshold that is not a percentage', () => {
+    const r = runCli(['compare', '--threshold', '0.01', write('o5.json', base), write('n5.json', base)])
+    expect(r.status).toBe(2)
+    expect(r.stderr).toContain('expected a percentage such as `1%`')
+  })
+
   it('exits 1 when a stage with a met requirement disappears', () => {
     const r = runCli(['compare', write('old.json', base), write('new.json', {files: [{...base.files[0]!, stages: []}]})])
     expect(r.status).toBe(1)

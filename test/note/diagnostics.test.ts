@@ -1,6 +1,7 @@
 import {describe, expect, it} from 'vitest'
 import {TOPOLOGIES} from '../../src/engine/types.js'
 import {decodeNote, noteMessages} from '../../src/note/index.js'
+import {chainMessages} from '../../src/note/chain-messages.js'
 import {unitsMessages} from '../../src/units/index.js'
 import {blocksOf, errorsOf, noteOf} from './helpers.js'
 
@@ -221,10 +222,10 @@ describe('parseNote() fences and files', () => {
     expect(r.stages[0]?.input).not.toBeNull()
   })
 
-  it('warns about a chain block and leaves it as code', () => {
-    const {note: parsed, diagnostics} = noteOf('```chain front-end\ngain-a -> gain-b\n```\n')
-    expect(diagnostics).toEqual([warn(1, 1, noteMessages.chainUnsupported())])
-    expect(parsed.tree.children[0]?.type).toBe('code')
+  it('reads a chain block into a chain node, and names an unknown stage at its place', () => {
+    const {note: parsed, diagnostics} = noteOf('```chain front-end\nstages: [gain-a]\n```\n')
+    expect(diagnostics).toEqual([err(2, 10, chainMessages.unknownStage('gain-a', 'chain `front-end`', null))])
+    expect(parsed.tree.children[0]?.type).toBe('chainBlock')
   })
 
   it('refuses a binary file before parsing, with one message', () => {

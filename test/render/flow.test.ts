@@ -6,7 +6,7 @@
 import {beforeAll, describe, expect, it} from 'vitest'
 import {renderPdf} from '../../src/render/pdf/index.js'
 import {flowReport, range} from './flow-sample.js'
-import {fontSet, readPdf, standardTheme, type ReadBack} from './helpers.js'
+import {coverOf, fontSet, readPdf, standardTheme, type ReadBack} from './helpers.js'
 
 /** Numbers k for which `prefix + k` occurs as a whole word, in order of appearance. */
 function found(text: string, prefix: string): number[] {
@@ -79,8 +79,8 @@ describe('renderPdf() page flow', () => {
 
 describe('renderPdf() cover overflow', () => {
   it('flows a long verdict table onto the next page, header repeated, body after it', async () => {
-    const verdicts = range(45).map((k) => ({stage: `stage-${k}`, requirement: 'noise-rms', value: `${k} µV`, limit: '≤ 30 µV', verdict: k > 30 ? 'not-met' as const : 'met' as const}))
-    const doc = {...flowReport(), cover: {verdicts, overall: 'not-met' as const}}
+    const verdicts = range(45).map((k) => ({stage: `stage-${k}`, requirement: 'noise-rms', value: `${k} µV`, limit: '≤ 30 µV', verdict: k > 30 ? 'not-met' as const : 'met' as const, counted: true}))
+    const doc = {...flowReport(), cover: coverOf(verdicts, 'not-met')}
     doc.body = {type: 'root', children: [{type: 'heading', depth: 1, children: [{type: 'text', value: 'Body starts'}]}]}
     const out = await renderPdf(doc, {theme: standardTheme(), fonts: fontSet(), images: new Map(), date: new Date(0)})
     const pdf = await readPdf(out.pdf)
@@ -92,6 +92,6 @@ describe('renderPdf() cover overflow', () => {
     const closing = pdf.pages.findIndex((t) => t.includes('Limits of this report'))
     const body = pdf.pages.findIndex((t) => t.includes('Body starts'))
     expect(body).toBe(closing + 1)
-    expect(all).toContain('Overall: 15 of 45 requirements not met')
+    expect(all).toContain('Overall: 15 of the 45 requirements of 45 stages not met')
   })
 })

@@ -12,7 +12,7 @@ import remarkParse from 'remark-parse'
 import {unified} from 'unified'
 import type {DocumentMeta} from '../../src/note/types.js'
 import {parseTheme, type FontSet, type Theme} from '../../src/render/pdf/index.js'
-import type {CoverVerdict, ReportDocument, Verdict} from '../../src/report/types.js'
+import type {CoverSummary, CoverVerdict, ReportDocument, Verdict} from '../../src/report/types.js'
 
 const ROOT = resolve(import.meta.dirname, '..', '..')
 
@@ -72,12 +72,22 @@ export interface ReportParts {
   overall?: Verdict
 }
 
+/** A cover summary for hand-made verdict rows: every row counted, no notes or archetypes. */
+export function coverOf(verdicts: CoverVerdict[], overall: Verdict, extra: Partial<CoverSummary> = {}): CoverSummary {
+  const counted = verdicts.filter((v) => v.counted)
+  return {
+    verdicts, overall, baseline: [], archetypes: [], notes: [],
+    counted: {stages: new Set(counted.map((v) => v.stage)).size, chains: 0, requirements: counted.length, notMet: counted.filter((v) => v.verdict === 'not-met').length},
+    ...extra
+  }
+}
+
 export function report(parts: ReportParts): ReportDocument {
   const body = markdown(parts.body ?? '')
   body.children.push(...(parts.bodyNodes ?? []))
   return {
     meta: parts.meta ?? meta(),
-    cover: {verdicts: parts.verdicts ?? [], overall: parts.overall ?? 'not-evaluated'},
+    cover: coverOf(parts.verdicts ?? [], parts.overall ?? 'not-evaluated'),
     body,
     appendix: markdown(parts.appendix ?? ''),
     closing: markdown(`${templateText('signoff.md')}\n\n${templateText('closing.md')}`),

@@ -123,7 +123,7 @@ describe('renderPdf() on the sample report', () => {
       for (const s of ['DR-0042', 'Weigh-cell concept', '2026-03-14', 'Ada Kestrel', 'For review', 'NOT MET', 'MET', 'NOT EVALUATED']) {
         expect(cover).toContain(nfkc(s))
       }
-      expect(cover).toContain('Overall: 1 of 3 requirements not met')
+      expect(cover).toContain('Overall: 1 of the 3 requirements of 1 stage not met')
     })
 
     it('lists the author as "Prepared by" and one row per reviewer', () => {

@@ -79,9 +79,9 @@ export function sampleReport(): ReportDocument {
     bodyNodes: sampleNodes(),
     appendix: '# Appendix A — Method\n\nThe method text.\n\n## Inputs\n\nNote SHA-256 and tool version.',
     verdicts: [
-      {stage: 'bridge-amp', requirement: 'output-error', value: '3.4 mV', limit: '≤ 3 mV', verdict: 'not-met'},
-      {stage: 'bridge-amp', requirement: 'noise-rms', value: '21 µV', limit: '≤ 30 µV', verdict: 'met'},
-      {stage: 'bridge-amp', requirement: 'phase-margin', value: '—', limit: '≥ 50°', verdict: 'not-evaluated'},
+      {stage: 'bridge-amp', requirement: 'output-error', value: '3.4 mV', limit: '≤ 3 mV', verdict: 'not-met', counted: true},
+      {stage: 'bridge-amp', requirement: 'noise-rms', value: '21 µV', limit: '≤ 30 µV', verdict: 'met', counted: true},
+      {stage: 'bridge-amp', requirement: 'phase-margin', value: '—', limit: '≥ 50°', verdict: 'not-evaluated', counted: true},
     ],
     overall: 'not-met',
   })

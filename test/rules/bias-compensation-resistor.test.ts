@@ -14,7 +14,10 @@ const inverting = (over: Partial<StageInput> = {}): StageInput =>
   stageInput({topology: 'inverting', rf: resistor(100e3), rg: resistor(10e3), rcomp: resistor(9.09e3), band: [10, 1000], ...over})
 
 // IB 250 nA, IOS 50 nA (IOS/IB = 0.2): the resistor removes ~IB·Rn·NG ≈ 25 mV and adds µV of noise.
-const earns = inverting({opamp: ARCHETYPES['general-bipolar']})
+// Band from 100 Hz: the bypass for a corner at 10 Hz is 1.75 µF → 2.2 µF, a film part.
+const earns = inverting({opamp: ARCHETYPES['general-bipolar'], band: [100, 1000]})
+// The same stage from 10 Hz would need 17.5 µF → 22 µF: beyond film, so no bypass is suggested.
+const earnsLowBand = inverting({opamp: ARCHETYPES['general-bipolar']})
 // JFET input: pA bias currents.
 const jfet = inverting({opamp: ARCHETYPES['precision-jfet']})
 // IB 2.5 nA, IOS 2 nA (IOS/IB = 0.8).
@@ -50,19 +53,27 @@ describe('rules/bias-compensation-resistor', () => {
     const notes = checkWithEngine(earns)
     expect(notes.map((n) => n.severity)).toEqual(['info'])
     expect(notes[0]!.text).toContain('earns its place')
-    expect(notes[0]!.text).toContain(formatQuantity(22e-6, 'F'))
+    expect(notes[0]!.text).toContain(`${formatQuantity(2.2e-6, 'F')} of film`)
+  })
+
+  it('suggests no bypass above 10 µF (film) and advises removing or rethinking instead', () => {
+    const [note] = checkWithEngine(earnsLowBand)
+    expect(note!.text).toContain(`takes ${formatQuantity(22e-6, 'F')}, beyond the 10 µF a film capacitor reaches`)
+    expect(note!.text).toContain('Remove rcomp, or rethink the impedances')
+    expect(note!.text).not.toMatch(/Bypassing rcomp with/)
+    expect(note!.table!.rows.map((r) => r[0])).toEqual(['As drawn', 'Without rcomp'])
   })
 
   it('tabulates as drawn, without and bypassed with the engine’s own figures', () => {
     const [note] = checkWithEngine(earns)
     const drawn = evaluateStage(earns)
     const without = evaluateStage({...earns, rcomp: null, ccomp: 0})
-    const bypassed = evaluateStage({...earns, ccomp: 22e-6})
+    const bypassed = evaluateStage({...earns, ccomp: 2.2e-6})
     const row = (label: string, r: typeof drawn) =>
       [label, formatQuantity(r.dc.worstCaseOutput, 'V'), formatQuantity(r.dc.rssOutput, 'V'), formatQuantity(r.noise.outputRms, 'V')]
     expect(note!.table).toEqual({
       header: ['Variant', 'DC worst case', 'DC RSS', 'Noise rms over band'],
-      rows: [row('As drawn', drawn), row('Without rcomp', without), row(`rcomp bypassed by ${formatQuantity(22e-6, 'F')}`, bypassed)]
+      rows: [row('As drawn', drawn), row('Without rcomp', without), row(`rcomp bypassed by ${formatQuantity(2.2e-6, 'F')}`, bypassed)]
     })
   })
 
@@ -74,7 +85,7 @@ describe('rules/bias-compensation-resistor', () => {
 
   it('finds the bypassed stage quieter than as drawn and no better at DC than without', () => {
     const drawn = evaluateStage(earns)
-    const bypassed = evaluateStage({...earns, ccomp: 22e-6})
+    const bypassed = evaluateStage({...earns, ccomp: 2.2e-6})
     expect(bypassed.noise.outputRms).toBeLessThan(drawn.noise.outputRms)
     expect(bypassed.dc.worstCaseOutput).toBeCloseTo(drawn.dc.worstCaseOutput, 12)
   })
@@ -93,7 +104,8 @@ describe('rules/bias-compensation-resistor', () => {
   it('treats a follower’s rf as the compensation resistor', () => {
     const [note] = checkWithEngine(follower)
     expect(note!.text).toContain('rf = 100 kΩ of this follower')
-    expect(note!.table!.rows.map((r) => r[0])).toEqual(['As drawn', 'Without rf', expect.stringContaining('rf bypassed by')])
+    // From 0.1 Hz through 100 kΩ the bypass would be 220 µF: not suggested.
+    expect(note!.table!.rows.map((r) => r[0])).toEqual(['As drawn', 'Without rf'])
   })
 
   it.each([

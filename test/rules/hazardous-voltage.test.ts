@@ -9,7 +9,6 @@ describe('rules/hazardous-voltage', () => {
   it.each([
     ['a ±40 V supply (80 V span)', stageInput({supply: [-40, 40]}), [], '80 V'],
     ['mains-connected', stageInput(), ['mains-connected'], 'creepage and clearance'],
-    ['patient-connected', stageInput(), ['patient-connected'], 'patient leakage'],
     ['high-voltage', stageInput(), ['high-voltage'], 'stored in capacitors']
   ] as const)('raises a safety note for %s, with the deferral', (_name, input, context, quoted) => {
     const notes = rule.check(ruleContext(input, stageResult({}, input), context as readonly HazardContext[]))
@@ -22,7 +21,8 @@ describe('rules/hazardous-voltage', () => {
   it.each([
     ['±15 V and no context', stageInput(), []],
     ['exactly 60 V (0 .. 60 V)', stageInput({supply: [0, 60]}), []],
-    ['only a battery context', stageInput(), ['battery']]
+    ['only a battery context', stageInput(), ['battery']],
+    ['only a patient-connected context (its own rule)', stageInput(), ['patient-connected']]
   ] as const)('stays silent with %s', (_name, input, context) => {
     expect(rule.check(ruleContext(input, stageResult({}, input), context as readonly HazardContext[]))).toEqual([])
   })

@@ -62,3 +62,15 @@ describe('format helpers', () => {
     expect(actual).toBe(expected)
   })
 })
+
+describe('formatRange() on narrow ranges', () => {
+  it('prints enough digits to tell the ends apart: 2.499 … 2.501 V', () => {
+    expect(formatRange(2.499, 2.501, 'V')).toBe('2.499 … 2.501 V')
+  })
+  it('keeps 3 digits when they already differ', () => {
+    expect(formatRange(-0.01, 0.01, 'V')).toBe('−10 … 10 mV')
+  })
+  it('prints equal ends once each, without extra digits', () => {
+    expect(formatRange(2.5, 2.5, 'V')).toBe('2.5 … 2.5 V')
+  })
+})

@@ -8,9 +8,11 @@ import {gfmToMarkdown} from 'mdast-util-gfm'
 import {toMarkdown} from 'mdast-util-to-markdown'
 import {verdictText} from '../../report/format.js'
 import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
+import {overallSentence, SEVERITY_WORDS} from '../../report/cover-text.js'
 import {webLink} from '../links.js'
 import type {FigureNode, ReportDocument} from '../../report/types.js'
 import type {CompiledFigures} from '../chart/compile.js'
+import {drawingToSvg} from './schematic-svg.js'
 
 export interface MarkdownReport {
   markdown: string
@@ -37,6 +39,13 @@ function plain(nodes: RootContent[], figures: Figures, phrasing = false): RootCo
         const compiled = figures.compiled.get(node)
         if (compiled === undefined) throw new Error(`Figure ${node.number} was not compiled before writing the Markdown`)
         figures.out.push({name, svg: compiled.svg})
+        out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
+          paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
+        break
+      }
+      case 'schematic': {
+        const name = figures.name(node.number)
+        figures.out.push({name, svg: drawingToSvg(node.drawing)})
         out.push({type: 'paragraph', children: [{type: 'image', url: name, alt: `Figure ${node.number}`}]},
           paragraph({type: 'emphasis', children: [text(`Figure ${node.number} — ${node.caption}`)]}))
         break
@@ -85,13 +94,22 @@ export function reportToMarkdown(doc: ReportDocument, compiled: CompiledFigures,
     ['Date', m.date], ['Author', m.author], ['Status', m.status]]
   const metaRows = meta.flatMap(([k, v]) => (v === null ? [] : [[k, v]]))
   const cover: RootContent[] = [heading(1, m.title ?? 'Design review'), table(['Item', 'Value'], metaRows)]
+  const c = doc.cover
   cover.push(heading(2, 'Requirement verdicts'),
-    doc.cover.verdicts.length === 0
+    c.verdicts.length === 0
       ? paragraph('No requirements stated.')
       : table(['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'],
-        doc.cover.verdicts.map((v) => [v.stage, v.requirement, v.value, v.limit, verdictText(v.verdict)])),
+        c.verdicts.map((v) => [v.counted ? v.stage : `${v.stage} (baseline)`, v.requirement, v.value, v.limit,
+          v.counted ? verdictText(v.verdict) : `${verdictText(v.verdict)} (not counted)`])),
     // The space stays outside the strong span: inside, it would be written as `&#x20;`.
-    paragraph(strong('Overall:'), ` ${verdictText(doc.cover.overall)}`))
+    paragraph(strong('Overall:'), ` ${overallSentence(c).replace(/^Overall: /, '')}`))
+  for (const a of c.archetypes) {
+    cover.push(paragraph(`Stage ${a.stage} uses the archetype ${a.opamp}: its figures are for the class, not a part.`))
+  }
+  cover.push(heading(2, 'Open notes'), c.notes.length === 0
+    ? paragraph('No caution, warning or safety note was raised.')
+    : table(['Severity', 'Where', 'Note', 'Rule', 'Accepted'], c.notes.map((n) => [
+      SEVERITY_WORDS[n.severity], n.stage === null ? 'every stage' : n.stage, n.title, n.rule, n.accepted ?? '—'])))
   // The closing statement refers to signatures "above": one row to sign per reviewer.
   const signOff: RootContent[] = m.reviewers.length === 0 ? [] : [heading(2, 'Sign-off'),
     table(['Reviewer', 'Role', 'Signature', 'Date'], m.reviewers.map((r) => [r.name, r.role, '', '']))]

@@ -14,6 +14,7 @@ import {
 import {drawImage} from './image.js'
 import {drawRuns, runsOf, runsText} from './inline.js'
 import {drawList} from './list.js'
+import {drawSchematic, schematicHeight} from './schematic.js'
 import {lastPageIndex} from './pdfkit.js'
 import {drawBar} from './spans.js'
 import {drawTable, tableSpecOf} from './table.js'
@@ -40,6 +41,7 @@ export function keepHeight(ctx: RenderContext, node: RootContent | undefined, re
   if (node === undefined) return 0
   switch (node.type) {
     case 'figure': return figureHeight(ctx, node)
+    case 'schematic': return schematicHeight(ctx, node)
     case 'caption': return lines(ctx, 1, ctx.theme.fontSizes.small) + keepHeight(ctx, rest[0], rest.slice(1))
     case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + lines(ctx, 2)
     case 'table': return lines(ctx, 2, ctx.theme.fontSizes.table) + 4 * ctx.theme.spacing.cellPadding
@@ -158,6 +160,7 @@ export function renderBlock(ctx: RenderContext, node: RootContent, rest: RootCon
     case 'thematicBreak': return drawRule(ctx)
     case 'html': return drawPlain(ctx, node.value, theme.colours.muted)
     case 'figure': return drawFigure(ctx, node)
+    case 'schematic': return drawSchematic(ctx, node)
     case 'callout': return drawCallout(ctx, node)
     case 'caption': return drawCaption(ctx, node.text, rest)
     case 'pageBreak':

@@ -29,6 +29,7 @@ export function drawCallout(ctx: RenderContext, node: CalloutNode): void {
   const height = pad + labelH + (node.children.length === 0 ? 0 : 4 + childrenH) + pad
   if (height > spaceLeft(ctx) && !atPageTop(ctx) && height <= pageBodyHeight(ctx)) newPage(ctx)
   const whole = height <= spaceLeft(ctx)
+  if (node.anchor !== undefined) ctx.anchors.set(node.anchor, lastPageIndex(doc) + 1)
   const x = ctx.frame.x
   const top = doc.y
   const start = {page: lastPageIndex(doc), y: top}

@@ -58,6 +58,31 @@ export interface RenderContext {
   listDepth: number
   /** Inside a tight list: paragraphs take no paragraph gap. */
   tight: boolean
+  /** Anchor → 1-based page where the anchored node was drawn. */
+  anchors: Map<string, number>
+  /** Page numbers to write once every anchor is placed (the cover's list of notes). */
+  pageRefs: PageRef[]
+}
+
+/** A page number to write later, right-aligned at `right`, on 0-based page `page`. */
+export interface PageRef {
+  anchor: string
+  page: number
+  right: number
+  y: number
+  style: TextStyle
+}
+
+/** Write every pending page reference (call after the body and appendix are drawn). */
+export function resolvePageRefs(ctx: RenderContext): void {
+  for (const ref of ctx.pageRefs) {
+    const page = ctx.anchors.get(ref.anchor)
+    const text = page === undefined ? '—' : `page ${page}`
+    ctx.doc.switchToPage(ref.page)
+    applyStyle(ctx, ref.style)
+    const w = ctx.doc.widthOfString(text)
+    ctx.doc.text(text, ref.right - w, ref.y, {lineBreak: false})
+  }
 }
 
 export interface TextStyle {

@@ -6,7 +6,8 @@
  *   2. the cover and sign-off page(s);
  *   3. the body from a new page, then its footnotes under "Notes";
  *   4. the appendix from a new page;
- *   5. header and footer on every buffered page; collect the bytes.
+ *   5. the cover's page references (now that every note has its page), header and footer on
+ *      every buffered page; collect the bytes.
  *
  * No file I/O, no clock, no environment: fonts, images and the date arrive as values, so
  * the same input gives the same bytes.
@@ -14,7 +15,7 @@
 import type {ReportDocument} from '../../report/types.js'
 import {drawHeading, renderBlocks} from './blocks.js'
 import {compileFigures, type CompiledFigures} from '../chart/compile.js'
-import {newPage, type RenderContext} from './context.js'
+import {newPage, resolvePageRefs, type RenderContext} from './context.js'
 import {drawCover} from './cover.js'
 import {loadFonts, registerFonts, type FontSet} from './fonts.js'
 import {collectDefinitions, drawFootnotes} from './footnotes.js'
@@ -94,6 +95,8 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
     frame: {x: theme.margins.left, width: doc.page.width - theme.margins.left - theme.margins.right},
     listDepth: 0,
     tight: false,
+    anchors: new Map(),
+    pageRefs: [],
   }
   doc.y = theme.margins.top
   // 2. Cover and sign-off.
@@ -115,7 +118,8 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
     renderBlocks(ctx, report.appendix.children)
     drawFootnotes(ctx)
   }
-  // 5. Furniture, then the bytes.
+  // 5. The cover's page references, furniture, then the bytes.
+  resolvePageRefs(ctx)
   drawFurniture(ctx, report.meta, coverPages)
   const pageCount = doc.bufferedPageRange().count
   const pdf = await collectPdf(doc)

@@ -9,7 +9,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {StageCurves} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, FONT_SIZE, INK, TOTAL_STYLE} from './theme.js'
-import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logFrequencyX, plottablePoints, siTextExpr} from './scales.js'
+import {extent, logFrequencyX, plottablePoints, prefixedAxis, siTextExpr} from './scales.js'
 
 /**
  * Spec of the cumulative-rms chart.
@@ -17,7 +17,7 @@ import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, extent, logFrequencyX, plottablePoi
  * @param curves
  *   The stage's curves: `noiseFrequency` (Hz) and `cumulativeRms` (V) on it.
  */
-export function cumulativeRmsSpec(curves: StageCurves): TopLevelSpec {
+export function cumulativeRmsSpec(curves: Pick<StageCurves, 'noiseFrequency' | 'cumulativeRms'>, opts: {axisTitle?: string} = {}): TopLevelSpec {
   const points = plottablePoints(curves.noiseFrequency, curves.cumulativeRms, false)
   const xDomain = extent(points.map((p) => p.x), 'cumulative rms curve')
   const last = points[points.length - 1] as {x: number; y: number}
@@ -33,7 +33,7 @@ export function cumulativeRmsSpec(curves: StageCurves): TopLevelSpec {
         field: 'rms',
         type: 'quantitative',
         scale: {zero: true, nice: true},
-        axis: {title: 'Cumulative output noise (V rms)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
+        axis: {...prefixedAxis(opts.axisTitle ?? 'Cumulative output noise, rms', 'V', Math.max(0, extent(points.map((p) => p.y), 'cumulative rms')[1])), grid: true, tickCount: 6}
       }
     },
     layer: [

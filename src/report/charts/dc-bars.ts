@@ -9,11 +9,13 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {DcBudget} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_OUTER_WIDTH, FONT_SIZE, INK} from './theme.js'
-import {SI_AXIS_FORMAT, ZERO_AS_PLAIN_LABEL, siTextExpr} from './scales.js'
+import {prefixedAxis, siTextExpr} from './scales.js'
 
 export interface DcBarsOptions {
   /** Readable name of each contributor key (e.g. `vos` → "Offset voltage"); the key itself when absent. */
   labels: Record<string, string>
+  /** x-axis title (optional; default "Output-referred error (V)"). */
+  axisTitle?: string
 }
 
 /** Height of one bar's band, px. */
@@ -34,7 +36,7 @@ const EMPTY_MAX = 1e-6
  * @param opts
  *   Labels of the contributor keys.
  */
-export function dcBarsSpec(dc: DcBudget, opts: DcBarsOptions): TopLevelSpec {
+export function dcBarsSpec(dc: {contributors: DcBudget['contributors'] | readonly {key: string; output: number}[]}, opts: DcBarsOptions): TopLevelSpec {
   const rows = dc.contributors
     .map((c, index) => ({
       key: c.key,
@@ -68,7 +70,7 @@ export function dcBarsSpec(dc: DcBudget, opts: DcBarsOptions): TopLevelSpec {
         field: 'output',
         type: 'quantitative',
         scale: {domain: [0, xMax], nice: false, zero: true},
-        axis: {title: 'Output-referred error (V)', format: SI_AXIS_FORMAT, labelExpr: ZERO_AS_PLAIN_LABEL, grid: true, tickCount: 6}
+        axis: {...prefixedAxis(opts.axisTitle ?? 'Output-referred error', 'V', largest), grid: true, tickCount: 6}
       }
     },
     layer: [

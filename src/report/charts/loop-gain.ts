@@ -10,7 +10,7 @@
 import type {TopLevelSpec} from 'vega-lite'
 import type {Stability, StageCurves} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_WIDTH, FONT_SIZE, INK, PANEL_HEIGHT, TOTAL_STYLE} from './theme.js'
-import {SI_AXIS_FORMAT, extent, logTicks, plottablePoints, siTextExpr} from './scales.js'
+import {extent, frequencyAxis, plottablePoints, siTextExpr} from './scales.js'
 
 /** Text shown when the loop gain never crosses 0 dB. */
 export const NO_CROSSOVER_TEXT = 'no crossover'
@@ -22,7 +22,10 @@ const REFERENCE_RULE = {type: 'rule' as const, color: INK.axis, strokeDash: [4, 
 const MARKER_RULE = {type: 'rule' as const, color: INK.note, strokeWidth: 1}
 const NOTE_TEXT = {type: 'text' as const, fontSize: FONT_SIZE.note, color: INK.note}
 
-/** Phase ticks every 45° (90° past a 360° span) covering [lo, hi]. */
+/**
+ * Phase ticks at multiples of 45° (90° past a 360° span) covering [lo, hi]; callers include
+ * −180° and 0° in the range, so both are always ticks.
+ */
 function phaseAxis([lo, hi]: [number, number]): {domain: [number, number]; ticks: number[]} {
   const step = hi - lo > 360 ? 2 * PHASE_STEP : PHASE_STEP
   const a = Math.floor(lo / step) * step
@@ -44,7 +47,7 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
   const magnitude = plottablePoints(curves.frequency, curves.loopGainMagnitude, true)
   const phase = plottablePoints(curves.frequency, curves.loopGainPhase, false)
   const xDomain = extent([...magnitude, ...phase].map((p) => p.x), 'loop-gain curve')
-  const phaseRange = extent([...phase.map((p) => p.y), -180], 'loop-gain phase')
+  const phaseRange = extent([...phase.map((p) => p.y), -180, 0], 'loop-gain phase')
   const {domain: phaseDomain, ticks: phaseTicks} = phaseAxis(phaseRange)
   const {crossover: fc, phaseMargin: pm} = stability
   const marked = fc !== null && Number.isFinite(fc) && fc > 0 ? fc : null
@@ -53,8 +56,16 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
     field: 'f',
     type: 'quantitative' as const,
     scale: {type: 'log' as const, domain: xDomain, nice: false},
-    axis: {...axis, format: SI_AXIS_FORMAT, values: logTicks(xDomain), grid: true}
+    axis: frequencyAxis(xDomain, axis.title, axis.labels)
   })
+  // Marker labels sit beside the fc rule, on the side with room, so they stay inside the frame.
+  const onRight = marked === null || Math.log(marked / xDomain[0]) / Math.log(xDomain[1] / xDomain[0]) < 0.65
+  const beside = onRight ? {align: 'left' as const, dx: 4} : {align: 'right' as const, dx: -4}
+  // Headroom above the |T| trace for the fc label: the dB axis runs 20 % of the span past the peak.
+  const dbValues = magnitude.map((p) => 20 * Math.log10(p.y))
+  const [dbLo, dbHi] = extent([...dbValues, 0], 'loop-gain magnitude')
+  const dbStep = 20
+  const dbDomain: [number, number] = [Math.floor(dbLo / dbStep) * dbStep, Math.ceil((dbHi + 0.2 * (dbHi - dbLo)) / dbStep) * dbStep]
   const fcRule = marked === null ? [] : [{data: {values: [{f: marked}]}, mark: MARKER_RULE, encoding: {x: {field: 'f', type: 'quantitative' as const}}}]
   // Each layer names its own x: a layer without frequencies (the 0 dB and −180° rules) must
   // not inherit the log x field, or its rows would be filtered out as invalid.
@@ -70,7 +81,7 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
         mark: {type: 'line' as const, color: TOTAL_STYLE.colour, strokeWidth: 1.6, clip: true},
         encoding: {
           x: xTop,
-          y: {field: 'db', type: 'quantitative' as const, scale: {nice: true}, axis: {title: 'Loop gain |T| (dB)', grid: true, tickCount: 5}}
+          y: {field: 'db', type: 'quantitative' as const, scale: {domain: dbDomain, nice: false}, axis: {title: 'Loop gain |T| (dB)', grid: true, tickCount: 5}}
         }
       },
       {data: {values: [{db: 0}]}, mark: REFERENCE_RULE, encoding: {y: {field: 'db', type: 'quantitative' as const}}},
@@ -84,7 +95,7 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
         : {
             data: {values: [{f: marked}]},
             transform: [{calculate: `'fc = ' + ${siTextExpr('datum.f', 'Hz')}`, as: 'text'}],
-            mark: {...NOTE_TEXT, align: 'left' as const, baseline: 'top' as const, dx: 4},
+            mark: {...NOTE_TEXT, ...beside, baseline: 'top' as const},
             encoding: {x: {field: 'f', type: 'quantitative' as const}, y: {value: 6}, text: {field: 'text', type: 'nominal' as const}}
           }
     ]
@@ -102,7 +113,7 @@ export function loopGainSpec(curves: StageCurves, stability: Stability): TopLeve
               {
                 // At the top of the panel beside the fc rule: right of the crossover the phase
                 // has fallen, so the curve stays clear of the label.
-                mark: {...NOTE_TEXT, align: 'left' as const, baseline: 'top' as const, dx: 4},
+                mark: {...NOTE_TEXT, ...beside, baseline: 'top' as const},
                 encoding: {y: {value: 6}, text: {field: 'text', type: 'nominal' as const}}
               }
             ],

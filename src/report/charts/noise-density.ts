@@ -48,7 +48,8 @@ const legend = {
   direction: 'horizontal',
   columns: 3,
   symbolType: 'stroke',
-  symbolSize: 400,
+  // A 30 px line sample (vega's stroke symbol is √size long): long enough to tell the dash patterns apart.
+  symbolSize: 900,
   columnPadding: 16,
   rowPadding: 4,
   labelOffset: 7,
@@ -61,6 +62,32 @@ function significant(density: readonly number[], total: readonly number[], minSh
     const t = total[i] as number
     return Number.isFinite(d) && d > 0 && (!(t > 0) || d >= minShare * t)
   })
+}
+
+/** Curves within this ratio of each other at every frequency are drawn on top of each other. */
+const COINCIDE_RATIO = 1.02
+
+/**
+ * Pairs of drawn curves (contributors, or a contributor and the total) that coincide: within
+ * 2 % of each other at every frequency, so that one hides the other on the chart and the
+ * caption must say so.
+ */
+export function coincidingCurves(curves: StageCurves, drawn: readonly NoiseKey[]): [NoiseKey | 'total', NoiseKey | 'total'][] {
+  const series: [NoiseKey | 'total', readonly number[]][] = [...drawn.map((k): [NoiseKey, readonly number[]] => [k, curves.noiseDensity[k] ?? []]), ['total', curves.noiseTotal]]
+  const same = (a: readonly number[], b: readonly number[]): boolean =>
+    a.length > 0 && a.length === b.length && a.every((x, i) => {
+      const y = b[i] as number
+      return x > 0 && y > 0 && Math.max(x / y, y / x) <= COINCIDE_RATIO
+    })
+  const out: [NoiseKey | 'total', NoiseKey | 'total'][] = []
+  for (let i = 0; i < series.length; i++) {
+    for (let j = i + 1; j < series.length; j++) {
+      const [ka, a] = series[i]!
+      const [kb, b] = series[j]!
+      if (same(a, b)) out.push([ka, kb])
+    }
+  }
+  return out
 }
 
 /**

@@ -101,12 +101,43 @@ export function siTextExpr(expr: string, unit: string): string {
   return `(indexof('${SI_PREFIXES}', ${last}) >= 0 ? slice(${text}, 0, -1) + ' ' + ${last} : ${text} + ' ') + ${JSON.stringify(unit)}`
 }
 
-/** The shared x encoding of the frequency charts: field `f`, log scale over `domain`, SI ticks at each decade. */
+/**
+ * Axis `labelExpr` for frequency ticks as engineers write them, unit on every tick:
+ * "0.1 Hz", "10 Hz", "1 kHz", "2.5 MHz" — never "100m". Below 1 Hz the plain decimal,
+ * from 1 Hz on the SI prefix (k, M, G).
+ */
+export const FREQUENCY_LABEL_EXPR =
+  `datum.value < 1 ? format(datum.value, '~r') + ' Hz' : ${siTextExpr('datum.value', 'Hz')}`
+
+/** The axis object of a log frequency axis with engineering tick labels (`labels: false` hides them). */
+export function frequencyAxis(domain: [number, number], title: string | null = 'Frequency', labels = true) {
+  return {title, labels, labelExpr: FREQUENCY_LABEL_EXPR, values: logTicks(domain), grid: true}
+}
+
+/** The shared x encoding of the frequency charts: field `f`, log scale over `domain`, ticks at each decade with their unit. */
 export function logFrequencyX(domain: [number, number]) {
   return {
     field: 'f',
     type: 'quantitative' as const,
     scale: {type: 'log' as const, domain, nice: false},
-    axis: {title: 'Frequency (Hz)', format: SI_AXIS_FORMAT, values: logTicks(domain), grid: true}
+    axis: frequencyAxis(domain)
   }
+}
+
+const PREFIXES = [[-15, 'f'], [-12, 'p'], [-9, 'n'], [-6, 'µ'], [-3, 'm'], [0, ''], [3, 'k'], [6, 'M'], [9, 'G']] as const
+
+/**
+ * One SI prefix for a linear axis, chosen by its largest value (so the largest bar reads
+ * "12 mV", not "0.012 V"): the prefix, and the factor tick values are divided by.
+ */
+export function axisPrefix(largest: number): {prefix: string; factor: number} {
+  const exp = largest > 0 && Number.isFinite(largest) ? Math.floor(Math.log10(largest) / 3) * 3 : 0
+  const hit = PREFIXES.find(([e]) => e === Math.max(-15, Math.min(9, exp))) ?? [0, '']
+  return {prefix: hit[1], factor: 10 ** hit[0]}
+}
+
+/** A linear axis in one prefix: title "name (mV)", ticks as plain numbers in that unit. */
+export function prefixedAxis(name: string, unit: string, largest: number) {
+  const {prefix, factor} = axisPrefix(largest)
+  return {title: `${name} (${prefix}${unit})`, labelExpr: `format(datum.value / ${factor}, '~g')`}
 }

@@ -2,7 +2,8 @@
  * The stage's computed tables: results summary, DC error budget, noise budget, stability.
  */
 import type {Table} from 'mdast'
-import type {StageResult} from '../../engine/types.js'
+import type {StageInput, StageResult} from '../../engine/types.js'
+import {dcPresent, noisePresent} from '../present.js'
 import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../../results/labels.js'
 import {db, deg, pct, q} from '../format.js'
 import {code, strong} from '../mdast.js'
@@ -32,20 +33,20 @@ export function summaryTable(r: StageResult): Table {
 const signalShot = (r: StageResult): boolean => r.noise.contributors.some((c) => c.key === 'shot-signal')
 
 /**
- * Every DC contributor, output- and input-referred, with its share of the worst case; with a
- * calibration (DESIGN §4.6), a column of the residual after calibration.
+ * Every DC contributor the circuit has, output- and input-referred, with its share of the
+ * worst case; with a calibration (DESIGN §4.6), a column of the residual after calibration.
  */
-export function dcTable(r: StageResult): Table {
+export function dcTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const cal = r.dc.calibrated
-  const residual = (i: number): string[] => (cal === null ? [] : [q(cal.contributors[i]?.output ?? null, 'V')])
-  const rows = r.dc.contributors.map((c, i) => [
+  const residual = (key: string): string[] => (cal === null ? [] : [q(cal.contributors.find((c) => c.key === key)?.output ?? null, 'V')])
+  const rows = r.dc.contributors.filter((c) => dcPresent(input, c.key)).map((c) => [
     [DC_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.output, 'V'),
     q(g > 0 ? c.output / g : null, iu),
     r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—',
-    ...residual(i)
+    ...residual(c.key)
   ])
   rows.push(
     [[strong('Worst case (sum)')], q(r.dc.worstCaseOutput, 'V'), q(r.dc.worstCaseInput, iu), '100.0 %', ...(cal === null ? [] : [q(cal.worstCaseOutput, 'V')])],
@@ -55,12 +56,12 @@ export function dcTable(r: StageResult): Table {
   return table(head, rows, ['left', 'right', 'right', 'right', ...(cal === null ? [] : ['right' as const])])
 }
 
-/** Every noise contributor's rms over the band, with its share of the total power. */
-export function noiseTable(r: StageResult): Table {
+/** Every noise contributor the circuit has: rms over the band, with its share of the total power. */
+export function noiseTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const total2 = r.noise.outputRms ** 2
-  const rows = r.noise.contributors.map((c) => [
+  const rows = r.noise.contributors.filter((c) => noisePresent(input, c.key)).map((c) => [
     [NOISE_LABELS[c.key], ' (', code(c.key), ')'],
     q(c.outputRms, 'V'),
     q(g > 0 ? c.outputRms / g : null, iu),

@@ -10,6 +10,9 @@ import {q} from '../format.js'
 import {callout, code, emphasis, paragraph, table} from '../mdast.js'
 
 /** Keys as written, then the defaults applied, marked as such. */
+/** A 1/f corner, or "none" when there is none (0 Hz is no corner, not a frequency). */
+const corner = (f: number): string => (f > 0 ? q(f, 'Hz') : 'none')
+
 export function entriesTable(entries: BlockEntry[], defaulted: DefaultedValue[]): Table {
   const rows = [
     ...entries.map((e) => [[code(e.key)], e.raw, 'as written']),
@@ -30,8 +33,8 @@ export function opampValuesTable(op: OpampParams): Table {
     ['Offset current, max at 25 °C', q(op.ios, 'A')],
     ['Bias current, max over temperature', op.ibMax === null ? 'not entered' : q(op.ibMax, 'A')],
     ['Offset current, max over temperature', op.iosMax === null ? 'not entered' : q(op.iosMax, 'A')],
-    ['Voltage noise density (white) / 1/f corner', `${q(op.en, 'V/√Hz')} / ${q(op.enCorner, 'Hz')}`],
-    ['Current noise density (white) / 1/f corner', `${q(op.in, 'A/√Hz')} / ${q(op.inCorner, 'Hz')}`],
+    ['Voltage noise density (white) / 1/f corner', `${q(op.en, 'V/√Hz')} / ${corner(op.enCorner)}`],
+    ['Current noise density (white) / 1/f corner', `${q(op.in, 'A/√Hz')} / ${corner(op.inCorner)}`],
     ['Gain-bandwidth product', q(op.gbw, 'Hz')],
     ['Open-loop gain', dbOf(op.aol)],
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],

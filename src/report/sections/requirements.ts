@@ -26,11 +26,14 @@ export function requirementBlocks(ev: StageEvaluation): BlockContent[] {
   const limits = all.filter((r) => r.kind === 'limit').length
   const overall = combine(reqs.map(verdictOf))
   const failed = reqs.filter((r) => verdictOf(r) === 'not-met').map((r) => r.key)
+  const baseline = ev.role === 'baseline'
+  const word = overall === 'met' ? 'ALL MET' : overall === 'not-met' ? 'NOT MET' : 'NOT EVALUATED'
   return [
     table(['Requirement', 'Value', 'Limit', 'Margin', 'Verdict'], rows, ['left', 'right', 'right', 'right', 'left']),
     paragraph(`Rows marked (limit) are the ${limits} physical limits checked on every stage: what the parts can do, ` +
       'whatever the note requires; a limit whose data is not entered is skipped and counts towards no verdict.'),
-    callout(overall, overall === 'met' ? 'ALL MET' : overall === 'not-met' ? 'NOT MET' : 'NOT EVALUATED', [
+    ...(baseline ? [paragraph('This is a baseline stage (', code('role: baseline'), '), kept for comparison: its verdicts are shown but count toward neither the overall verdict nor the exit code.')] : []),
+    callout(overall, baseline ? `${word} (BASELINE, NOT COUNTED)` : word, [
       paragraph(overall === 'met'
         ? `Stage ${ev.input.id} meets all ${reqs.length} of its requirements and checked limits.`
         : overall === 'not-met'

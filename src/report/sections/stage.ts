@@ -9,6 +9,7 @@ import type {StageBlockNode} from '../../note/types.js'
 import {nextTable, type ReportContext} from '../context.js'
 import {TOPOLOGY_LABELS} from '../../results/labels.js'
 import {q} from '../format.js'
+import {formatRange} from '../../units/format.js'
 import {callout, caption, code, heading, paragraph} from '../mdast.js'
 import {dcTable, filterTable, noiseTable, stabilityTable, summaryTable} from './budget-tables.js'
 import {dcFigure, loopFigure, noiseFigures, responseFigure} from './figures.js'
@@ -17,11 +18,21 @@ import {INA_ARCHETYPE_DISCLAIMER} from '../../engine/ina-archetypes.js'
 import {requirementBlocks} from './requirements.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
+import type {StageInput} from '../../engine/types.js'
+import {stageSchematic} from '../schematic/stage.js'
+
+/** The stage's schematic, first in its section; a topology without a layout says so. */
+function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
+  const drawing = stageSchematic(input)
+  if (drawing === null) return paragraph(`No schematic is drawn for the ${input.topology} topology yet; the parameters table lists its parts.`)
+  return {type: 'schematic', number: ++ctx.figure, drawing,
+    caption: `Schematic of stage ${input.id}: every part with its key and nominal value (tolerances in the parameters table)`}
+}
 
 function swingBlocks(ev: StageEvaluation): BlockContent[] {
   const s = ev.result.swing
-  const span = `${q(s.outputSpan[0], 'V')} … ${q(s.outputSpan[1], 'V')}`
-  const allowed = `${q(s.allowed[0], 'V')} … ${q(s.allowed[1], 'V')}`
+  const span = formatRange(s.outputSpan[0], s.outputSpan[1], 'V')
+  const allowed = formatRange(s.allowed[0], s.allowed[1], 'V')
   const swing = ev.result.requirements.find((r) => r.kind === 'limit' && r.key === 'output-swing')
   if (swing?.met === null) return [paragraph(`Output span over the input range: ${span}; no swing headroom entered, so it is not checked against the rails.`)]
   if (s.fits) return [paragraph(`Output span over the input range: ${span}, inside the usable swing ${allowed} (supply at its low tolerance less headroom).`)]
@@ -82,6 +93,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
     heading(2, `Stage ${input.id} — ${input.title}`),
     paragraph(`${TOPOLOGY_LABELS[input.topology]} on ${input.ina ? 'instrumentation amplifier' : 'op-amp'} `, code(op.name), op.archetype ? ' (archetype).' : '.')
   ]
+  out.push(schematicBlock(ctx, input))
   if (op.archetype) {
     out.push(input.ina
       ? callout('info', 'ARCHETYPE', [paragraph(`Instrumentation amplifier “${op.name}” is a built-in archetype. `, INA_ARCHETYPE_DISCLAIMER)])
@@ -99,12 +111,12 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
       `(ΔT = ${q(result.dc.temperatureSpan, 'K')}), full-scale output ${q(result.dc.fullScaleOutput, 'V')} ` +
       '(the largest ideal output over the input range, reference term included).'),
     ...biasBlocks(ev),
-    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result), ...networkCmrrBlocks(ev), dcFigure(ctx, ev))
+    caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result, input), ...networkCmrrBlocks(ev), dcFigure(ctx, ev))
 
   out.push(heading(3, 'Noise budget'),
     paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +
       'all sources uncorrelated, summed in power.'),
-    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result), ...noiseFigures(ctx, ev))
+    caption(nextTable(ctx, `Noise budget of stage ${input.id}`)), noiseTable(result, input), ...noiseFigures(ctx, ev))
 
   if (input.topology === 'instrumentation') {
     out.push(heading(3, 'Bandwidth'),
@@ -127,7 +139,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   }
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
-  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared))
+  out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared, input.id, ctx.coverNotes))
   return out
 }
 

@@ -12,12 +12,13 @@ describe('cumulativeRmsSpec()', () => {
 
   it('titles both axes with units', async () => {
     const texts = svgTexts((await render()).svg).map((t) => t.text)
-    expect(texts).toEqual(expect.arrayContaining(['Frequency (Hz)', 'Cumulative output noise (V rms)']))
+    expect(texts).toEqual(expect.arrayContaining(['Frequency', 'Cumulative output noise, rms (µV)']))
   })
 
-  it('prints SI ticks: decades on the frequency axis, µV on the rms axis with a plain 0', async () => {
+  it('prints frequency ticks with their unit as engineers write them, the rms axis in µV', async () => {
     const texts = svgTexts((await render()).svg).map((t) => t.text)
-    expect(texts).toEqual(expect.arrayContaining(['100m', '1', '1k', '10k', '0', '2µ', '10µ']))
+    expect(texts).toEqual(expect.arrayContaining(['0.1 Hz', '1 Hz', '1 kHz', '10 kHz', '0', '2', '10']))
+    expect(texts).not.toContain('100m')
     expect(texts).not.toContain('0µ')
   })
 

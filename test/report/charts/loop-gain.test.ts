@@ -14,10 +14,27 @@ describe('loopGainSpec()', () => {
     expect(await textsOf()).toEqual(expect.arrayContaining(['Loop gain |T| (dB)', 'Phase of T (°)', 'Frequency (Hz)']))
   })
 
-  it('shows the frequency axis once, with SI decade ticks', async () => {
+  it('shows the frequency axis once, with decade ticks in Hz, kHz and MHz', async () => {
     const texts = await textsOf()
-    expect(texts).toEqual(expect.arrayContaining(['1', '10', '1k', '100k', '1M', '100M']))
-    expect(texts.filter((t) => t === '1M')).toHaveLength(1)
+    expect(texts).toEqual(expect.arrayContaining(['1 Hz', '10 Hz', '1 kHz', '100 kHz', '1 MHz', '100 MHz']))
+    expect(texts.filter((t) => t === '1 MHz')).toHaveLength(1)
+  })
+
+  it('ticks the phase axis at multiples of 45°, −180° and 0° among them', async () => {
+    const spec = loopGainSpec(stageCurves(), stability()) as unknown as {vconcat: {layer: {encoding?: {y?: {axis?: {values?: number[]}}}}[]}[]}
+    const ticks = spec.vconcat[1]!.layer[0]!.encoding!.y!.axis!.values!
+    expect(ticks).toContain(-180)
+    expect(ticks).toContain(0)
+    for (const t of ticks) expect(Math.abs(t % 45)).toBe(0)
+  })
+
+  it('leaves headroom above the |T| trace for the marker labels', () => {
+    const spec = loopGainSpec(stageCurves(), stability()) as unknown as {vconcat: {layer: {encoding?: {y?: {scale?: {domain?: [number, number]}}}}[]}[]}
+    const [, hi] = spec.vconcat[0]!.layer[0]!.encoding!.y!.scale!.domain!
+    const db = stageCurves().loopGainMagnitude.map((m) => 20 * Math.log10(m))
+    const peak = Math.max(...db)
+    const low = Math.min(...db, 0)
+    expect(hi).toBeGreaterThanOrEqual(peak + 0.2 * (peak - low))
   })
 
   it('labels the crossover with its frequency', async () => {

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {noiseDensitySpec, TOTAL_LABEL, ZERO_SIGNAL_LABEL} from '../../../src/report/charts/noise-density.js'
+import {coincidingCurves, noiseDensitySpec, TOTAL_LABEL, ZERO_SIGNAL_LABEL} from '../../../src/report/charts/noise-density.js'
 import {NOISE_STYLES, TOTAL_STYLE} from '../../../src/report/charts/theme.js'
 import {NOISE_KEYS} from '../../../src/engine/types.js'
 import {renderChartSvg} from '../../../src/render/chart/vega.js'
@@ -26,12 +26,13 @@ describe('noiseDensitySpec()', () => {
 
   it('titles both axes with units', async () => {
     const texts = svgTexts((await renderChartSvg(chartOf().spec, FONTS)).svg).map((t) => t.text)
-    expect(texts).toEqual(expect.arrayContaining(['Frequency (Hz)', 'Output noise density (V/√Hz)']))
+    expect(texts).toEqual(expect.arrayContaining(['Frequency', 'Output noise density (V/√Hz)']))
   })
 
   it('prints decade ticks with SI prefixes on both axes', async () => {
     const texts = svgTexts((await renderChartSvg(chartOf().spec, FONTS)).svg).map((t) => t.text)
-    expect(texts).toEqual(expect.arrayContaining(['100m', '1', '10', '100', '1k', '10k']))
+    expect(texts).toEqual(expect.arrayContaining(['0.1 Hz', '1 Hz', '10 Hz', '100 Hz', '1 kHz', '10 kHz']))
+    expect(texts).not.toContain('100m')
     expect(texts).toEqual(expect.arrayContaining(['1n', '10n', '100n', '1µ']))
   })
 
@@ -59,6 +60,16 @@ describe('noiseDensitySpec()', () => {
     const curves = stageCurves()
     curves.noiseTotal = curves.noiseTotal.map(() => 0)
     expect(() => noiseDensitySpec(curves, {labels: LABELS})).toThrow(RangeError)
+  })
+})
+
+describe('coincidingCurves()', () => {
+  it('names two drawn contributors that lie within 2 % of each other everywhere, and no others', () => {
+    const curves = stageCurves()
+    const same = curves.noiseDensity['r:rf'].map((v) => v * 1.01)
+    const twin = {...curves, noiseDensity: {...curves.noiseDensity, 'r:rg': same}}
+    expect(coincidingCurves(twin, ['en', 'r:rf', 'r:rg'])).toEqual([['r:rf', 'r:rg']])
+    expect(coincidingCurves(curves, ['en', 'r:rf', 'r:rg'])).toEqual([])
   })
 })
 

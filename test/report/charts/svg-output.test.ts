@@ -40,7 +40,8 @@ describe('src/report/charts', () => {
   it('exposes the public api', () => {
     expect(Object.keys(charts).sort()).toEqual([
       'CHART_CONFIG', 'CHART_FONT_FAMILY', 'CHART_WIDTH', 'NOISE_STYLES', 'NO_CROSSOVER_TEXT', 'TOTAL_LABEL', 'TOTAL_STYLE',
-      'cumulativeRmsSpec', 'dcBarsSpec', 'faceOfWeight', 'hasGlyphs', 'loopGainSpec', 'measureText', 'noiseDensitySpec', 'responseSpec'
+      'chainDiagramSpec', 'chainNoiseDensitySpec', 'cumulativeRmsSpec', 'dcBarsSpec', 'faceOfWeight', 'hasGlyphs', 'loopGainSpec',
+      'measureText', 'noiseDensitySpec', 'responseSpec', 'stageStyle'
     ])
   })
 })

@@ -1,0 +1,45 @@
+/**
+ * The evaluate phase of chains (DESIGN §8.6): later stages take the previous output range,
+ * a given input off by more than 1 % of the span is a warning, and the chain uses each
+ * stage's own evaluation.
+ */
+import {describe, expect, it} from 'vitest'
+import {evaluatedOf, fence, gainStage} from './helpers.js'
+
+describe('evaluateNoteWithChains()', () => {
+  it('gives a later stage the previous stage’s output range as its input', () => {
+    const r = evaluatedOf(gainStage('a', '9k', '1k', '-10m .. 20m V') + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [a, b]'))
+    const b = r.stages.find((s) => s.input.id === 'b')!
+    expect(b.input.input[0]).toBeCloseTo(-0.1, 12)
+    expect(b.input.input[1]).toBeCloseTo(0.2, 12)
+    expect(r.chains[0]!.result.gain).toBeCloseTo(20, 9)
+    expect(r.diagnostics.filter((d) => d.includes('differs'))).toEqual([])
+  })
+
+  it('warns at a given input more than 1 % of the span away, and uses the computed range', () => {
+    const r = evaluatedOf(gainStage('a', '9k', '1k', '-10m .. 10m V') + gainStage('b', '1k', '1k', '-0.1 .. 0.103 V') + fence('chain c', 'stages: [a, b]'))
+    expect(r.diagnostics.filter((d) => d.includes('differs'))).toHaveLength(1)
+    expect(r.diagnostics.find((d) => d.includes('differs'))).toMatch(/^15:1: warning: Stage `b`: its `input`/)
+    expect(r.stages[1]!.input.input[1]).toBeCloseTo(0.1, 12)
+  })
+
+  it('accepts a given input within 1 % of the span without a word', () => {
+    const r = evaluatedOf(gainStage('a', '9k', '1k', '-10m .. 10m V') + gainStage('b', '1k', '1k', '-0.1 .. 0.101 V') + fence('chain c', 'stages: [a, b]'))
+    expect(r.diagnostics.filter((d) => d.includes('differs'))).toEqual([])
+  })
+
+  it('evaluates the stages of a chain in signal order whatever their order in the note', () => {
+    const r = evaluatedOf(gainStage('b', '1k', '1k', null) + gainStage('a', '4k', '1k', '0 .. 1 V') + fence('chain c', 'stages: [a, b]'))
+    expect(r.stages.map((s) => s.input.id)).toEqual(['b', 'a'])
+    expect(r.stages[0]!.input.input).toEqual([0, 5])
+    expect(r.chains[0]!.result.nodes.map((n) => n.output[1])).toEqual([5, 10])
+  })
+
+  it('carries each stage’s DC contributors with its id as the source', () => {
+    const r = evaluatedOf(gainStage('a', '9k', '1k', '-10m .. 10m V') + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [a, b]\nadc: sar-18'))
+    const c = r.chains[0]!.result
+    const a = r.stages[0]!.result
+    expect(c.dc.contributors.filter((x) => x.source === 'a').map((x) => x.key)).toEqual(a.dc.contributors.map((x) => x.key))
+    expect(c.dc.contributors.filter((x) => x.source === 'sar-18')).toHaveLength(5)
+  })
+})
