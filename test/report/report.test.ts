@@ -101,7 +101,7 @@ describe('report tree of the reference-buffer sample', async () => {
     expect(c.baseline).toEqual(['ref-buffer'])
     // Three requirements and two checked limits (output swing, slew) of the baseline stage.
     expect(c.verdicts.filter((v) => !v.counted).map((v) => v.stage)).toEqual(['ref-buffer', 'ref-buffer', 'ref-buffer', 'ref-buffer', 'ref-buffer'])
-    expect(c.counted).toEqual({stages: 1, requirements: 5, notMet: 0})
+    expect(c.counted).toEqual({stages: 1, chains: 0, requirements: 5, notMet: 0})
     expect(c.overall).toBe('met')
   })
 
