@@ -7,6 +7,7 @@ import {describe, expect, it} from 'vitest'
 import {readdirSync, readFileSync} from 'node:fs'
 import {join} from 'node:path'
 import {ROOT, runCli} from './cli/helpers.js'
+import {TOPOLOGIES} from '../src/engine/types.js'
 
 const SAMPLES = readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).sort()
 /** One starting note per topology (written by `ampreview new`), so all four are covered. */
@@ -17,13 +18,15 @@ const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(
 const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
 
 function checkStage(s: Json): void {
-  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'requirements', 'notes', 'role'])
+  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role'])
   expect(['design', 'baseline']).toContain(s['role'])
   expect(typeof s['id']).toBe('string')
-  expect(['noninverting', 'inverting', 'follower', 'transimpedance']).toContain(s['topology'])
+  expect(TOPOLOGIES as readonly unknown[]).toContain(s['topology'])
   expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)
   const dc = s['dc'] as Json
-  expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput', 'calibrated'])
+  expect(Object.keys(dc)).toEqual(['temperatureSpan', 'fullScaleOutput', 'contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'rssInput', 'calibrated', 'networkCmrr'])
+  expect(isNumOrNull(dc['networkCmrr'])).toBe(true)
+  expect(s['topology'] === 'difference' || dc['networkCmrr'] === null).toBe(true)
   for (const c of dc['contributors'] as Json[]) expect(typeof c['key'] === 'string' && isNum(c['output'])).toBe(true)
   // DESIGN §4.6: null without calibration, else the residuals with their totals.
   const cal = dc['calibrated'] as Json | null
@@ -40,6 +43,10 @@ function checkStage(s: Json): void {
   const st = s['stability'] as Json
   expect(Object.keys(st)).toEqual(['phaseMargin', 'crossover', 'bandwidth', 'peaking', 'suggestedCf'])
   expect(['phaseMargin', 'crossover', 'bandwidth', 'suggestedCf'].every((k) => isNumOrNull(st[k])) && isNum(st['peaking'])).toBe(true)
+  const filter = s['filter'] as Json | null
+  const lowpass = s['topology'] === 'lowpass-sallen-key' || s['topology'] === 'lowpass-mfb'
+  if (lowpass) expect(Object.keys(filter as Json)).toEqual(['f0', 'q', 'passbandGain'])
+  else expect(filter).toBeNull()
   const kinds = (s['requirements'] as Json[]).map((r) => r['kind'])
   // The author's requirements first, then the four limits of DESIGN §4.6.
   expect(kinds.slice(-4)).toEqual(['limit', 'limit', 'limit', 'limit'])
@@ -68,13 +75,13 @@ describe('sample designs', () => {
     expect(SAMPLES.length).toBeGreaterThanOrEqual(3)
   })
 
-  it('with the topology notes, cover all four topologies', () => {
+  it('with the topology notes, cover every topology', () => {
     const topologies = new Set<string>()
     for (const path of [...SAMPLES.map((n) => join('sample-designs', n)), ...TOPOLOGY_NOTES.map((n) => join('test', 'fixtures', 'topologies', n))]) {
       const out = JSON.parse(runCli(['check', '--json', path]).stdout) as {files: {stages: {topology: string}[]}[]}
       for (const s of out.files[0]!.stages) topologies.add(s.topology)
     }
-    expect([...topologies].sort()).toEqual(['follower', 'inverting', 'noninverting', 'transimpedance'])
+    expect([...topologies].sort()).toEqual([...TOPOLOGIES].sort())
   })
 
   it.each([

@@ -19,7 +19,13 @@ export async function scaffoldNote(file: string, topology: Topology): Promise<st
   const dir = join(PACKAGE_ROOT, 'templates', 'standard', 'new-note')
   const [note, stage] = await Promise.all([readFile(join(dir, 'note.md'), 'utf8'), readFile(join(dir, `${topology}.yaml`), 'utf8')])
   // Replacement functions, so that a `$` in the template is copied as written.
-  const text = note.replaceAll('{{topology}}', () => topology).replace('{{stage-keys}}', () => stage.trimEnd())
+  let text = note.replaceAll('{{topology}}', () => topology).replace('{{stage-keys}}', () => stage.trimEnd())
+  // An instrumentation stage names an ina block (DESIGN §8.2) instead of an op-amp.
+  if (topology === 'instrumentation') {
+    const ina = await readFile(join(dir, 'ina-block.md'), 'utf8')
+    text = text.replace(/```opamp my-amp\n[\s\S]*?\n```/, () => ina.trimEnd())
+      .replace("delete this block and name an archetype in the stage (`opamp: precision-bipolar`)", "delete this block and name an INA archetype in the stage (`ina: precision-ina`)")
+  }
   await mkdir(dirname(file), {recursive: true})
   const tmp = join(dirname(file), `.${basename(file)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`)
   try {

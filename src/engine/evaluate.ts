@@ -7,6 +7,9 @@
  * Pure: no I/O, clock or randomness; the same input gives the same result.
  */
 import {dcAnalysis} from './dc/budget.js'
+import {signalGain} from './dc/solve.js'
+import {filterFigures} from './filter.js'
+import {evaluateInstrumentation} from './instrumentation.js'
 import {noiseAnalysis} from './noise/budget.js'
 import {checkRequirements} from './requirements.js'
 import {stabilityAnalysis} from './stability.js'
@@ -22,8 +25,20 @@ export function assertEvaluable(input: StageInput): void {
   const needs = (key: 'rf' | 'rg', ok: boolean): void => {
     if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a resistor for a ${input.topology} stage`)
   }
-  if (input.topology !== 'follower') needs('rf', input.rf !== null && input.rf.value > 0)
-  if (input.topology === 'noninverting' || input.topology === 'inverting') needs('rg', input.rg !== null && input.rg.value > 0)
+  const t = input.topology
+  if (t === 'instrumentation') {
+    if (input.ina === null) throw new RangeError(`Unexpected missing \`ina\` in stage \`${input.id}\`, expected an instrumentation amplifier`)
+    needs('rg', input.rg !== null && input.rg.value > 0)
+  }
+  const needsRf = t === 'noninverting' || t === 'inverting' || t === 'transimpedance' || t === 'difference'
+  if (needsRf) needs('rf', input.rf !== null && input.rf.value > 0)
+  if (t === 'noninverting' || t === 'inverting' || t === 'difference') needs('rg', input.rg !== null && input.rg.value > 0)
+  const part = (key: 'rp' | 'rref' | 'r1' | 'r2' | 'r3' | 'c1' | 'c2', ok: boolean): void => {
+    if (!ok) throw new RangeError(`Unexpected missing \`${key}\` in stage \`${input.id}\`, expected a value > 0 for a ${t} stage`)
+  }
+  if (t === 'difference') for (const k of ['rp', 'rref'] as const) part(k, (input[k]?.value ?? 0) > 0)
+  if (t === 'lowpass-sallen-key' || t === 'lowpass-mfb') for (const k of ['r1', 'r2', 'c1', 'c2'] as const) part(k, (input[k]?.value ?? 0) > 0)
+  if (t === 'lowpass-mfb') part('r3', (input.r3?.value ?? 0) > 0)
   const [fL, fH] = input.band
   if (!(fL > 0 && fH > fL)) throw new RangeError(`Unexpected band ${fL} .. ${fH} Hz in stage \`${input.id}\`, expected 0 < fL < fH`)
   if (!(input.opamp.gbw > 0 && input.opamp.aol > 0)) throw new RangeError(`Unexpected gbw or aol in stage \`${input.id}\`, expected positive values`)
@@ -32,6 +47,7 @@ export function assertEvaluable(input: StageInput): void {
 /** Evaluate a stage: DC budget, noise, stability, swing and requirement verdicts. */
 export function evaluateStage(input: StageInput): StageResult {
   assertEvaluable(input)
+  if (input.topology === 'instrumentation') return evaluateInstrumentation(input)
   const terms = topologyTerms(input)
   const dc = dcAnalysis(input)
   const noise = noiseAnalysis(input)
@@ -42,9 +58,10 @@ export function evaluateStage(input: StageInput): StageResult {
     id: input.id,
     topology: input.topology,
     opamp: input.opamp.name,
-    gain: terms.gain,
+    gain: signalGain(input),
     noiseGain: terms.noiseGain,
     ...figures,
+    filter: filterFigures(input),
     requirements: [...checkRequirements(input, figures), ...limits],
     curves: {...noise.curves, ...loop.curves},
     swing: swingOf(input, limits),

@@ -38,9 +38,19 @@ export {
   inverting,
   noninverting,
   transimpedance,
+  difference,
+  lowpassSallenKey,
+  lowpassMfb,
+  differencePlusPin,
+  loadElements,
   type ResistorKey,
   type ResistorValues,
   type TopologyModel,
   type TopologyTerms
 } from './topology/index.js'
+export {capacitiveLoadAdvice, marginOverRiso, RISO_RANGE, type CapacitiveLoadAdvice} from './suggested-riso.js'
+export {filterFigures, FILTER_TOPOLOGIES, isFilterTopology} from './filter.js'
+export {setResistance} from './nodal.js'
+export {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, INA_ARCHETYPE_DISCLAIMER, inaAsOpamp, isInaArchetypeName} from './ina-archetypes.js'
+export {evaluateInstrumentation, inaGain, INA_DC_KEYS, INA_NOISE_KEYS} from './instrumentation.js'
 export * from './chain/index.js'

@@ -7,6 +7,7 @@
  * one, and a rail with neither is not checked.
  */
 import {nominalResistors} from './topology/index.js'
+import {signalPoints} from './dc/budget.js'
 import {solveStageDc, type DcSolution} from './dc/solve.js'
 import type {Bounds, LimitResult, StageInput, SwingCheck} from './types.js'
 
@@ -17,8 +18,7 @@ export const railsAtLowTolerance = (input: StageInput): [number, number] =>
 /** DC solutions at the two ends of the input range (nominal resistors, ideal op-amp). */
 export function operatingPoints(input: StageInput): DcSolution[] {
   const r = nominalResistors(input)
-  const ends = input.input[0] === input.input[1] ? [input.input[0]] : [...input.input]
-  return ends.map((v) => solveStageDc(input, r, {input: v}))
+  return signalPoints(input).map((p) => solveStageDc(input, r, p))
 }
 
 const span = (values: number[]): [number, number] => [Math.min(...values), Math.max(...values)]
@@ -37,11 +37,14 @@ function window(key: 'output-swing' | 'input-common-mode', value: [number, numbe
 }
 
 /** Every limit of DESIGN §4.6, in the order of `LIMIT_KEYS`. */
-export function checkLimits(input: StageInput): LimitResult[] {
+export const checkLimits = (input: StageInput): LimitResult[] => checkLimitsAt(input, operatingPoints(input))
+
+/** The limits at given operating points (the instrumentation stage supplies its own, DESIGN §8.2). */
+export function checkLimitsAt(input: StageInput, points: readonly DcSolution[]): LimitResult[] {
   const op = input.opamp
-  const points = operatingPoints(input)
   const rails = railsAtLowTolerance(input)
-  const outSpan = span(points.map((p) => p.vout))
+  // The swing and slew limits are the op-amp's: at its output pin, before riso (DESIGN §8.3).
+  const outSpan = span(points.map((p) => p.vpin))
   const swing = window('output-swing', outSpan, rails, op.swingHeadroomNeg ?? op.swingHeadroom, op.swingHeadroomPos ?? op.swingHeadroom,
     ['swing-headroom', 'swing-headroom-neg', 'swing-headroom-pos'])
   const pins = span(points.flatMap((p) => [p.vplus, p.vminus]))

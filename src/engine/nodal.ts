@@ -8,8 +8,9 @@
  * is replaced by the source equation, normalised by A: Vo/A − V+ + V− = en.
  *
  * Two modes share one netlist:
- * - `closed`: the signal source drives (1 V at its node, or 1 A into it) and the output is
- *   found through the adjoint: solving Mᵀ·y = e_out once gives the output's response to a
+ * - `closed`: the signal source drives (1 V at its node, ±½ V at a differential pair, or 1 A
+ *   into it) and the output at the load node (`probe`, DESIGN §8.3) is
+ *   found through the adjoint: solving Mᵀ·y = e_probe once gives the output's response to a
  *   unit injection in every row (Vo = yᵀ·b), so every noise source's transfer comes from one
  *   solve per frequency (adjoint network method, common practice in circuit noise analysis).
  * - `loop`: the loop is broken at the op-amp's output source, which becomes an ideal 1 V
@@ -39,6 +40,9 @@ export interface NodalWorkspace {
   readonly net: Netlist
   /** Element values (S or F), in netlist order; change capacitors through `setCapacitance`. */
   readonly value: Float64Array
+  /** Voltage of each node where it is fixed, closed mode (the drive) and loop mode (the test source). */
+  readonly closedFixed: Float64Array
+  readonly loopFixed: Float64Array
   /** Closed mode, stored transposed (only Mᵀ is ever solved); rhs = the signal drive. */
   readonly closed: ModeSystem
   /** Loop mode; rhs = the 1 V test source at the output. */
@@ -68,10 +72,11 @@ function emptySystem(index: Int32Array, n: number): ModeSystem {
 /**
  * Stamp the element admittances of one mode (nodal analysis: +Y on both diagonals, −Y off
  * the diagonal; a neighbour at a fixed voltage moves Y·V to the right-hand side).
- * `skipRow` is a row that is not KCL (the op-amp's source equation), `fixedNode` the node
- * held at 1 V for the right-hand side, `transposed` stores Mᵀ.
+ * `skipRow` is a row that is not KCL (the op-amp's source equation), `fixed` the voltage of
+ * every node (used where the node is fixed: the drive's +1 V, or ±½ V for a differential
+ * drive, the loop's 1 V test source; 0 elsewhere), `transposed` stores Mᵀ.
  */
-function stampElements(ws: NodalWorkspace, sys: ModeSystem, skipRow: number, fixedNode: number, transposed: boolean): void {
+function stampElements(ws: NodalWorkspace, sys: ModeSystem, skipRow: number, fixed: Float64Array, transposed: boolean): void {
   const {n, index, g, c, rhsG, rhsC} = sys
   g.fill(0)
   c.fill(0)
@@ -88,7 +93,7 @@ function stampElements(ws: NodalWorkspace, sys: ModeSystem, skipRow: number, fix
       const j = index[other]
       m[i * n + i] += y
       if (j >= 0) m[transposed ? j * n + i : i * n + j] -= y
-      else if (other === fixedNode) rhs[i] += y
+      else rhs[i] += y * fixed[other]
     }
   })
 }
@@ -98,22 +103,21 @@ function stampAll(ws: NodalWorkspace): void {
   const net = ws.net
   const cl = ws.closed
   const io = cl.index[net.out]
-  const src = net.drive.kind === 'voltage' ? net.drive.node : -1
-  stampElements(ws, cl, io, src, true)
+  stampElements(ws, cl, io, ws.closedFixed, true)
   // Source equation row (Vo/A − V+ + V− = en): the ±1 entries are constant, 1/A is added per
   // frequency. Stored transposed, so row io's entries go down column io.
   const n = cl.n
   const ip = cl.index[net.plus]
   const im = cl.index[net.minus]
   if (ip >= 0) cl.g[ip * n + io] -= 1
-  else if (net.plus === src) cl.rhsG[io] += 1
+  else cl.rhsG[io] += ws.closedFixed[net.plus]
   if (im >= 0) cl.g[im * n + io] += 1
-  else if (net.minus === src) cl.rhsG[io] -= 1
+  else cl.rhsG[io] -= ws.closedFixed[net.minus]
   if (net.drive.kind === 'current') {
     const id = cl.index[net.drive.node]
     if (id >= 0 && id !== io) cl.rhsG[id] += 1
   }
-  stampElements(ws, ws.loop, -1, net.out, false)
+  stampElements(ws, ws.loop, -1, ws.loopFixed, false)
 }
 
 /** Allocate a workspace for a netlist and stamp its constant parts. */
@@ -124,14 +128,23 @@ export function createWorkspace(net: Netlist): NodalWorkspace {
   let closedCount = 0
   let loopCount = 0
   const voltageNode = net.drive.kind === 'voltage' ? net.drive.node : -1
+  const voltageMinus = net.drive.kind === 'voltage' ? net.drive.minus : -1
+  const closedFixed = new Float64Array(nodes)
+  const loopFixed = new Float64Array(nodes)
+  if (voltageNode > 0) closedFixed[voltageNode] = voltageMinus > 0 ? 0.5 : 1
+  if (voltageMinus > 0) closedFixed[voltageMinus] = -0.5
+  loopFixed[net.out] = 1
   for (let i = 1; i < nodes; i++) {
-    if (i !== voltageNode) closedIndex[i] = closedCount++
-    if (i !== voltageNode && i !== net.out) loopIndex[i] = loopCount++
+    const driven = i === voltageNode || i === voltageMinus
+    if (!driven) closedIndex[i] = closedCount++
+    if (!driven && i !== net.out) loopIndex[i] = loopCount++
   }
   const size = Math.max(closedCount, 1)
   const ws: NodalWorkspace = {
     net,
     value: Float64Array.from(net.elements, (e) => e.value),
+    closedFixed,
+    loopFixed,
     closed: emptySystem(closedIndex, closedCount),
     loop: emptySystem(loopIndex, loopCount),
     mre: new Float64Array(size * size),
@@ -159,6 +172,14 @@ export function setCapacitance(ws: NodalWorkspace, label: string, farads: number
   stampAll(ws)
 }
 
+/** Change the resistance of every resistor with this label, Ω > 0 (used by the riso search). */
+export function setResistance(ws: NodalWorkspace, label: string, ohms: number): void {
+  ws.net.elements.forEach((e, i) => {
+    if (e.label === label && e.kind === 'g') ws.value[i] = 1 / ohms
+  })
+  stampAll(ws)
+}
+
 /** Fill mre/mim with G + jωC and bre/bim with g + jωc of a mode. */
 function load(ws: NodalWorkspace, sys: ModeSystem, w: number): void {
   const {mre, mim, bre, bim} = ws
@@ -182,6 +203,7 @@ export function solveClosed(ws: NodalWorkspace, f: number): void {
   const sys = ws.closed
   const n = sys.n
   const io = sys.index[ws.net.out]
+  const probe = sys.index[ws.net.probe]
   const {mre, mim, bre, bim, yre, yim} = ws
   load(ws, sys, 2 * Math.PI * f)
   openLoopGainInto(ws.net.opamp, f, ws.a)
@@ -197,7 +219,7 @@ export function solveClosed(ws: NodalWorkspace, f: number): void {
     bre[i] = 0
     bim[i] = 0
   }
-  bre[io] = 1
+  bre[probe] = 1
   solveInPlace(n, mre, mim, bre, bim, ws.scale)
   let hr = 0
   let hi = 0

@@ -15,7 +15,7 @@ import {stageNetlist} from './topology/index.js'
 import type {Stability, StageCurves, StageInput} from './types.js'
 
 /** Loop-gain curves of `StageCurves`. */
-export type LoopCurves = Pick<StageCurves, 'frequency' | 'loopGainMagnitude' | 'loopGainPhase' | 'closedLoopMagnitude'>
+export type LoopCurves = Pick<StageCurves, 'frequency' | 'loopGainMagnitude' | 'loopGainPhase' | 'closedLoopMagnitude' | 'closedLoopPhase'>
 
 export interface StabilityAnalysis {
   stability: Stability
@@ -37,6 +37,8 @@ export function stabilityAnalysis(input: StageInput): StabilityAnalysis {
   const loopGainMagnitude: number[] = []
   const loopGainPhase: number[] = []
   const closedLoopMagnitude: number[] = []
+  const closedLoopPhase: number[] = []
+  let closedWrapped = 0
   let crossover: Crossover | null = null
   let wrapped = 0
   for (let i = 0; i <= n; i++) {
@@ -54,6 +56,9 @@ export function stabilityAnalysis(input: StageInput): StabilityAnalysis {
     loopGainMagnitude.push(m)
     loopGainPhase.push(phase)
     closedLoopMagnitude.push(Math.hypot(ws.hre, ws.him))
+    const cw = (Math.atan2(ws.him, ws.hre) * 180) / Math.PI
+    closedLoopPhase.push(i === 0 ? cw : closedLoopPhase[i - 1] + wrapDeg(cw - closedWrapped))
+    closedWrapped = cw
   }
   // A loop still above 1 at 10·gbw (unusual): keep scanning without storing curves.
   if (crossover === null && loopGainMagnitude[n] >= 1) crossover = findCrossover(ws, f1, 1e4 * f1, ratio, loopGainPhase[n])
@@ -68,7 +73,7 @@ export function stabilityAnalysis(input: StageInput): StabilityAnalysis {
       peaking: peakingOf(ws, frequency, closedLoopMagnitude, h0),
       suggestedCf: input.topology === 'transimpedance' ? suggestCf(input) : null
     },
-    curves: {frequency, loopGainMagnitude, loopGainPhase, closedLoopMagnitude}
+    curves: {frequency, loopGainMagnitude, loopGainPhase, closedLoopMagnitude, closedLoopPhase}
   }
 }
 

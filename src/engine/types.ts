@@ -7,8 +7,8 @@
  * Notes (`notes` in the JSON) come from `src/rules`, not from the engine.
  */
 
-/** Stage topologies (DESIGN §3.3). */
-export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance'] as const
+/** Stage topologies (DESIGN §3.3, §8.1, §8.4). */
+export const TOPOLOGIES = ['noninverting', 'inverting', 'follower', 'transimpedance', 'difference', 'lowpass-sallen-key', 'lowpass-mfb', 'instrumentation'] as const
 export type Topology = (typeof TOPOLOGIES)[number]
 export const isTopology = (s: string): s is Topology => (TOPOLOGIES as readonly string[]).includes(s)
 
@@ -40,6 +40,14 @@ export interface Resistor {
   tolerance: number
   /** Temperature coefficient, 1/K (25e-6 for 25 ppm/K); 0 when not given. */
   tempco: number
+}
+
+/** A capacitor: value with tolerance (DESIGN §8.4). */
+export interface Capacitor {
+  /** Capacitance, F (> 0). */
+  value: number
+  /** Tolerance as a fraction; 0 when not given. Shown in the parameters table only. */
+  tolerance: number
 }
 
 /** An op-amp's datasheet values, SI. */
@@ -107,6 +115,47 @@ export interface OpampParams {
   rout: number | null
 }
 
+/** An integrated instrumentation amplifier's datasheet values, SI (DESIGN §8.2). */
+export interface InaParams {
+  /** Block id or archetype name. */
+  name: string
+  archetype: boolean
+  inputType: InputType
+  /** G = 1 + gainConstant/rg, Ω. */
+  gainConstant: number
+  /** Gain error at 25 °C excluding rg, fraction. */
+  gainError: number
+  /** Gain drift excluding rg, 1/K. */
+  gainDrift: number
+  /** Nonlinearity, fraction of the output span. */
+  nonlinearity: number
+  vosIn: number
+  vosOut: number
+  vosInDrift: number
+  vosOutDrift: number
+  ib: number
+  ios: number
+  ibMax: number | null
+  iosMax: number | null
+  ibDoubling: number | null
+  vcmRef: number | null
+  /** Input-stage and output-stage voltage noise, V/√Hz, with one 1/f corner. */
+  enIn: number
+  enOut: number
+  enCorner: number
+  in: number
+  inCorner: number
+  /** CMRR at the stage's gain, linear. */
+  cmrr: number
+  /** PSRR, input-referred, linear. */
+  psrr: number
+  /** Bandwidth ≈ gbw/G, Hz. */
+  gbw: number
+  slew: number | null
+  swingHeadroom: number | null
+  cmHeadroom: number | null
+}
+
 /** Room-temperature calibration of a stage (DESIGN §4.6). */
 export const CALIBRATIONS = ['none', 'offset', 'offset-and-gain'] as const
 export type Calibration = (typeof CALIBRATIONS)[number]
@@ -145,8 +194,28 @@ export interface StageInput {
   idarkMax: number | null
   /** Dark-current doubling interval, K (default 10 K, common practice for silicon photodiodes). */
   idarkDoubling: number
-  /** Voltage on the + input of inverting and transimpedance stages, V. */
+  /** Voltage on the + input of inverting and transimpedance stages, and the reference node of `difference` and `lowpass-mfb` stages, V. */
   vref: number
+  /** Difference: + leg resistor, source + to the + pin (DESIGN §8.1). */
+  rp: Resistor | null
+  /** Difference: + pin to the reference node at vref. */
+  rref: Resistor | null
+  /** Low-pass filters (DESIGN §8.4): r1, r2, r3 (MFB only), c1, c2. */
+  r1: Resistor | null
+  r2: Resistor | null
+  r3: Resistor | null
+  c1: Capacitor | null
+  c2: Capacitor | null
+  /** Series isolation resistor between the output pin and the load (DESIGN §8.3); null = none. */
+  riso: Resistor | null
+  /** Load capacitance from the load node to ground, F. */
+  cload: number
+  /** Capacitance from the + pin to ground, F. */
+  cstrayPlus: number
+  /** Difference and instrumentation: common-mode range of the input, V (default 0 .. 0). */
+  inputCm: Range
+  /** Instrumentation: the integrated amplifier (DESIGN §8.2); null for other topologies. */
+  ina: InaParams | null
   /** Signal range at the stage input: V, or A for transimpedance. */
   input: Range
   /** Supply rails [negative, positive], V. */
@@ -163,7 +232,7 @@ export interface StageInput {
   noiseTemperature: number
   /** Signal frequency for the slew limit, Hz; null = the band's top (DESIGN §4.6). */
   signalFrequency: number | null
-  /** Load resistance from the output to ground, Ω; null = none (DESIGN §4.6, §8.3). */
+  /** Load resistance from the load node (after riso) to ground, Ω; null = none (DESIGN §4.6, §8.3). */
   rload: number | null
   /** Room-temperature calibration (DESIGN §4.6, default none). */
   calibration: Calibration
@@ -172,11 +241,13 @@ export interface StageInput {
 }
 
 /** DC contributor keys (DESIGN §4.2). */
-export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'resistor-tolerance', 'resistor-tempco'] as const
+export const DC_KEYS = ['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'aol-gain', 'gain-error', 'resistor-tolerance', 'resistor-tempco', 'nonlinearity'] as const
 export type DcKey = (typeof DC_KEYS)[number]
 
 /** Noise contributor keys (DESIGN §4.3). */
-export const NOISE_KEYS = ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'] as const
+export const NOISE_KEYS = [
+  'en', 'en-in', 'en-out', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp', 'r:rshunt', 'r:rp', 'r:rref', 'r:r1', 'r:r2', 'r:r3', 'r:riso', 'r:rload', 'shot', 'shot-signal'
+] as const
 export type NoiseKey = (typeof NOISE_KEYS)[number]
 
 /** The residual budget after a room-temperature calibration (DESIGN §4.6). */
@@ -203,6 +274,12 @@ export interface DcBudget {
   rssInput: number
   /** Residuals after calibration; null when the stage has none (DESIGN §4.6). */
   calibrated: CalibratedBudget | null
+  /**
+   * Difference stages: the network's own common-mode rejection at its worst tolerance corner,
+   * 20·lg(|G|/|Acm|), dB (DESIGN §8.1); null for other topologies, when no resistor carries a
+   * tolerance, or when the ideal network rejects the common mode exactly at every corner.
+   */
+  networkCmrr: number | null
 }
 
 export interface NoiseBudget {
@@ -319,6 +396,8 @@ export interface StageCurves {
   loopGainPhase: number[]
   /** |H(f)| signal gain (V/V, or Ω for transimpedance). */
   closedLoopMagnitude: number[]
+  /** ∠H(f), degrees, unwrapped from DC (the low-pass response chart). */
+  closedLoopPhase: number[]
 }
 
 /** Output operating point and swing check (DESIGN §4.1, §4.6). */
@@ -346,6 +425,16 @@ export interface BiasUsed {
   idarkSource: 'idark-max' | 'doubling'
 }
 
+/** Low-pass figures from the solved response (DESIGN §8.4). */
+export interface FilterFigures {
+  /** Where the phase of H(f)/H(0) passes −90°, Hz; null when it never does in the span. */
+  f0: number | null
+  /** |H(f0)/H(0)|; null with f0. */
+  q: number | null
+  /** H(0), signed, V/V. */
+  passbandGain: number
+}
+
 export interface StageResult {
   id: string
   topology: Topology
@@ -358,6 +447,8 @@ export interface StageResult {
   dc: DcBudget
   noise: NoiseBudget
   stability: Stability
+  /** Low-pass stages only; null for other topologies (DESIGN §8.4). */
+  filter: FilterFigures | null
   requirements: RequirementResult[]
   /** Report-only. */
   curves: StageCurves

@@ -10,6 +10,10 @@ import type {Field} from './block-yaml.js'
 import type {NoteRule, Reporter} from './diagnostics.js'
 import {noteMessages} from './messages.js'
 import {buildOpamp} from './opamp-block.js'
+import {buildIna} from './ina-block.js'
+import {didYouMean} from './did-you-mean.js'
+import {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, isInaArchetypeName} from '../engine/ina-archetypes.js'
+import type {InaParams} from '../engine/types.js'
 import type {OpampRegistry} from './opamp-registry.js'
 import {buildStage} from './stage-block.js'
 import type {BlockEntry, OpampBlockNode, StageBlockNode} from './types.js'
@@ -35,6 +39,8 @@ export interface BlockRead {
   /** Whether this is the first block of its kind with this id. */
   firstOfId: boolean
   opamps: OpampRegistry
+  /** The ina blocks read so far (first definition per id), DESIGN §8.2. */
+  inas: Map<string, import('../engine/types.js').InaParams | null>
   /** What a chain block may name: stages and converters above it, chain membership. */
   chains: ChainScope
   /** True for a stage that a chain names after its first place (its input comes from the chain). */
@@ -55,6 +61,23 @@ export interface BlockKind {
   predeclared?: boolean
 }
 
+/** A stage's `ina:` name: an ina block above it, or an INA archetype (DESIGN §8.2). */
+function inaResolver(inas: ReadonlyMap<string, InaParams | null>, where: string, report: Reporter) {
+  return (name: string, at: Point): InaParams | null => {
+    if (inas.has(name)) {
+      const ina = inas.get(name) ?? null
+      if (ina === null) report.info(noteMessages.opampHasErrors(where, name), at, 'opamp-has-errors')
+      return ina
+    }
+    if (isInaArchetypeName(name)) return {...INA_ARCHETYPES[name]}
+    const suggestion = didYouMean(name, [...inas.keys(), ...INA_ARCHETYPE_NAMES])
+    report.error(noteMessages.unknownIna(name, where, suggestion, INA_ARCHETYPE_NAMES), at, 'unknown-opamp', {
+      actual: name, expected: suggestion === null ? [...inas.keys(), ...INA_ARCHETYPE_NAMES] : [suggestion]
+    })
+    return null
+  }
+}
+
 const nodeFields = (b: BlockRead): {id: string; entries: BlockEntry[]; position?: Position} =>
   ({id: b.id, entries: b.entries, ...(b.position ? {position: b.position} : {})})
 
@@ -62,7 +85,11 @@ export const BLOCK_KINDS = {
   stage: {
     read(b) {
       const fromChain = b.inputFromChain(b.id)
-      const built = buildStage(b.fields, {id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report, resolveOpamp: b.opamps.resolver(b.where, b.report), inputOptional: fromChain})
+      const built = buildStage(b.fields, {
+        id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report,
+        resolveOpamp: b.opamps.resolver(b.where, b.report), resolveIna: inaResolver(b.inas, b.where, b.report),
+        inputOptional: fromChain
+      })
       const input = b.report.errors > b.errorsBefore ? null : built.input
       const {id, entries, ...rest} = nodeFields(b)
       const node: StageBlockNode = {type: 'stageBlock', id, entries, input, defaulted: built.defaulted, ...rest}
@@ -83,6 +110,15 @@ export const BLOCK_KINDS = {
       const node: OpampBlockNode = {type: 'opampBlock', id, entries, opamp, defaulted: built.defaulted, ...rest}
       if (b.firstOfId && id !== '') b.opamps.define(node)
       return node
+    }
+  },
+  ina: {
+    read(b) {
+      const built = buildIna(b.fields, {id: b.id, idAt: b.idAt, where: b.where, broken: b.broken, report: b.report})
+      const ina = b.report.errors > b.errorsBefore ? null : built.ina
+      const {id, entries, ...rest} = nodeFields(b)
+      if (b.firstOfId && id !== '' && !b.inas.has(id)) b.inas.set(id, ina)
+      return {type: 'opampBlock', id, entries, opamp: null, ina, defaulted: built.defaulted, ...rest}
     }
   },
   adc: {

@@ -120,6 +120,7 @@ export function readBlocks(tree: Root, file: VFile): void {
     return
   }
   const opamps = opampRegistry(predeclaredIds(found, source, 'opamp'))
+  const inas = new Map<string, import('../engine/types.js').InaParams | null>()
   const chains: ChainScope = {
     stagesAbove: new Map(), allStages: predeclaredIds(found, source, 'stage'),
     adcsAbove: new Map(), allAdcs: predeclaredIds(found, source, 'adc'), member: new Map()
@@ -146,7 +147,7 @@ export function readBlocks(tree: Root, file: VFile): void {
     const {fields, broken} = swallowed === null ? readYaml(code.value, mapper, where, report) : {fields: [], broken: true}
     const node = kind.read({
       id: info.id ?? '', idAt: info.idAt, where, broken, report, fields, entries: entriesOf(fields),
-      position: code.position, errorsBefore, firstOfId, opamps, chains, inputFromChain
+      position: code.position, errorsBefore, firstOfId, opamps, inas, chains, inputFromChain
     })
     parent.children[index] = node
     ;(blocks[lang] ??= []).push(node)

@@ -11,9 +11,20 @@ import type {OpampParams, Topology} from '../engine/types.js'
 export type Use = 'r' | 'o' | '-'
 type Uses = Readonly<Record<Topology, Use>>
 
-const ALL_R: Uses = {noninverting: 'r', inverting: 'r', follower: 'r', transimpedance: 'r'}
-const ALL_O: Uses = {noninverting: 'o', inverting: 'o', follower: 'o', transimpedance: 'o'}
-const TIA_ONLY: Uses = {noninverting: '-', inverting: '-', follower: '-', transimpedance: 'o'}
+/**
+ * Columns in TOPOLOGIES order: noninverting, inverting, follower, transimpedance, difference,
+ * lowpass-sallen-key, lowpass-mfb, instrumentation.
+ */
+const uses = (...u: [Use, Use, Use, Use, Use, Use, Use, Use]): Uses => ({
+  noninverting: u[0], inverting: u[1], follower: u[2], transimpedance: u[3], difference: u[4], 'lowpass-sallen-key': u[5], 'lowpass-mfb': u[6], instrumentation: u[7]
+})
+const ALL_R: Uses = uses('r', 'r', 'r', 'r', 'r', 'r', 'r', 'r')
+const ALL_O: Uses = uses('o', 'o', 'o', 'o', 'o', 'o', 'o', 'o')
+/** Keys of the op-amp's loop and output network: an integrated INA has neither (DESIGN §8.2). */
+const OPAMP_STAGES_O: Uses = uses('o', 'o', 'o', 'o', 'o', 'o', 'o', '-')
+const TIA_ONLY: Uses = uses('-', '-', '-', 'o', '-', '-', '-', '-')
+const DIFFERENCE_R: Uses = uses('-', '-', '-', '-', 'r', '-', '-', '-')
+const FILTERS_R: Uses = uses('-', '-', '-', '-', '-', 'r', 'r', '-')
 
 /** How a stage value is read. */
 export type StageKind =
@@ -24,6 +35,12 @@ export type StageKind =
   | {kind: 'resistor'}
   /** A resistance without tolerance or tempco (rshunt, rload). */
   | {kind: 'shunt'}
+  /** `value [tolerance]` (DESIGN §8.4). */
+  | {kind: 'capacitor'}
+  /** Common-mode range, V; a single value is x .. x. */
+  | {kind: 'input-cm'}
+  /** An ina block id or an INA archetype (DESIGN §8.2). */
+  | {kind: 'ina'}
   /** `none | offset | offset-and-gain` (DESIGN §4.6). */
   | {kind: 'calibration'}
   | {kind: 'quantity'; dim: Dimension}
@@ -48,21 +65,33 @@ export interface StageKeySpec {
 export const STAGE_KEYS = {
   title: {read: {kind: 'text'}, use: ALL_O},
   topology: {read: {kind: 'topology'}, use: ALL_R},
-  opamp: {read: {kind: 'opamp'}, use: ALL_R},
-  rf: {read: {kind: 'resistor'}, use: {noninverting: 'r', inverting: 'r', follower: 'o', transimpedance: 'r'}},
-  rg: {read: {kind: 'resistor'}, use: {noninverting: 'r', inverting: 'r', follower: '-', transimpedance: '-'}},
-  rs: {read: {kind: 'resistor'}, use: {noninverting: 'o', inverting: 'o', follower: 'o', transimpedance: '-'}},
-  rcomp: {read: {kind: 'resistor'}, use: ALL_O},
-  ccomp: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
-  cf: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
-  cstray: {read: {kind: 'quantity', dim: 'capacitance'}, use: ALL_O},
+  opamp: {read: {kind: 'opamp'}, use: uses('r', 'r', 'r', 'r', 'r', 'r', 'r', '-')},
+  ina: {read: {kind: 'ina'}, use: uses('-', '-', '-', '-', '-', '-', '-', 'r')},
+  rf: {read: {kind: 'resistor'}, use: uses('r', 'r', 'o', 'r', 'r', 'o', '-', '-')},
+  rg: {read: {kind: 'resistor'}, use: uses('r', 'r', '-', '-', 'r', 'o', '-', 'r')},
+  rs: {read: {kind: 'resistor'}, use: uses('o', 'o', 'o', '-', 'o', '-', '-', 'o')},
+  rp: {read: {kind: 'resistor'}, use: DIFFERENCE_R},
+  rref: {read: {kind: 'resistor'}, use: DIFFERENCE_R},
+  r1: {read: {kind: 'resistor'}, use: FILTERS_R},
+  r2: {read: {kind: 'resistor'}, use: FILTERS_R},
+  r3: {read: {kind: 'resistor'}, use: uses('-', '-', '-', '-', '-', '-', 'r', '-')},
+  c1: {read: {kind: 'capacitor'}, use: FILTERS_R},
+  c2: {read: {kind: 'capacitor'}, use: FILTERS_R},
+  rcomp: {read: {kind: 'resistor'}, use: uses('o', 'o', 'o', 'o', '-', '-', 'o', '-')},
+  ccomp: {read: {kind: 'quantity', dim: 'capacitance'}, use: uses('o', 'o', 'o', 'o', '-', '-', 'o', '-')},
+  cf: {read: {kind: 'quantity', dim: 'capacitance'}, use: uses('o', 'o', 'o', 'o', 'o', 'o', '-', '-')},
+  cstray: {read: {kind: 'quantity', dim: 'capacitance'}, use: OPAMP_STAGES_O},
+  'cstray-plus': {read: {kind: 'quantity', dim: 'capacitance'}, use: OPAMP_STAGES_O},
   rshunt: {read: {kind: 'shunt'}, use: TIA_ONLY},
   csource: {read: {kind: 'quantity', dim: 'capacitance'}, use: TIA_ONLY},
   idark: {read: {kind: 'quantity', dim: 'current'}, use: TIA_ONLY},
   'idark-max': {read: {kind: 'quantity', dim: 'current'}, use: TIA_ONLY},
   'idark-doubling': {read: {kind: 'quantity', dim: 'temperature-interval'}, use: TIA_ONLY},
-  vref: {read: {kind: 'quantity', dim: 'voltage'}, use: {noninverting: '-', inverting: 'o', follower: '-', transimpedance: 'o'}},
+  vref: {read: {kind: 'quantity', dim: 'voltage'}, use: uses('-', 'o', '-', 'o', 'o', '-', 'o', 'o')},
+  riso: {read: {kind: 'resistor'}, use: OPAMP_STAGES_O},
+  cload: {read: {kind: 'quantity', dim: 'capacitance'}, use: OPAMP_STAGES_O},
   input: {read: {kind: 'input'}, use: ALL_R},
+  'input-cm': {read: {kind: 'input-cm'}, use: uses('-', '-', '-', '-', 'o', '-', '-', 'o')},
   supply: {read: {kind: 'supply'}, use: ALL_R},
   'supply-tolerance': {read: {kind: 'quantity', dim: 'fraction'}, use: ALL_O},
   temperature: {read: {kind: 'temperature-range'}, use: ALL_O},
@@ -84,9 +113,11 @@ type KeysOfKind<T extends string> = {[K in StageKey]: KindOf<K> extends T ? K : 
 export type ResistorKey = KeysOfKind<'resistor'>
 /** Keys read as a single quantity. */
 export type QuantityKey = KeysOfKind<'quantity'>
+/** Keys read as a capacitor spec. */
+export type CapacitorKey = KeysOfKind<'capacitor'>
 
 /** Resistor keys where a value under 1 Ω written with `m` is suspicious (DESIGN §3.1). */
-export const MILLI_CHECKED: readonly ResistorKey[] = ['rf', 'rg', 'rs']
+export const MILLI_CHECKED: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rp', 'rref', 'r1', 'r2', 'r3']
 
 /** How an opamp value may be signed. */
 export type Sign = 'any' | 'nonnegative' | 'positive'

@@ -84,6 +84,10 @@ export const noteMessages = {
     key === 'rshunt'
       ? 'Unexpected tolerance or tempco on `rshunt`, expected its value alone (the source shunt is not a chosen part): remove them'
       : `Unexpected tolerance or tempco on ${q(key)}, expected its value alone (a load's tolerance does not enter the budget): remove them`,
+  capacitorExtra: (text: string) =>
+    `Unexpected ${q(text)} after the capacitance, expected at most a tolerance (\`10 nF 5%\`)`,
+  rgWithoutRf: () =>
+    'Unexpected `rg` without `rf` on a Sallen-Key stage, expected both (gain 1 + rf/rg) or neither (unity gain): add `rf` or remove `rg`',
   implausible: (key: string, what: string, value: string, bound: string) =>
     `Unexpected ${what} ${q(value)} for ${q(key)}, beyond ${bound}: check the value and its prefix (the figures computed from it are shown, flagged where they leave the usual range)`,
   milliOhm: (key: string, value: string) =>
@@ -98,6 +102,8 @@ export const noteMessages = {
 
   unknownOpamp: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>
     `Unexpected opamp ${q(name)} in ${stage}, expected the id of an opamp block of this note or an archetype${suggestion === null && archetypes.length > 0 ? `: add an \`opamp ${name}\` block above the stage, or name an archetype (${archetypes.map(q).join(', ')})` : hint(suggestion)}`,
+  unknownIna: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>
+    `Unexpected ina ${q(name)} in ${stage}, expected the id of an ina block above the stage or an INA archetype${suggestion === null && archetypes.length > 0 ? ` (${archetypes.map(q).join(', ')})` : hint(suggestion)}`,
   opampDefinedLater: (name: string, line: number) =>
     `Unexpected opamp ${q(name)} before its block (line ${line}), expected it defined above the stage: move the opamp block up`,
   opampHasErrors: (stage: string, name: string) =>

@@ -5,7 +5,8 @@
  * the defaults and lists them. Any error in the block makes the input null.
  */
 import type {Point} from 'unist'
-import type {OpampParams, Resistor, StageInput, Topology} from '../engine/types.js'
+import {inaAsOpamp} from '../engine/ina-archetypes.js'
+import type {InaParams, OpampParams, Resistor, StageInput, Topology} from '../engine/types.js'
 import {formatPercent, formatQuantity, formatRange, formatTemperature, formatTemperatureRange, formatTempco} from '../units/index.js'
 import type {Field} from './block-yaml.js'
 import type {Reporter} from './diagnostics.js'
@@ -40,6 +41,8 @@ export interface StageContext {
   broken: boolean
   report: Reporter
   resolveOpamp: OpampResolver
+  /** Resolves an instrumentation stage's `ina:` (DESIGN §8.2). */
+  resolveIna: (name: string, at: Point) => InaParams | null
   /** True for a stage a chain names after its first place: `input` may be left out (DESIGN §8.6). (optional) */
   inputOptional?: boolean
 }
@@ -51,7 +54,7 @@ export interface BuiltStage {
   inputFromChain: boolean
 }
 
-const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp']
+const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso']
 
 function reportMissing(read: StageRead, ctx: StageContext): void {
   for (const key of Object.keys(STAGE_KEYS) as StageKey[]) {
@@ -81,6 +84,10 @@ function checkCombinations(read: StageRead, ctx: StageContext): void {
   if (read.topology === 'follower' && cf !== undefined && (read.quantities.cf ?? 0) > 0 && (read.resistors.rf?.value ?? 0) === 0) {
     ctx.report.error(noteMessages.cfWithoutRf(), cf.keyAt, 'inconsistent-keys')
   }
+  const rg = read.given.get('rg')
+  if (read.topology === 'lowpass-sallen-key' && rg !== undefined && !read.given.has('rf')) {
+    ctx.report.error(noteMessages.rgWithoutRf(), rg.keyAt, 'inconsistent-keys')
+  }
 }
 
 const toResistor = (r: ReadResistor | undefined): Resistor | null =>
@@ -100,8 +107,13 @@ function defaultsOf(read: StageRead, topology: Topology, id: string): DefaultedV
   if (topology === 'follower') add('rf', '0 Ω (a wire)')
   add('rs', 'none (0 Ω)')
   add('rcomp', 'none (0 Ω)')
-  for (const key of ['ccomp', 'cf', 'cstray', 'csource'] as const) add(key, formatQuantity(0, 'F'))
+  for (const key of ['ccomp', 'cf', 'cstray', 'cstray-plus', 'csource'] as const) add(key, formatQuantity(0, 'F'))
   add('rshunt', 'open')
+  add('riso', 'none (a wire)')
+  add('cload', formatQuantity(0, 'F'))
+  if (topology === 'lowpass-sallen-key') add('rf', '0 Ω (unity gain)')
+  add('input-cm', formatQuantity(0, 'V'))
+  for (const key of ['c1', 'c2'] as const) if (read.capacitors[key]?.defaulted === true) out.push({key: `${key}.tolerance`, value: formatPercent(0)})
   add('idark', formatQuantity(0, 'A'))
   if ((read.quantities.idark ?? 0) > 0) {
     add('idark-max', 'not entered (idark doubled every idark-doubling above 25 °C)')
@@ -130,7 +142,10 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
   const read = readStage(fields, ctx.where, ctx.report)
   if (!ctx.broken) reportMissing(read, ctx)
   checkCombinations(read, ctx)
-  const opamp = read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
+  const ina = read.ina === null ? null : ctx.resolveIna(read.ina.name, read.ina.at)
+  // An instrumentation stage's amplifier is its INA; the op-amp view carries its input values.
+  const opamp = read.topology === 'instrumentation' ? (ina === null ? null : inaAsOpamp(ina))
+    : read.opamp === null ? null : ctx.resolveOpamp(read.opamp.name, read.opamp.at)
   const {topology, supply} = read
   // A later stage of a chain may leave `input` out: the chain supplies the previous stage's output range.
   const inputFromChain = read.input === null && !read.given.has('input') && ctx.inputOptional === true
@@ -152,6 +167,18 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     cf: q.cf ?? 0,
     cstray: q.cstray ?? STAGE_DEFAULTS.cstray,
     rshunt: read.rshunt,
+    rp: toResistor(read.resistors.rp),
+    rref: toResistor(read.resistors.rref),
+    r1: toResistor(read.resistors.r1),
+    r2: toResistor(read.resistors.r2),
+    r3: toResistor(read.resistors.r3),
+    c1: read.capacitors.c1 === undefined ? null : {value: read.capacitors.c1.value, tolerance: read.capacitors.c1.tolerance},
+    c2: read.capacitors.c2 === undefined ? null : {value: read.capacitors.c2.value, tolerance: read.capacitors.c2.tolerance},
+    riso: toResistor(read.resistors.riso),
+    cload: q.cload ?? 0,
+    cstrayPlus: q['cstray-plus'] ?? 0,
+    inputCm: read.inputCm ?? [0, 0],
+    ina,
     csource: q.csource ?? 0,
     idark: q.idark ?? 0,
     idarkMax: q['idark-max'] ?? null,

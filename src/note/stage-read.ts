@@ -11,11 +11,11 @@ import type {Reporter} from './diagnostics.js'
 import {didYouMean} from './did-you-mean.js'
 import {
   MILLI_CHECKED, OPAMP_BLOCK_KEYS, STAGE_KEYS, isStageKey,
-  type QuantityKey, type ResistorKey
+  type CapacitorKey, type QuantityKey, type ResistorKey
 } from './keys.js'
 import {noteMessages} from './messages.js'
 import {STAGE_ROLES} from './types.js'
-import {choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
+import {capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
 import {formatQuantity, formatRange, formatTempco} from '../units/index.js'
 
 export interface ReadResistor {
@@ -30,14 +30,18 @@ export interface StageRead {
   topology: Topology | null
   title: string | null
   opamp: {name: string; at: Point} | null
+  /** Instrumentation: the `ina:` name. */
+  ina: {name: string; at: Point} | null
   resistors: Partial<Record<ResistorKey, ReadResistor>>
   quantities: Partial<Record<QuantityKey, number>>
   rshunt: number | null
   rload: number | null
+  capacitors: Partial<Record<CapacitorKey, {value: number; tolerance: number; defaulted: boolean}>>
   /** True when the supply was written as one value (`15 V`, read as 0 … 15 V). */
   supplySingle: boolean
   calibration: Calibration | null
   input: [number, number] | null
+  inputCm: [number, number] | null
   supply: [number, number] | null
   temperature: [number, number] | null
   band: [number, number] | null
@@ -153,7 +157,8 @@ function readQuantityKey(field: Field, key: QuantityKey, dim: Dimension, read: S
 /** Walk the fields of a stage block (see module header). */
 export function readStage(fields: readonly Field[], where: string, report: Reporter): StageRead {
   const read: StageRead = {
-    topology: null, title: null, opamp: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
+    topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
+    capacitors: {}, inputCm: null,
     input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
@@ -189,6 +194,11 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         if (s !== null) read.opamp = {name: s.text.trim(), at: s.at(0)}
         break
       }
+      case 'ina': {
+        const s = scalarOf(field, 'an ina block id or an INA archetype name', report)
+        if (s !== null) read.ina = {name: s.text.trim(), at: s.at(0)}
+        break
+      }
       case 'resistor':
         readResistor(field, key as ResistorKey, read, report)
         break
@@ -200,6 +210,18 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         else if (r.value.value.value <= 0) report.error(noteMessages.notPositive(key, text, 'a resistance'), r.s.at(0), 'bad-value')
         else if (key === 'rload') read.rload = r.value.value.value
         else read.rshunt = r.value.value.value
+        break
+      }
+      case 'capacitor': {
+        const c = capacitorOf(field, report)
+        if (c === null) break
+        if (c.value.value <= 0) report.error(noteMessages.notPositive(key, c.s.text.trim(), 'a capacitance'), c.s.at(0), 'bad-value')
+        else read.capacitors[key as CapacitorKey] = c.value
+        break
+      }
+      case 'input-cm': {
+        const r = rangeOf(field, 'voltage', report, 'point')
+        if (r !== null) read.inputCm = r.value
         break
       }
       case 'calibration':

@@ -77,8 +77,10 @@ export interface OpampBlockNode {
   type: 'opampBlock'
   id: string
   entries: BlockEntry[]
-  /** Null when the block had errors. */
+  /** Null when the block had errors (and for an `ina` block). */
   opamp: OpampParams | null
+  /** An `ina` block (DESIGN §8.2): its values, null when it had errors; absent for an opamp block. */
+  ina?: import('../engine/types.js').InaParams | null
   defaulted: DefaultedValue[]
   position?: Position
 }

@@ -74,6 +74,28 @@ export function resistorOf(field: Field, report: Reporter): {value: Extract<Resi
   })
 }
 
+/**
+ * A capacitor spec `value [tolerance]` (DESIGN §8.4): the last word is the tolerance when it
+ * ends in `%` or `ppm`, the rest the capacitance.
+ */
+export function capacitorOf(field: Field, report: Reporter): {value: {value: number; tolerance: number; defaulted: boolean}; s: ScalarText} | null {
+  return read(field, 'a capacitor (`10 nF 5%`)', report, (t) => {
+    const m = /^(.*\S)\s+(±?)(\S+)\s*$/.exec(t)
+    const tolText = m !== null && /(%|ppm)$/.test(m[3]) ? m[3] : null
+    const valueText = tolText === null || m === null ? t : m[1]
+    const v = parseQuantity(valueText, 'capacitance', {key: field.key})
+    if (!v.ok) return v
+    if (tolText === null || m === null) {
+      return {ok: true, value: {value: v.value, tolerance: 0, defaulted: true as boolean}}
+    }
+    const at = t.lastIndexOf(tolText)
+    const tol = parseQuantity(tolText, 'fraction', {key: field.key})
+    if (!tol.ok) return {...tol, offset: tol.offset + at}
+    if (tol.value < 0 || tol.value >= 1) return {ok: false, message: noteMessages.capacitorExtra(tolText), offset: at}
+    return {ok: true, value: {value: v.value, tolerance: tol.value, defaulted: false}}
+  })
+}
+
 /** One of a closed set of words, with a did-you-mean hint. */
 export function choiceOf<T extends string>(field: Field, choices: readonly T[], report: Reporter): T | null {
   const s = scalarOf(field, `one of ${choices.join(', ')}`, report)

@@ -22,7 +22,16 @@ export function noisePresent(input: StageInput, key: NoiseKey): boolean {
     case 'r:rshunt': return input.rshunt !== null
     case 'shot': return input.idark > 0
     case 'shot-signal': return input.topology === 'transimpedance' && (input.input[0] !== 0 || input.input[1] !== 0)
+    case 'r:rp': return has(input.rp)
+    case 'r:rref': return has(input.rref)
+    case 'r:r1': return has(input.r1)
+    case 'r:r2': return has(input.r2)
+    case 'r:r3': return has(input.r3)
+    case 'r:riso': return has(input.riso)
+    case 'r:rload': return input.rload !== null && input.rload > 0
     case 'en':
+    case 'en-in':
+    case 'en-out':
     case 'in+':
     case 'in-':
       return true

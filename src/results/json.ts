@@ -48,6 +48,8 @@ export interface JsonStage {
   dc: StageEvaluation['result']['dc']
   noise: StageEvaluation['result']['noise']
   stability: StageEvaluation['result']['stability']
+  /** Low-pass stages (DESIGN §8.4); null elsewhere. */
+  filter: StageEvaluation['result']['filter']
   requirements: StageEvaluation['result']['requirements']
   /** Practice and safety notes; `accepted` is the author's reason when the stage's `accept:` accepts the rule, else null. */
   notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
@@ -81,7 +83,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
         rssOutput: r.dc.calibrated.rssOutput,
         worstCaseInput: r.dc.calibrated.worstCaseInput,
         rssInput: r.dc.calibrated.rssInput
-      }
+      },
+      networkCmrr: finite(r.dc.networkCmrr)
     },
     noise: {
       band: [r.noise.band[0], r.noise.band[1]],
@@ -99,6 +102,7 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
       peaking: r.stability.peaking,
       suggestedCf: finite(r.stability.suggestedCf)
     },
+    filter: r.filter === null ? null : {f0: finite(r.filter.f0), q: finite(r.filter.q), passbandGain: r.filter.passbandGain},
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
     role: ev.role

@@ -13,12 +13,16 @@ export const DC_LABELS: Record<DcKey, string> = {
   cmrr: 'Common-mode rejection',
   psrr: 'Supply rejection',
   'aol-gain': 'Finite open-loop gain',
+  'gain-error': 'Gain error of the part',
+  nonlinearity: 'Gain nonlinearity',
   'resistor-tolerance': 'Resistor tolerance',
   'resistor-tempco': 'Resistor tempco'
 }
 
 export const NOISE_LABELS: Record<NoiseKey, string> = {
   en: 'Op-amp voltage noise',
+  'en-in': 'Input-stage voltage noise',
+  'en-out': 'Output-stage voltage noise',
   'in+': 'Current noise, + input',
   'in-': 'Current noise, − input',
   'r:rf': 'Thermal noise of rf',
@@ -26,6 +30,13 @@ export const NOISE_LABELS: Record<NoiseKey, string> = {
   'r:rs': 'Thermal noise of rs',
   'r:rcomp': 'Thermal noise of rcomp',
   'r:rshunt': 'Thermal noise of rshunt',
+  'r:rp': 'Thermal noise of rp',
+  'r:rref': 'Thermal noise of rref',
+  'r:r1': 'Thermal noise of r1',
+  'r:r2': 'Thermal noise of r2',
+  'r:r3': 'Thermal noise of r3',
+  'r:riso': 'Thermal noise of riso',
+  'r:rload': 'Thermal noise of rload',
   shot: 'Shot noise of source dark current',
   'shot-signal': 'Shot noise of signal current (full scale)'
 }
@@ -53,7 +64,11 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
   noninverting: 'Non-inverting amplifier',
   inverting: 'Inverting amplifier',
   follower: 'Voltage follower',
-  transimpedance: 'Transimpedance amplifier'
+  transimpedance: 'Transimpedance amplifier',
+  difference: 'Difference amplifier',
+  'lowpass-sallen-key': 'Sallen-Key low-pass filter',
+  'lowpass-mfb': 'Multiple-feedback low-pass filter',
+  instrumentation: 'Instrumentation amplifier'
 }
 
 /** Unit of the stage's input quantity: A for transimpedance, V otherwise. */

@@ -5,7 +5,8 @@
  *
  * When it fires: bandwidth under 10 × fH (a single pole there already takes about 0.5 % off the
  * signal at fH, common practice) → caution; bandwidth under fH, so the band reaches past the
- * response → warning. Silent when the bandwidth is not reached in the analysed span.
+ * response → warning. Silent when the bandwidth is not reached in the analysed span; for a
+ * low-pass stage (whose job is to limit the bandwidth) only the warning applies.
  *
  * What it recommends: more gain-bandwidth, less gain in this stage, or a band that matches
  * what the stage passes.
@@ -20,6 +21,8 @@ function check({input, result}: RuleContext): RuleFinding[] {
   const bw = result.stability.bandwidth
   const fH = input.band[1]
   if (bw === null || bw >= MARGIN * fH) return []
+  // A low-pass stage limits the bandwidth on purpose: only a band past its response is news.
+  if (result.filter !== null && bw >= fH) return []
   const ratio = bw / fH
   if (bw < fH) {
     return [{

@@ -10,8 +10,10 @@ import batteryStoredEnergy from './battery-stored-energy.js'
 import bandwidthMargin from './bandwidth-margin.js'
 import biasCompensationResistor from './bias-compensation-resistor.js'
 import biasOverTemperatureMissing from './bias-over-temperature-missing.js'
+import capacitiveLoad from './capacitive-load.js'
 import eSeriesValues from './e-series-values.js'
 import fetBiasHotEnd from './fet-bias-hot-end.js'
+import filterGbw from './filter-gbw.js'
 import followerFeedbackResistor from './follower-feedback-resistor.js'
 import hazardousVoltage from './hazardous-voltage.js'
 import limitDataMissing from './limit-data-missing.js'
@@ -38,6 +40,8 @@ export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'patient-connected': patientConnected,
   'battery-stored-energy': batteryStoredEnergy,
   'phase-margin-low': phaseMarginLow,
+  'capacitive-load': capacitiveLoad,
+  'filter-gbw': filterGbw,
   'transimpedance-feedback-cap': transimpedanceFeedbackCap,
   'follower-feedback-resistor': followerFeedbackResistor,
   'output-swing': outputSwing,

@@ -29,6 +29,12 @@ function networkCurrent(input: StageInput, vfs: number): number {
       return rf > 0 ? vfs / rf : 0
     case 'follower':
       return 0
+    // The §8 networks do not sit across a virtual ground: the output-current limit (DC solve) covers them.
+    case 'difference':
+    case 'lowpass-sallen-key':
+    case 'lowpass-mfb':
+    case 'instrumentation':
+      return 0
   }
 }
 

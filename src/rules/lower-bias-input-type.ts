@@ -30,7 +30,8 @@ const BETTER: Record<InputType, string> = {
 const TRADE_OFF = ' Weigh the change against the higher voltage noise and offset that FET inputs usually bring.'
 
 function check({input, result}: RuleContext): RuleFinding[] {
-  const en = noiseTerm(result, 'en')
+  // An instrumentation stage's voltage noise is en-in and en-out (DESIGN §8.2).
+  const en = input.topology === 'instrumentation' ? Math.hypot(noiseTerm(result, 'en-in'), noiseTerm(result, 'en-out')) : noiseTerm(result, 'en')
   const current = Math.hypot(noiseTerm(result, 'in+'), noiseTerm(result, 'in-'))
   const noiseDominated = current > en && current > 0
   const bias = dcTerm(result, 'ib') + dcTerm(result, 'ios')

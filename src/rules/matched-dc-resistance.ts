@@ -53,6 +53,13 @@ function matchedVariant(input: StageInput, rn: number, rp: number): Variant | nu
     case 'follower':
       if (rn >= rs) return setRcomp(rn - rs)
       return {input: {...input, rf: grade(input.rf, rp)}, change: `rf = ${formatQuantity(rp, 'Ω')}`}
+    case 'lowpass-mfb':
+      return setRcomp(rn)
+    // Matching is set by the network itself (difference) or by the filter's values (Sallen-Key).
+    case 'difference':
+    case 'lowpass-sallen-key':
+    case 'instrumentation':
+      return null
   }
 }
 

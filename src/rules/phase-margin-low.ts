@@ -20,7 +20,11 @@ const REMEDY: Record<Topology, string> = {
   noninverting: 'Consider a capacitor across rf to cancel the pole rf makes with the − input’s capacitance, a lower rf, or less capacitance at the − input.',
   inverting: 'Consider a capacitor across rf to cancel the pole rf makes with the − input’s capacitance, a lower rf, or less capacitance at the − input.',
   follower: 'Consider removing rf, bridging it with a capacitor, or an amplifier specified as stable at unity gain with more margin.',
-  transimpedance: 'Consider a larger feedback capacitor (the transimpedance note quotes the value for 60°).'
+  transimpedance: 'Consider a larger feedback capacitor (the transimpedance note quotes the value for 60°).',
+  difference: 'Consider a capacitor across rf, less capacitance at the − input, or isolating a capacitive load with riso.',
+  'lowpass-sallen-key': 'Consider an amplifier with more margin at the stage’s noise gain, or isolating a capacitive load with riso.',
+  instrumentation: 'The part is compensated internally; consider the maker’s guidance on loads.',
+  'lowpass-mfb': 'Consider lower filter impedances (less phase lag from r3 with the − input’s capacitance), or isolating a capacitive load with riso.'
 }
 
 function check({input, result}: RuleContext): RuleFinding[] {

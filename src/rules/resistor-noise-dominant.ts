@@ -11,7 +11,8 @@
  * impedances, scaling rf and rg together so the gain stays (noise goes as √R), within what the
  * output can drive; rcomp: remove or bypass it; rs or rshunt: the source's own noise, which no
  * amplifier removes; rf of a transimpedance stage: its input-referred current noise √(4kT/Rf)
- * falls as rf rises, so more transimpedance in rf helps.
+ * falls as rf rises, so more transimpedance in rf helps; r1, r2, r3 of a low-pass stage:
+ * scale the resistors down and the capacitors up together, which keeps f0 and Q.
  */
 import type {NoiseKey, StageInput, StageResult} from '../engine/types.js'
 import {formatPercent, formatQuantity} from '../units/format.js'
@@ -27,6 +28,17 @@ function advice(input: StageInput, result: StageResult, key: NoiseKey): string {
       return 'That is the source’s own thermal noise, which no amplifier removes: only a lower source resistance (or a larger shunt resistance) helps.'
     case 'r:rcomp':
       return 'Remove rcomp, or bypass it with a capacitor whose corner is well below the band.'
+    case 'r:r1':
+    case 'r:r2':
+    case 'r:r3':
+      return 'The filter’s own resistors dominate: scale r1, r2' + (input.topology === 'lowpass-mfb' ? ', r3' : '') +
+        ' down and c1, c2 up by the same factor, which keeps f0 and Q (their noise goes as √R), within what the source and the output can drive.'
+    case 'r:rp':
+    case 'r:rref':
+      return 'Consider lower impedances: scale all four resistors of the difference network down together (their noise goes as √R), within what the source can drive.'
+    case 'r:riso':
+    case 'r:rload':
+      return 'The load network itself dominates: check riso and rload.'
     case 'r:rf':
       if (rfNoiseAgainstBandwidth(input, result)) {
         return 'In a transimpedance stage rf’s input-referred noise current √(4kT/Rf) falls as rf rises, but a larger rf would narrow a ' +

@@ -3,6 +3,7 @@
  * largest DC contributor, the DC resistances at each input (DESIGN §4.1), and the
  * requirements that were not met. Plain reads; nothing here decides whether a rule fires.
  */
+import {topologyTerms} from '../engine/topology/index.js'
 import type {DcKey, NoiseKey, RequirementKey, RequireResult, StageInput, StageResult} from '../engine/types.js'
 
 /** Output-referred magnitude of one DC contributor, V (0 when the topology does not list it). */
@@ -45,6 +46,14 @@ export function dcResistances(input: StageInput): {rn: number; rp: number} {
     case 'transimpedance':
       // An open shunt (null) leaves Rf alone at the − input.
       return {rn: input.rshunt === null ? rf : parallel(rf, input.rshunt), rp: rcomp}
+    case 'difference':
+    case 'lowpass-sallen-key':
+    case 'instrumentation':
+      return {rn: rs, rp: rs}
+    case 'lowpass-mfb': {
+      const t = topologyTerms(input)
+      return {rn: t.rn, rp: t.rp}
+    }
   }
 }
 

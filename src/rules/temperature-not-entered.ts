@@ -13,7 +13,7 @@ import type {Rule, RuleContext, RuleFinding} from './rule.js'
 function check({input}: RuleContext): RuleFinding[] {
   const [lo, hi] = input.temperature
   if (lo !== 25 || hi !== 25 || input.temperatureEntered !== false) return []
-  const tempco = (['rf', 'rg', 'rs', 'rcomp'] as const).filter((k) => (input[k]?.tempco ?? 0) > 0)
+  const tempco = (['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso'] as const).filter((k) => (input[k]?.tempco ?? 0) > 0)
   const drift = input.opamp.vosDrift > 0
   if (!drift && tempco.length === 0) return []
   const parts = [...(drift ? ['vos-drift'] : []), ...(tempco.length > 0 ? [`the tempco of ${tempco.join(', ')}`] : [])]

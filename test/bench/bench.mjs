@@ -231,15 +231,17 @@ row('a', 'RATIO check / node -e 0 (median of per-round ratios)', `${checkRatio.t
 // (b) Stage evaluations per second, in this process
 
 progress('stage evaluations')
-const {ARCHETYPES, evaluateStage} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
+const {ARCHETYPES, INA_ARCHETYPES, inaAsOpamp, evaluateStage} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
 const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
 const base = {
   id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
   rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
   supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
   idarkMax: null, idarkDoubling: 10, signalFrequency: null, rload: null, calibration: 'none',
+  rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null, riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
   require: {'output-error': 15e-3, 'phase-margin': 50}
 }
+const cap = (value, tolerance = 0.05) => ({value, tolerance})
 const inputs = {
   noninverting: base,
   inverting: {...base, topology: 'inverting', rf: res(10e3), rg: res(1e3), rs: null, input: [-0.5, 0.5], supply: [-12, 12], band: [0.1, 1e3],
@@ -248,7 +250,18 @@ const inputs = {
     input: [2.499, 2.501], supply: [0, 5], temperature: [0, 70], require: {'output-error': 150e-6, 'phase-margin': 45}},
   transimpedance: {...base, topology: 'transimpedance', opamp: ARCHETYPES['precision-jfet'], rf: res(1e6, 0.005, 50e-6), rg: null, rs: null,
     cf: 2.2e-12, csource: 20e-12, cstray: 0, input: [0, 1e-6], supply: [-5, 5], temperature: [25, 25], band: [1, 1e4],
-    require: {'noise-rms': 100e-6, 'phase-margin': 45}}
+    require: {'noise-rms': 100e-6, 'phase-margin': 45}},
+  // DESIGN §8: the new topologies, and a loaded stage whose capacitive-load rule is not in this figure (engine only).
+  difference: {...base, topology: 'difference', opamp: ARCHETYPES['precision-cmos'], rf: res(200e3, 0.0002, 2e-6), rg: res(10e3, 0.0002, 2e-6), rs: null,
+    rp: res(10e3, 0.0002, 2e-6), rref: res(200e3, 0.0002, 2e-6), vref: 0.25, input: [0, 0.05], inputCm: [4.75, 5.25], supply: [0, 5.5],
+    riso: res(110, 0, 0), cload: 10e-9, band: [1, 1e3], require: {'output-error': 12.5e-3, 'phase-margin': 45}},
+  'lowpass-sallen-key': {...base, topology: 'lowpass-sallen-key', opamp: ARCHETYPES['general-bipolar'], rf: null, rg: null, rs: null,
+    r1: res(10e3), r2: res(10e3), c1: cap(22e-9), c2: cap(10e-9), input: [-1, 1], supply: [-12, 12], band: [0.1, 500]},
+  'lowpass-mfb': {...base, topology: 'lowpass-mfb', opamp: ARCHETYPES['precision-cmos'], rf: null, rg: null, rs: null,
+    r1: res(10e3), r2: res(20e3), r3: res(10e3), c1: cap(1e-9), c2: cap(47e-9), input: [-1, 1], supply: [-5, 5], band: [0.1, 300]},
+  instrumentation: {...base, topology: 'instrumentation', ina: INA_ARCHETYPES['precision-ina'], opamp: inaAsOpamp(INA_ARCHETYPES['precision-ina']),
+    rf: null, rg: res(499, 0.001, 10e-6), rs: res(175, 0, 0), inputCm: [2.5, 2.5], require: {'output-error': 10e-3}},
+  'noninverting, loaded': {...base, opamp: {...ARCHETYPES['precision-bipolar'], rout: 60}, riso: res(220, 0, 0), cload: 1e-9, rload: 10e3}
 }
 const EVALS = QUICK ? 1000 : 3000
 let allEvals = 0
@@ -265,7 +278,7 @@ for (const [name, input] of Object.entries(inputs)) {
 }
 const overall = allEvals / allSeconds
 for (const [name, rate] of Object.entries(rates)) row('b', `evaluateStage, ${name} (${EVALS} runs)`, `${rate.toFixed(0)} /s`, '≥ 2000 /s', rate >= 2000)
-row('b', 'evaluateStage, all four topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
+row('b', 'evaluateStage, all topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
 
 // ---------------------------------------------------------------------------------------
 // (b2) A measurement chain of four stages into a converter (DESIGN §8.6), in this process:

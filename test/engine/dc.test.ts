@@ -11,7 +11,9 @@ const rel = (a: number, b: number): number => Math.abs(a / b - 1)
 describe('dcBudget()', () => {
   it.each(topologyFixtures().map((s) => [s.topology, s] as const))('%s lists every applicable key once, zero or not', (topology, s) => {
     const keys = dcBudget(s).contributors.map((c) => c.key)
-    const expected = topology === 'transimpedance' ? [...DC_KEYS] : DC_KEYS.filter((k) => k !== 'idark')
+    // gain-error and nonlinearity are the instrumentation block's own terms (DESIGN §8.2).
+    const opampKeys = DC_KEYS.filter((k) => k !== 'gain-error' && k !== 'nonlinearity')
+    const expected = topology === 'transimpedance' ? opampKeys : opampKeys.filter((k) => k !== 'idark')
     expect(keys).toEqual(expected)
   })
 

@@ -14,8 +14,9 @@ function nonFinite(value: unknown, path = '$'): string[] {
   return []
 }
 
+const fixtures = topologyFixtures()
 const edgeCases = [
-  ...topologyFixtures(),
+  ...fixtures,
   stageInput({topology: 'follower', rf: null, rg: null, rs: null, cf: 0}),
   stageInput({topology: 'transimpedance', rf: res(1e5), rg: null, rs: null, rshunt: null, csource: 0, input: [0, 1e-6]}),
   stageInput({rf: res(1e9), rg: res(1e3), opamp: testOpamp({aol: 1e5})}), // no crossover
@@ -29,7 +30,7 @@ describe('evaluateStage()', () => {
     expect(nonFinite(JSON.parse(JSON.stringify(r)) as StageResult)).toEqual([])
   })
   it('uses null where a value does not exist', () => {
-    const r = evaluateStage(edgeCases[6])
+    const r = evaluateStage(edgeCases[fixtures.length + 2] as (typeof edgeCases)[number])
     expect(r.stability.crossover).toBeNull()
     expect(r.stability.phaseMargin).toBeNull()
   })
@@ -49,7 +50,7 @@ describe('evaluateStage()', () => {
     expect(v['bandwidth']).toMatchObject({value: r.stability.bandwidth, met: false})
   })
   it('fails a minimum requirement whose value does not exist', () => {
-    const r = evaluateStage({...edgeCases[6], require: {'phase-margin': 45}})
+    const r = evaluateStage({...(edgeCases[fixtures.length + 2] as (typeof edgeCases)[number]), require: {'phase-margin': 45}})
     expect(r.requirements.filter((q) => q.kind === 'require')).toEqual([{key: 'phase-margin', kind: 'require', limit: 45, value: null, met: false}])
   })
   it('carries gain, noise gain, names and the bias currents used', () => {

@@ -10,7 +10,12 @@ const KEYS: Record<StageInput['topology'], string[]> = {
   noninverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   inverting: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rs', 'r:rcomp'],
   follower: ['en', 'in+', 'in-', 'r:rf', 'r:rs', 'r:rcomp'],
-  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal']
+  transimpedance: ['en', 'in+', 'in-', 'r:rf', 'r:rcomp', 'r:rshunt', 'shot', 'shot-signal'],
+  // The difference fixture drives a load through riso: the load's keys are listed (DESIGN §8.3).
+  difference: ['en', 'in+', 'in-', 'r:rf', 'r:rg', 'r:rp', 'r:rref', 'r:rs', 'r:riso', 'r:rload'],
+  'lowpass-sallen-key': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:rf', 'r:rg'],
+  'lowpass-mfb': ['en', 'in+', 'in-', 'r:r1', 'r:r2', 'r:r3', 'r:rcomp'],
+  instrumentation: ['en-in', 'en-out', 'in+', 'in-', 'r:rs', 'r:rg']
 }
 
 describe('noiseAnalysis()', () => {

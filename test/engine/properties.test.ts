@@ -8,7 +8,7 @@ import {res, stageInput, testOpamp} from './helpers.js'
 
 const ohms = fc.double({min: 10, max: 1e6, noNaN: true})
 const frac = fc.double({min: 0, max: 0.02, noNaN: true})
-const topology = fc.constantFrom<Topology>('noninverting', 'inverting', 'follower', 'transimpedance')
+const topology = fc.constantFrom<Extract<Topology, 'noninverting' | 'inverting' | 'follower' | 'transimpedance'>>('noninverting', 'inverting', 'follower', 'transimpedance')
 
 /** An arbitrary valid stage. */
 const anyStage = fc

@@ -1,4 +1,5 @@
 import {describe, expect, it} from 'vitest'
+import {TOPOLOGIES} from '../../src/engine/types.js'
 import {decodeNote, noteMessages} from '../../src/note/index.js'
 import {chainMessages} from '../../src/note/chain-messages.js'
 import {unitsMessages} from '../../src/units/index.js'
@@ -46,7 +47,7 @@ describe('parseNote() diagnostics', () => {
 
   it('reports an unknown topology at its value with a hint', () => {
     expect(errorsOf(noteOf(note(replaceLine(0, 'topology: non-inverting'))).diagnostics)).toEqual([
-      err(16, 11, noteMessages.unknownChoice('topology', 'non-inverting', ['noninverting', 'inverting', 'follower', 'transimpedance'], 'noninverting'))
+      err(16, 11, noteMessages.unknownChoice('topology', 'non-inverting', TOPOLOGIES, 'noninverting'))
     ])
   })
 

@@ -24,7 +24,11 @@ interface RefCircuit {
   wires: [Node, Node][]
 }
 
-/** The stage's circuit per DESIGN §4.3, nodes named; ground is 'gnd'. */
+/**
+ * The stage's circuit per DESIGN §4.3, §8.1, §8.3 and §8.4, nodes named; ground is 'gnd'.
+ * The op-amp's source sits at 'a'; rout joins it to the output pin 'o', riso the pin to the
+ * load node 'l' (the output), where cload and rload are.
+ */
 export function referenceCircuit(s: StageInput): RefCircuit {
   const r: RefCircuit['r'] = []
   const c: RefCircuit['c'] = []
@@ -34,17 +38,25 @@ export function referenceCircuit(s: StageInput): RefCircuit {
     else r.push([a, b, v, label])
   }
   const op = s.opamp
-  c.push(['p', 'gnd', op.cinCm], ['m', 'gnd', op.cinCm], ['p', 'm', op.cinDiff], ['m', 'gnd', s.cstray])
+  c.push(['p', 'gnd', op.cinCm], ['m', 'gnd', op.cinCm], ['p', 'm', op.cinDiff], ['m', 'gnd', s.cstray], ['p', 'gnd', s.cstrayPlus])
+  series('a', 'o', op.rout ?? 0, 'rout')
+  series('o', 'l', s.riso?.value, 'riso')
+  c.push(['l', 'gnd', s.cload])
+  if (s.rload !== null) r.push(['l', 'gnd', s.rload, 'rload'])
   const rf = s.rf?.value
-  if (rf === undefined || rf === 0) wires.push(['m', 'o'])
-  else {
-    r.push(['m', 'o', rf, 'rf'])
-    c.push(['m', 'o', s.cf])
+  if (s.topology !== 'lowpass-mfb') {
+    if (rf === undefined || rf === 0) wires.push(['m', 'o'])
+    else {
+      r.push(['m', 'o', rf, 'rf'])
+      c.push(['m', 'o', s.cf])
+    }
   }
-  // Inverting and transimpedance: the + pin returns to the vref source ('ref', 0 V unless excited).
-  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : 'ref'
-  series(plusFrom, 'p', s.rcomp?.value, 'rcomp')
-  if (s.rcomp) c.push([plusFrom, 'p', s.ccomp])
+  // Inverting, transimpedance and MFB: the + pin returns to the vref source ('ref', 0 V unless excited).
+  const plusFrom = s.topology === 'noninverting' || s.topology === 'follower' ? 'x' : s.topology === 'difference' || s.topology === 'lowpass-sallen-key' ? null : 'ref'
+  if (plusFrom !== null) {
+    series(plusFrom, 'p', s.rcomp?.value, 'rcomp')
+    if (s.rcomp) c.push([plusFrom, 'p', s.ccomp])
+  }
   switch (s.topology) {
     case 'noninverting':
       series('src', 'x', s.rs?.value, 'rs')
@@ -60,6 +72,28 @@ export function referenceCircuit(s: StageInput): RefCircuit {
     case 'transimpedance':
       if (s.rshunt !== null) r.push(['m', 'gnd', s.rshunt, 'rshunt'])
       c.push(['m', 'gnd', s.csource])
+      break
+    case 'difference':
+      // §8.1: + leg src → rs → rp → + pin, rref to the reference (AC ground); − leg srcn → rs → rg → − pin.
+      series('src', 'xp', s.rs?.value, 'rs')
+      series('xp', 'p', s.rp?.value, 'rp')
+      if (s.rref) r.push(['p', 'ref', s.rref.value, 'rref'])
+      series('srcn', 'xn', s.rs?.value, 'rs')
+      series('xn', 'm', s.rg?.value, 'rg')
+      break
+    case 'lowpass-sallen-key':
+      // §8.4: src → r1 → a1 → r2 → + pin; c1 a1 → output pin; c2 + pin → ground.
+      series('src', 'a1', s.r1?.value, 'r1')
+      series('a1', 'p', s.r2?.value, 'r2')
+      c.push(['a1', 'o', s.c1?.value ?? 0], ['p', 'gnd', s.c2?.value ?? 0])
+      if (s.rg) r.push(['m', 'gnd', s.rg.value, 'rg'])
+      break
+    case 'lowpass-mfb':
+      // §8.4: src → r1 → a1; r2 a1 → output pin; r3 a1 → − pin; c1 − pin → output pin; c2 a1 → ground.
+      series('src', 'a1', s.r1?.value, 'r1')
+      series('a1', 'o', s.r2?.value, 'r2')
+      series('a1', 'm', s.r3?.value, 'r3')
+      c.push(['m', 'o', s.c1?.value ?? 0], ['a1', 'gnd', s.c2?.value ?? 0])
       break
   }
   return {r, c, wires}
@@ -81,27 +115,33 @@ export interface Excitation {
   vref?: number
   currents?: [into: Node, from: Node, amps: number][]
   en?: number
+  /** Node to read (default 'l', the load node: the stage output of DESIGN §8.3). */
+  at?: Node
 }
 
 /** Solve the circuit at f (Hz; 0 for DC) and return the output voltage. */
 export function referenceOutput(s: StageInput, f: number, ex: Excitation): Complex {
   const circ = referenceCircuit(s)
   const w = 2 * Math.PI * f
-  const names = new Set<Node>(['p', 'm', 'o'])
+  const names = new Set<Node>(['p', 'm', 'a', 'o', 'l'])
   for (const [a, b] of [...circ.r, ...circ.c, ...circ.wires]) {
     names.add(a)
     names.add(b)
   }
   const hasSrc = s.topology !== 'transimpedance'
+  const differential = s.topology === 'difference'
   if (hasSrc) names.add('src')
+  if (differential) names.add('srcn')
   names.delete('gnd')
   const nodes = [...names]
   const at = (n: Node): number => (n === 'gnd' ? -1 : nodes.indexOf(n))
   // Unknowns: node voltages, then one branch current per voltage source (wires, src, VCVS).
   const vsrcs: {p: Node; n: Node; value: Complex; vcvs?: boolean}[] = circ.wires.map(([a, b]) => ({p: a, n: b, value: complex(0, 0)}))
-  if (hasSrc) vsrcs.push({p: 'src', n: 'gnd', value: complex(ex.vsrc ?? 0, 0)})
+  // A difference stage's drive is differential: vsrc/2 on the + leg, −vsrc/2 on the − leg.
+  if (hasSrc) vsrcs.push({p: 'src', n: 'gnd', value: complex(differential ? (ex.vsrc ?? 0) / 2 : ex.vsrc ?? 0, 0)})
+  if (differential) vsrcs.push({p: 'srcn', n: 'gnd', value: complex(-(ex.vsrc ?? 0) / 2, 0)})
   if (names.has('ref')) vsrcs.push({p: 'ref', n: 'gnd', value: complex(ex.vref ?? 0, 0)})
-  vsrcs.push({p: 'o', n: 'gnd', value: complex(0, 0), vcvs: true})
+  vsrcs.push({p: 'a', n: 'gnd', value: complex(0, 0), vcvs: true})
   const size = nodes.length + vsrcs.length
   const m: Complex[][] = Array.from({length: size}, () => Array.from({length: size}, () => complex(0, 0)))
   const rhs: Complex[] = Array.from({length: size}, () => complex(0, 0))
@@ -137,7 +177,7 @@ export function referenceOutput(s: StageInput, f: number, ex: Excitation): Compl
   })
   const x = lusolve(matrix(m), matrix(rhs)).toArray() as unknown as Complex[][]
   // lusolve returns plain numbers when the right-hand side is all zero.
-  const v = x[at('o')][0] as Complex | number
+  const v = x[at(ex.at ?? 'l')][0] as Complex | number
   return typeof v === 'number' ? complex(v, 0) : v
 }
 

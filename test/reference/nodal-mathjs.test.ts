@@ -1,12 +1,12 @@
 /**
  * The engine's nodal solver against an independent modified-nodal solve written with mathjs
  * (complex matrices, `lusolve`): signal gains, every noise source's transfer, and the DC
- * bias-current offsets, for all four topologies, and the reference (vref) term of the DC budget
- * (DESIGN §4.2, §4.3, §7).
+ * bias-current offsets, for every topology and a stage with the full load of §8.3, and the
+ * reference (vref) term of the DC budget (DESIGN §4.2, §4.3, §7, §8).
  */
 import {describe, expect, it} from 'vitest'
 import {closedLoopGain, dcBudget, idealOutput, noiseTransfers, nominalResistors, type StageInput} from '../../src/engine/index.js'
-import {res, stageInput, testOpamp, topologyFixtures} from '../engine/helpers.js'
+import {loadedFixture, res, stageInput, testOpamp, topologyFixtures} from '../engine/helpers.js'
 import {mag, referenceCircuit, referenceOutput, type Excitation} from './mathjs-nodal.js'
 
 const FREQUENCIES = [0, 3, 1e3, 4e4, 1.5e6]
@@ -21,8 +21,8 @@ const close = (actual: number, expected: number, scale: number): void => {
 const signal = (s: StageInput): Excitation => (s.topology === 'transimpedance' ? {currents: [['m', 'gnd', 1]]} : {vsrc: 1})
 
 describe('engine nodal solve vs mathjs reference (Source: independent MNA with mathjs lusolve)', () => {
-  for (const s of topologyFixtures()) {
-    describe(s.topology, () => {
+  for (const s of [...topologyFixtures(), loadedFixture()]) {
+    describe(`${s.topology}${s.cload > 0 && s.topology === 'noninverting' ? ' with a load' : ''}`, () => {
       it.each(FREQUENCIES)('signal gain H(f) agrees at %d Hz', (f) => {
         const h = closedLoopGain(s, f)
         const ref = referenceOutput(s, f, signal(s))
@@ -32,17 +32,21 @@ describe('engine nodal solve vs mathjs reference (Source: independent MNA with m
 
       it.each(FREQUENCIES.filter((f) => f > 0))('every noise transfer agrees at %d Hz', (f) => {
         const circ = referenceCircuit(s)
-        for (const {key, transfer} of noiseTransfers(s, f)) {
+        for (const {key, transfer, parts} of noiseTransfers(s, f)) {
           let ex: Excitation
           let complexCompare = true
           if (key === 'en') ex = {en: 1}
           else if (key === 'in+') ex = {currents: [['p', 'gnd', 1]]}
           else if (key === 'in-' || key === 'shot' || key === 'shot-signal') ex = {currents: [['m', 'gnd', 1]]}
           else {
-            const r = circ.r.find((e) => e[3] === key.slice(2))
-            // An absent resistor has no noise: transfer 0.
-            ex = r ? {currents: [[r[0], r[1], 1]]} : {}
-            complexCompare = false // the Norton current's orientation is a convention
+            // Every resistor of that label (the two rs legs of a difference stage), part by part.
+            const rs = circ.r.filter((e) => e[3] === key.slice(2))
+            const got = parts.map((p) => Math.hypot(p.re, p.im)).sort((x, y) => x - y)
+            const want = rs.length === 0 ? [0] : rs.map((e) => mag(referenceOutput(s, f, {currents: [[e[0], e[1], 1]]}))).sort((x, y) => x - y)
+            expect(got.length).toBe(want.length)
+            // The Norton current's orientation is a convention: magnitudes only.
+            got.forEach((g, i) => close(g, want[i] as number, Math.max(want[i] as number, 1e-30)))
+            continue
           }
           const ref = referenceOutput(s, f, ex)
           const scale = Math.max(mag(ref), 1e-30)
@@ -61,7 +65,7 @@ describe('DC bias-current offsets vs mathjs reference (Source: independent MNA a
   // Aol/(Aol + NG) differs from 1 by < 1e-8: tolerance 1e-6 relative to IB·(Rn + Rp)·NG.
   const exact = (s: StageInput): StageInput => {
     const strip = (r: StageInput['rf']): StageInput['rf'] => (r ? res(r.value) : null)
-    return {...s, rf: strip(s.rf), rg: strip(s.rg), rs: strip(s.rs), rcomp: strip(s.rcomp), temperature: [25, 25], opamp: testOpamp({aol: 1e10, ib: 2e-9, ios: 0.8e-9})}
+    return {...s, rf: strip(s.rf), rg: strip(s.rg), rs: strip(s.rs), rcomp: strip(s.rcomp), rp: strip(s.rp), rref: strip(s.rref), riso: null, rload: null, temperature: [25, 25], opamp: testOpamp({aol: 1e10, ib: 2e-9, ios: 0.8e-9})}
   }
   const cases = [...topologyFixtures(), stageInput({rs: null}), stageInput({topology: 'follower', rf: null, rg: null, rs: res(47e3)})].map(exact)
   it.each(cases.map((s) => [s.topology, s] as const))('%s: ib and ios terms equal the solved output offsets', (_, s) => {

@@ -131,7 +131,7 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   it('warns only with the practice notes of the stage (no chart or render warning)', () => {
     const warnings = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => d.message)
     expect(warnings.length).toBeGreaterThan(0)
-    for (const w of warnings) expect(w).toMatch(/^Stage `bridge-amp`: /)
+    for (const w of warnings) expect(w).toMatch(/^Stage `(bridge-ina|adc-driver)`: /)
     const rules = outcome.diagnostics.filter((d) => d.severity === 'warning').map((d) => `${d.kind} ${d.rule}`)
     expect(rules).toEqual(rules.map(() => expect.stringMatching(/^note [a-z-]+$/)))
   })
@@ -143,18 +143,19 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   })
 
   it.each([
-    'Figure 1 — Schematic of stage bridge-amp',
-    'Figure 2 — DC error contributors of stage bridge-amp',
-    'Figure 3 — Output noise density of stage bridge-amp',
-    'Figure 4 — Cumulative output noise rms of stage bridge-amp',
-    'Figure 5 — Loop gain of stage bridge-amp'
+    'Figure 1 — DC error contributors of stage bridge-ina',
+    'Figure 2 — Output noise density of stage bridge-ina',
+    'Figure 3 — Cumulative output noise rms of stage bridge-ina',
+    'Figure 4 — Schematic of stage adc-driver',
+    'Figure 5 — DC error contributors of stage adc-driver',
+    'Figure 8 — Loop gain of stage adc-driver'
   ])('carries the caption “%s”', (caption) => {
     expect(text).toContain(caption)
   })
 
   it('shows the verdicts as words and the overall status on the cover', () => {
     expect(text).toContain('MET')
-    expect(text).toContain('Overall: all 7 requirements and physical limits of 1 stage met')
+    expect(text).toContain('Overall: all 12 requirements and physical limits of 2 stages met')
   })
 
   it('carries the compensation-resistor note with its three-way table', () => {

@@ -123,15 +123,16 @@ describe('stageSchematic()', () => {
 describe('the schematic in the load-cell PDF, read back with pdfjs', async () => {
   const {pdf} = await pdfOf(sample('load-cell-bridge.md'))
   const pages = (await readPdf(pdf)).pages
-  const page = pages.findIndex((p) => p.includes('Figure 1 — Schematic of stage bridge-amp'))
+  const page = pages.findIndex((p) => p.includes('Figure 4 — Schematic of stage adc-driver'))
 
-  it('is Figure 1, in the stage section before its parameters table', () => {
+  // The sample's first stage is an instrumentation stage (no layout yet: a sentence), so the driver's schematic is Figure 4.
+  it('is Figure 4, in the stage section before its parameters table', () => {
     expect(page).toBeGreaterThanOrEqual(0)
     const all = pages.join('\n')
-    expect(all.indexOf('Figure 1 — Schematic')).toBeLessThan(all.indexOf('Parameters of stage bridge-amp'))
+    expect(all.indexOf('Figure 4 — Schematic')).toBeLessThan(all.indexOf('Parameters of stage adc-driver'))
   })
 
-  it.each(['rs', '350 Ω', 'rcomp', '494 Ω', 'rg', '499 Ω', 'rf', '49.9 kΩ', 'cstray', '2 pF', 'source', '+15 V', '−15 V', 'wm-amp'])(
+  it.each(['rcomp', '2 kΩ', 'rg', '10 kΩ', 'rf', '2.49 kΩ', 'cstray', '2 pF', 'source', '+15 V', '−15 V', 'wm-amp'])(
     'carries the label “%s” as text', (label) => {
       expect((pages[page] ?? '').normalize('NFKC')).toContain(label.normalize('NFKC'))
     })

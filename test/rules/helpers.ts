@@ -57,17 +57,18 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
     dc: {
       temperatureSpan: 0, fullScaleOutput, contributors: dcContributors,
       worstCaseOutput: worst, rssOutput: rss, worstCaseInput: worst / Math.abs(gain), rssInput: rss / Math.abs(gain),
-      calibrated: null
+      calibrated: null, networkCmrr: null
     },
     noise: {
       band: [input.band[0], input.band[1]], temperature: 298.15, outputRms: rms, zeroSignalOutputRms: rms, outputPeakToPeak: 6.6 * rms,
       inputRms: rms / Math.abs(gain), contributors: noiseContributors
     },
+    filter: null,
     stability: {phaseMargin: 60, crossover: 90e3, bandwidth: 90e3, peaking: 0, suggestedCf: null, ...parts.stability},
     requirements: parts.requirements ?? [],
     curves: {
       noiseFrequency: [], noiseDensity: emptyDensity(),
-      noiseTotal: [], noiseTotalZeroSignal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: []
+      noiseTotal: [], noiseTotalZeroSignal: [], cumulativeRms: [], frequency: [], loopGainMagnitude: [], loopGainPhase: [], closedLoopMagnitude: [], closedLoopPhase: []
     },
     swing: {outputSpan: [-1.1, 1.1], allowed: [-13.8, 13.8], excess: [0, 0], fits: true, ...parts.swing},
     bias: {

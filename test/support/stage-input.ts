@@ -28,6 +28,8 @@ export function testOpamp(overrides: Partial<OpampParams> = {}): OpampParams {
 const BLANK: Omit<StageInput, 'opamp' | 'rf' | 'rg' | 'rs' | 'input' | 'supply' | 'temperature' | 'band'> = {
   id: 'test-stage', title: 'Test stage', topology: 'noninverting',
   rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, idarkMax: null, idarkDoubling: 10, vref: 0,
+  rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null,
+  riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
   supplyTolerance: 0.05, noiseTemperature: 25, signalFrequency: null, rload: null, calibration: 'none', require: {}
 }
 

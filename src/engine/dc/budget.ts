@@ -16,7 +16,7 @@ import {nominalResistors, topologyModel, type ResistorValues} from '../topology/
 import type {BiasUsed, CalibratedBudget, DcBudget, DcKey, Resistor, StageInput} from '../types.js'
 import {biasOverTemperature} from './bias.js'
 import {maxOverCorners, type Spreads} from './corners.js'
-import {idealOutput, solveStageDc, type DcExcitation} from './solve.js'
+import {solveStageDc, type DcExcitation} from './solve.js'
 
 /** The budget together with the bias currents it used. */
 export interface DcAnalysis {
@@ -24,7 +24,7 @@ export interface DcAnalysis {
   bias: BiasUsed
 }
 
-const RESISTOR_INPUTS = ['rf', 'rg', 'rs', 'rcomp'] as const
+const RESISTOR_INPUTS = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso'] as const
 
 function spreadsOf(input: StageInput, pick: (r: Resistor) => number): Spreads {
   const s: Spreads = {}
@@ -35,8 +35,18 @@ function spreadsOf(input: StageInput, pick: (r: Resistor) => number): Spreads {
   return s
 }
 
-/** The two ends of the input range (one when they coincide). */
-const ends = (input: StageInput): number[] => (input.input[0] === input.input[1] ? [input.input[0]] : [...input.input])
+/** The two ends of a range (one when they coincide). */
+const endsOf = (r: readonly [number, number]): number[] => (r[0] === r[1] ? [r[0]] : [...r])
+
+/**
+ * The signal points of the corner search: both ends of `input`, and for a differential
+ * stage every pairing with both ends of `input-cm` (DESIGN §8.1), so that mismatch lets the
+ * common mode through into the resistor terms.
+ */
+export function signalPoints(input: StageInput): DcExcitation[] {
+  if (input.topology !== 'difference') return endsOf(input.input).map((v) => ({input: v}))
+  return endsOf(input.input).flatMap((v) => endsOf(input.inputCm).map((cm) => ({input: v, inputCm: cm})))
+}
 
 /** The calibration table of DESIGN §4.6: which terms a calibration removes outright. */
 const REMOVED: Record<'offset' | 'offset-and-gain', readonly DcKey[]> = {
@@ -53,22 +63,23 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
   const dT = Math.max(tmax - DATASHEET_TEMPERATURE, DATASHEET_TEMPERATURE - tmin, 0)
   const bias = biasOverTemperature(op, input.temperature, input)
   const out = (ex: DcExcitation, r: ResistorValues = nominal): number => Math.abs(solveStageDc(input, r, {references: false, ...ex}).vout)
-  const signalEnds = ends(input)
-  const nominalOut = signalEnds.map((v) => idealOutput(input, v, nominal))
+  const points = signalPoints(input)
+  const ideal = (p: DcExcitation, r: ResistorValues): number => solveStageDc(input, r, p).vout
+  const nominalOut = points.map((p) => ideal(p, nominal))
   const vfs = Math.max(...nominalOut.map(Math.abs))
-  // max over both input ends of |Vout,ideal(input, corner) − Vout,ideal(input, nominal)|
+  // max over both input ends (and common-mode ends) of |Vout,ideal(input, corner) − Vout,ideal(input, nominal)|
   const resistorTerm = (spreads: Spreads): number =>
-    maxOverCorners(nominal, spreads, (r) => Math.max(...signalEnds.map((v, i) => Math.abs(idealOutput(input, v, r) - nominalOut[i]))))
+    maxOverCorners(nominal, spreads, (r) => Math.max(...points.map((p, i) => Math.abs(ideal(p, r) - (nominalOut[i] as number)))))
   // IB drawn out of both pins, worst resistor corner (tolerance and tempco together, DESIGN §4.2).
   const ibTerm = (amps: number): number =>
     amps === 0 ? 0 : maxOverCorners(nominal, spreadsOf(input, (r) => r.tolerance + r.tempco * dT), (r) => out({ibPlus: amps, ibMinus: amps}, r))
   const iosTerm = (amps: number): number => out({ibPlus: amps / 2, ibMinus: -amps / 2})
   const vcmRef = op.vcmRef ?? (input.supply[0] + input.supply[1]) / 2
   // The + pin's DC voltage over the input range (the common mode, DESIGN §4.2).
-  const vcm = signalEnds.map((v) => solveStageDc(input, nominal, {input: v}).vplus)
+  const vcm = points.map((p) => solveStageDc(input, nominal, p).vplus)
   const cmrrTerm = (): number => out({vos: Math.max(...vcm.map((v) => Math.abs(v - vcmRef))) / op.cmrr})
   const aolTerm = (): number =>
-    Math.max(...signalEnds.map((v, i) => Math.abs(solveStageDc(input, nominal, {input: v, aol: op.aol}).vout - nominalOut[i])))
+    Math.max(...points.map((p, i) => Math.abs(solveStageDc(input, nominal, {...p, aol: op.aol}).vout - (nominalOut[i] as number))))
   const terms: Record<DcKey, () => number> = {
     vos: () => out({vos: op.vos}),
     'vos-drift': () => out({vos: op.vosDrift * dT}),
@@ -78,6 +89,9 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
     cmrr: cmrrTerm,
     psrr: () => out({vos: ((input.supply[1] - input.supply[0]) * input.supplyTolerance) / op.psrr}),
     'aol-gain': aolTerm,
+    // Terms of the instrumentation block (DESIGN §8.2); no op-amp topology lists them.
+    'gain-error': () => 0,
+    nonlinearity: () => 0,
     'resistor-tolerance': () => resistorTerm(spreadsOf(input, (r) => r.tolerance)),
     'resistor-tempco': () => resistorTerm(spreadsOf(input, (r) => r.tempco * dT))
   }
@@ -101,9 +115,22 @@ export function dcAnalysis(input: StageInput): DcAnalysis {
     calibrated = {calibration: input.calibration, contributors: rows, ...totalsOf(rows, g)}
   }
   return {
-    budget: {temperatureSpan: dT, fullScaleOutput: vfs, contributors, ...totals, calibrated},
+    budget: {temperatureSpan: dT, fullScaleOutput: vfs, contributors, ...totals, calibrated, networkCmrr: networkCmrrOf(input, nominal, g)},
     bias
   }
+}
+
+/**
+ * The difference network's own CMRR (DESIGN §8.1): G the nominal differential gain, Acm the
+ * ideal op-amp's output per volt of common mode (both legs moved together, reference
+ * zeroed), maximised over the tolerance corners (tempco not included), in dB.
+ */
+function networkCmrrOf(input: StageInput, nominal: ResistorValues, gain: number): number | null {
+  if (input.topology !== 'difference') return null
+  const spreads = spreadsOf(input, (r) => r.tolerance)
+  if (Object.values(spreads).every((s) => !(s > 0))) return null
+  const acm = maxOverCorners(nominal, spreads, (r) => Math.abs(solveStageDc(input, r, {input: 0, inputCm: 1, references: false}).vout))
+  return acm > 0 ? 20 * Math.log10(gain / acm) : null
 }
 
 function totalsOf(rows: {output: number}[], gain: number): Pick<DcBudget, 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'rssInput'> {

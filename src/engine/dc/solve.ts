@@ -21,14 +21,16 @@
  * corners needs its key in `RESISTOR_KEYS` (`topology/model.ts`) and in the stage's
  * `nominalResistors`; resistors with other labels keep their netlist value.
  */
-import {buildNetlist, type NetlistSpec} from '../netlist.js'
-import {topologyModel} from '../topology/index.js'
+import {buildNetlist, type Netlist, type NetlistSpec} from '../netlist.js'
+import {nominalResistors, topologyModel} from '../topology/index.js'
 import type {StageInput} from '../types.js'
 
 /** The sources of one DC solve. Everything not given is zero (A: ideal). */
 export interface DcExcitation {
-  /** Signal: V at the drive node, or A into it (transimpedance). */
+  /** Signal: V at the drive node, or A into it (transimpedance); for a differential drive V+ − V−. */
   input?: number
+  /** Common-mode voltage of a differential drive, V: the legs sit at cm ± input/2 (DESIGN §8.1). */
+  inputCm?: number
   /** Include the netlist's `dcSources` (vref …) at their values; false = zeroed. Default true. */
   references?: boolean
   /** Offset voltage in series with the + input, V. */
@@ -43,8 +45,10 @@ export interface DcExcitation {
 
 /** A DC operating point. */
 export interface DcSolution {
-  /** Output node voltage, V. */
+  /** Output voltage at the load node (after riso, DESIGN §8.3), V. */
   vout: number
+  /** Voltage at the op-amp's output pin (after rout; the swing limit's), V. */
+  vpin: number
   /** + pin and − pin voltages, V. */
   vplus: number
   vminus: number
@@ -59,19 +63,23 @@ export type DcResistors = Readonly<Partial<Record<string, number>>>
  * Solve a netlist at DC (see module header). Resistors of 0 Ω stay wires and absent ones
  * absent; an override is applied only to a resistor present with a non-zero value.
  */
-export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitation = {}): DcSolution {
-  const moved: NetlistSpec = {
-    ...spec,
-    elements: spec.elements.map((e) => {
-      const v = resistors[e.label]
-      return e.kind === 'r' && e.value > 0 && v !== undefined && Number.isFinite(v) && v > 0 ? {...e, value: v} : e
-    })
-  }
-  const net = buildNetlist(moved, true)
+export const solveDc = (spec: NetlistSpec, resistors: DcResistors, ex: DcExcitation = {}): DcSolution =>
+  solveCompiled(buildNetlist(spec, true), resistors, ex)
+
+/**
+ * Solve a compiled DC netlist (built with `keepDcSources`) with resistors moved by label.
+ * The compiled netlist keeps exactly the resistors present with a non-zero value, so moving
+ * their conductances here is the same as moving them in the spec and compiling again.
+ */
+function solveCompiled(net: Netlist, resistors: DcResistors, ex: DcExcitation): DcSolution {
   const refs = ex.references ?? true
   const fixed = new Map<number, number>([[0, 0]])
   for (const d of net.dcSources) fixed.set(d.node, refs ? d.volts : 0)
-  if (net.drive.kind === 'voltage') fixed.set(net.drive.node, ex.input ?? 0)
+  if (net.drive.kind === 'voltage' && net.drive.minus < 0) fixed.set(net.drive.node, ex.input ?? 0)
+  if (net.drive.kind === 'voltage' && net.drive.minus >= 0) {
+    fixed.set(net.drive.node, (ex.inputCm ?? 0) + (ex.input ?? 0) / 2)
+    fixed.set(net.drive.minus, (ex.inputCm ?? 0) - (ex.input ?? 0) / 2)
+  }
   const index = new Int32Array(net.nodeCount).fill(-1)
   let n = 0
   for (let i = 1; i < net.nodeCount; i++) if (!fixed.has(i)) index[i] = n++
@@ -89,8 +97,10 @@ export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitat
   }
   for (const e of net.elements) {
     if (e.kind !== 'g') continue
-    kcl(e.a, e.b, e.value)
-    kcl(e.b, e.a, e.value)
+    const v = resistors[e.label]
+    const g = v !== undefined && Number.isFinite(v) && v > 0 ? 1 / v : e.value
+    kcl(e.a, e.b, g)
+    kcl(e.b, e.a, g)
   }
   const inject = (node: number, amps: number): void => {
     const i = index[node]
@@ -99,7 +109,7 @@ export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitat
   if (net.drive.kind === 'current') inject(net.drive.node, ex.input ?? 0)
   inject(net.plus, -(ex.ibPlus ?? 0))
   inject(net.minus, -(ex.ibMinus ?? 0))
-  // The output current enters KCL at the output node.
+  // The output current enters KCL at the op-amp's source node (through rout to the pin).
   const iOut = index[net.out]
   if (iOut < 0) throw new RangeError('Unexpected fixed output node in the DC solve, expected the op-amp to drive it')
   m[iOut * size + io] -= 1
@@ -117,7 +127,7 @@ export function solveDc(spec: NetlistSpec, resistors: DcResistors, ex: DcExcitat
   b[io] += ex.vos ?? 0
   const x = solveReal(size, m, b)
   const v = (node: number): number => (index[node] >= 0 ? x[index[node]] : fixed.get(node) ?? 0)
-  return {vout: v(net.out), vplus: v(net.plus), vminus: v(net.minus), iout: x[io]}
+  return {vout: v(net.probe), vpin: v(net.pin), vplus: v(net.plus), vminus: v(net.minus), iout: x[io]}
 }
 
 /** Gaussian elimination with partial pivoting; a, b are overwritten. */
@@ -162,10 +172,32 @@ export function stageDcCircuit(input: StageInput): NetlistSpec {
   return {...spec, elements: [...spec.elements, {label: 'rload', kind: 'r', a: 'o', b: 'gnd', value: input.rload}]}
 }
 
+// The DC budget solves one stage a few hundred times (corners × input ends): its circuit is
+// compiled once per StageInput object (inputs are never mutated; variants are new objects).
+const compiledCircuits = new WeakMap<StageInput, Netlist>()
+
 /** DC solve of a stage at the given resistor values (see `solveDc`). */
-export const solveStageDc = (input: StageInput, resistors: DcResistors, ex: DcExcitation = {}): DcSolution =>
-  solveDc(stageDcCircuit(input), resistors, ex)
+export function solveStageDc(input: StageInput, resistors: DcResistors, ex: DcExcitation = {}): DcSolution {
+  let net = compiledCircuits.get(input)
+  if (net === undefined) {
+    net = buildNetlist(stageDcCircuit(input), true)
+    compiledCircuits.set(input, net)
+  }
+  return solveCompiled(net, resistors, ex)
+}
 
 /** Vout,ideal(input, R) of DESIGN §4.2: the ideal op-amp's output, reference term included, V. */
 export const idealOutput = (input: StageInput, signal: number, resistors: DcResistors): number =>
   solveStageDc(input, resistors, {input: signal}).vout
+
+/**
+ * The stage's signed signal gain G at DC, at the load node (DESIGN §8.3): from the ideal DC
+ * solve (reference zeroed) for the topologies of DESIGN §8 and for any stage whose load
+ * divides the output (riso into rload); else the §4.1 value, which the solve equals.
+ */
+export function signalGain(input: StageInput): number {
+  const divided = input.riso !== null && input.rload !== null
+  const modern = input.topology === 'difference' || input.topology === 'lowpass-sallen-key' || input.topology === 'lowpass-mfb'
+  if (!divided && !modern) return topologyModel(input).terms(nominalResistors(input)).gain
+  return solveStageDc(input, nominalResistors(input), {input: 1, references: false}).vout
+}

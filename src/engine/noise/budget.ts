@@ -4,7 +4,8 @@
  */
 import {PEAK_TO_PEAK_FACTOR} from '../constants.js'
 import {createWorkspace, solveClosed} from '../nodal.js'
-import {stageNetlist, topologyTerms} from '../topology/index.js'
+import {stageNetlist} from '../topology/index.js'
+import {signalGain} from '../dc/solve.js'
 import {NOISE_KEYS, type NoiseBudget, type NoiseKey, type StageCurves, type StageInput} from '../types.js'
 import {integrateBand, type IntegrateOptions} from './integrate.js'
 import {noiseKelvin, noiseSources} from './sources.js'
@@ -50,7 +51,7 @@ export function noiseAnalysis(input: StageInput, options: IntegrateOptions = {})
     noiseTotal.push(Math.sqrt(sum))
     noiseTotalZeroSignal.push(signalAt < 0 ? Math.sqrt(sum) : Math.sqrt(Math.max(0, sum - band.density[i * k + signalAt])))
   }
-  const gain = Math.abs(topologyTerms(input).gain)
+  const gain = Math.abs(signalGain(input))
   return {
     budget: {
       band: [fL, fH],

@@ -17,18 +17,29 @@ import type {Netlist} from '../netlist.js'
 import {topologyModel} from '../topology/index.js'
 import type {NoiseKey, StageInput} from '../types.js'
 
-/** One noise source in a compiled netlist. */
-export interface NoiseSource {
-  key: NoiseKey
-  /** `voltage`: the op-amp's en; `current`: a current injected into node `into`, returning from `from`. */
-  kind: 'voltage' | 'current'
+/** One uncorrelated part of a contributor: a current into `into` returning from `from`. */
+export interface NoisePart {
   into: number
   from: number
   /** White density: V²/Hz or A²/Hz. */
   white: number
+}
+
+/**
+ * One noise contributor in a compiled netlist. Most have one part; a key that names several
+ * resistors (the two `rs` legs of a difference stage) sums their powers.
+ */
+export interface NoiseSource {
+  key: NoiseKey
+  /** `voltage`: the op-amp's en; `current`: currents injected into node `into`, returning from `from`. */
+  kind: 'voltage' | 'current'
+  parts: NoisePart[]
   /** 1/f corner, Hz (0 = none): density = white·(1 + corner/f). */
   corner: number
 }
+
+/** Noise keys of the load elements (DESIGN §8.3), listed when the stage has the element. */
+const LOAD_NOISE_KEYS = ['r:riso', 'r:rload'] as const
 
 /** Noise temperature of a stage, K. */
 export const noiseKelvin = (input: StageInput): number => input.noiseTemperature + CELSIUS_TO_KELVIN
@@ -50,31 +61,29 @@ export function noiseSources(input: StageInput, net: Netlist): NoiseSource[] {
   const kelvin = noiseKelvin(input)
   const inScale = currentNoiseScale(input, input.noiseTemperature)
   const inPsd = (op.in * inScale) ** 2
-  const resistor = (label: string): Pick<NoiseSource, 'into' | 'from' | 'white'> => {
-    const e = net.elements.find((x) => x.label === label && x.kind === 'g')
+  const resistor = (label: string): NoisePart[] =>
     // An absent or 0 Ω resistor is a wire and makes no noise.
-    return e ? {into: e.a, from: e.b, white: thermalCurrentPsd(1 / e.value, kelvin)} : {into: 0, from: 0, white: 0}
-  }
-  return topologyModel(input).noiseKeys.map((key): NoiseSource => {
+    net.elements.filter((x) => x.label === label && x.kind === 'g').map((e) => ({into: e.a, from: e.b, white: thermalCurrentPsd(1 / e.value, kelvin)}))
+  const keys: NoiseKey[] = [...topologyModel(input).noiseKeys]
+  for (const k of LOAD_NOISE_KEYS) if (resistor(k.slice(2)).length > 0) keys.push(k)
+  return keys.map((key): NoiseSource => {
     switch (key) {
       case 'en':
-        return {key, kind: 'voltage', into: net.out, from: 0, white: op.en ** 2, corner: op.enCorner}
+        return {key, kind: 'voltage', parts: [{into: net.out, from: 0, white: op.en ** 2}], corner: op.enCorner}
       case 'in+':
-        return {key, kind: 'current', into: net.plus, from: 0, white: inPsd, corner: op.inCorner}
+        return {key, kind: 'current', parts: [{into: net.plus, from: 0, white: inPsd}], corner: op.inCorner}
       case 'in-':
-        return {key, kind: 'current', into: net.minus, from: 0, white: inPsd, corner: op.inCorner}
+        return {key, kind: 'current', parts: [{into: net.minus, from: 0, white: inPsd}], corner: op.inCorner}
       case 'shot':
-        return {key, kind: 'current', into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * darkCurrentAt(input, input.noiseTemperature), corner: 0}
+        return {key, kind: 'current', parts: [{into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * darkCurrentAt(input, input.noiseTemperature)}], corner: 0}
       case 'shot-signal': {
         const isig = Math.max(Math.abs(input.input[0]), Math.abs(input.input[1]))
-        return {key, kind: 'current', into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * isig, corner: 0}
+        return {key, kind: 'current', parts: [{into: net.drive.node, from: 0, white: 2 * ELEMENTARY_CHARGE * isig}], corner: 0}
       }
-      case 'r:rf':
-      case 'r:rg':
-      case 'r:rs':
-      case 'r:rcomp':
-      case 'r:rshunt':
-        return {key, kind: 'current', ...resistor(key.slice(2)), corner: 0}
+      default: {
+        const parts = resistor(key.slice(2))
+        return {key, kind: 'current', parts: parts.length > 0 ? parts : [{into: 0, from: 0, white: 0}], corner: 0}
+      }
     }
   })
 }

@@ -3,7 +3,7 @@
  * or a wire when rf is absent (DESIGN §4.1 row 3, §4.3).
  */
 import type {TopologyModel} from './model.js'
-import {commonElements, feedbackElements, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
+import {commonElements, feedbackElements, loadElements, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
 
 export const follower: TopologyModel = {
   terms: (r) => ({gain: 1, noiseGain: 1, rgEff: Infinity, rn: r.rf, rp: r.rs + r.rcomp}),
@@ -11,7 +11,7 @@ export const follower: TopologyModel = {
   noiseKeys: ['en', 'in+', 'in-', 'r:rf', 'r:rs', 'r:rcomp'],
   commonMode: (input) => input.input,
   netlist: (input) => ({
-    elements: [seriesR('rs', input.rs?.value, 'src', 'x'), ...commonElements(input, 'x'), ...feedbackElements(input)],
+    elements: [seriesR('rs', input.rs?.value, 'src', 'x'), ...commonElements(input, 'x'), ...feedbackElements(input), ...loadElements(input)],
     wires: [],
     drive: {kind: 'voltage', node: 'src'},
     opamp: stagePoles(input)

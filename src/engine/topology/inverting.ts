@@ -3,7 +3,7 @@
  * through rcomp (∥ ccomp). vref sets only the DC operating point (DESIGN §4.1 row 2, §4.3).
  */
 import type {TopologyModel} from './model.js'
-import {commonElements, feedbackElements, parallel, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
+import {commonElements, feedbackElements, loadElements, parallel, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
 
 export const inverting: TopologyModel = {
   terms: (r) => ({
@@ -21,7 +21,7 @@ export const inverting: TopologyModel = {
       seriesR('rs', input.rs?.value, 'src', 'x'),
       seriesR('rg', input.rg?.value, 'x', 'm'),
       ...commonElements(input, 'ref'),
-      ...feedbackElements(input)
+      ...feedbackElements(input), ...loadElements(input)
     ],
     wires: [],
     drive: {kind: 'voltage', node: 'src'},

@@ -8,7 +8,7 @@ import {opampPoles} from '../opamp-model.js'
 import type {DcKey, NoiseKey, StageInput} from '../types.js'
 
 /** Keys of the stage's real resistors. */
-export const RESISTOR_KEYS = ['rf', 'rg', 'rs', 'rcomp', 'rshunt'] as const
+export const RESISTOR_KEYS = ['rf', 'rg', 'rs', 'rcomp', 'rshunt', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso'] as const
 export type ResistorKey = (typeof RESISTOR_KEYS)[number]
 
 /**
@@ -58,17 +58,42 @@ export function nominalResistors(input: StageInput): ResistorValues {
     rg: input.rg?.value ?? Infinity,
     rs: input.rs?.value ?? 0,
     rcomp: input.rcomp?.value ?? 0,
-    rshunt: input.rshunt ?? Infinity
+    rshunt: input.rshunt ?? Infinity,
+    rp: input.rp?.value ?? 0,
+    rref: input.rref?.value ?? 0,
+    r1: input.r1?.value ?? 0,
+    r2: input.r2?.value ?? 0,
+    r3: input.r3?.value ?? 0,
+    riso: input.riso?.value ?? 0
   }
 }
 
 /** Series element, 0 Ω (a wire) when absent. */
-export const seriesR = (label: 'rf' | 'rg' | 'rs' | 'rcomp', value: number | undefined, a: SpecElement['a'], b: SpecElement['b']): SpecElement =>
+export const seriesR = (label: SpecElement['label'], value: number | undefined, a: SpecElement['a'], b: SpecElement['b']): SpecElement =>
   ({label, kind: 'r', a, b, value: value ?? 0})
+
+/** A shunt resistor, stamped only when present (absent = open). */
+export const shuntR = (label: SpecElement['label'], value: number | null | undefined, a: SpecElement['a'], b: SpecElement['b']): SpecElement[] =>
+  value === null || value === undefined || value === Infinity ? [] : [{label, kind: 'r', a, b, value}]
+
+/**
+ * The output side of every topology (DESIGN §8.3): the op-amp's ideal source at `a` drives
+ * the output pin `o` through rout; riso joins the pin to the load node `l`, where cload and
+ * rload sit. rout 0 and no riso are wires, so without a load the three nodes are one.
+ */
+export function loadElements(input: StageInput, riso = input.riso?.value ?? 0): SpecElement[] {
+  return [
+    seriesR('rout', input.opamp.rout ?? 0, 'a', 'o'),
+    seriesR('riso', riso, 'o', 'l'),
+    {label: 'cload', kind: 'c', a: 'l', b: 'gnd', value: input.cload},
+    ...shuntR('rload', input.rload, 'l', 'gnd')
+  ]
+}
 
 /**
  * Elements every topology shares: cin-cm from each pin to ground, cin-diff between the pins,
- * cstray from the − pin to ground (DESIGN §4.3), and rcomp ∥ ccomp into the + pin from `from`.
+ * cstray from the − pin to ground (DESIGN §4.3), cstray-plus from the + pin to ground
+ * (§8.3), and rcomp ∥ ccomp into the + pin from `from`.
  */
 export function commonElements(input: StageInput, from: SpecElement['a']): SpecElement[] {
   const op = input.opamp
@@ -77,6 +102,7 @@ export function commonElements(input: StageInput, from: SpecElement['a']): SpecE
     {label: 'cin-cm-', kind: 'c', a: 'm', b: 'gnd', value: op.cinCm},
     {label: 'cin-diff', kind: 'c', a: 'p', b: 'm', value: op.cinDiff},
     {label: 'cstray', kind: 'c', a: 'm', b: 'gnd', value: input.cstray},
+    {label: 'cstray-plus', kind: 'c', a: 'p', b: 'gnd', value: input.cstrayPlus},
     seriesR('rcomp', input.rcomp?.value, from, 'p')
   ]
   // ccomp only bypasses a real rcomp; across a wire it is shorted (and an error upstream).

@@ -3,7 +3,7 @@
  * rg from − pin to ground (DESIGN §4.1 table row 1, §4.3).
  */
 import type {TopologyModel} from './model.js'
-import {commonElements, feedbackElements, parallel, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
+import {commonElements, feedbackElements, loadElements, parallel, seriesR, stagePoles, VOLTAGE_DC_KEYS} from './model.js'
 
 export const noninverting: TopologyModel = {
   terms: (r) => ({
@@ -20,7 +20,7 @@ export const noninverting: TopologyModel = {
     elements: [
       seriesR('rs', input.rs?.value, 'src', 'x'),
       ...commonElements(input, 'x'),
-      ...feedbackElements(input),
+      ...feedbackElements(input), ...loadElements(input),
       // rg to ground is a shunt: absent means open, so it is only stamped when present.
       ...(input.rg ? [{label: 'rg' as const, kind: 'r' as const, a: 'm' as const, b: 'gnd' as const, value: input.rg.value}] : [])
     ],

@@ -4,7 +4,7 @@
  * − pin, + pin to ground through rcomp (∥ ccomp) (DESIGN §3.3, §4.1 row 4, §4.3).
  */
 import type {TopologyModel} from './model.js'
-import {commonElements, feedbackElements, parallel, stagePoles} from './model.js'
+import {commonElements, feedbackElements, loadElements, parallel, stagePoles} from './model.js'
 
 export const transimpedance: TopologyModel = {
   terms: (r) => ({
@@ -20,7 +20,7 @@ export const transimpedance: TopologyModel = {
   netlist: (input) => ({
     elements: [
       ...commonElements(input, 'ref'),
-      ...feedbackElements(input),
+      ...feedbackElements(input), ...loadElements(input),
       {label: 'csource', kind: 'c', a: 'm', b: 'gnd', value: input.csource},
       ...(input.rshunt === null ? [] : [{label: 'rshunt' as const, kind: 'r' as const, a: 'm' as const, b: 'gnd' as const, value: input.rshunt}])
     ],

@@ -82,6 +82,8 @@ export const CONTRIBUTOR_WIDTH = 1.4
 /** The style of each noise contributor's density line (all dashed; solid is the total's). */
 export const NOISE_STYLES: Record<NoiseKey, LineStyle> = {
   en: {colour: '#1f5fa8', dash: [9, 3], width: CONTRIBUTOR_WIDTH},
+  'en-in': {colour: '#1f5fa8', dash: [9, 3], width: CONTRIBUTOR_WIDTH},
+  'en-out': {colour: '#7d3fa6', dash: [3, 3], width: CONTRIBUTOR_WIDTH},
   'in+': {colour: '#c2561a', dash: [5, 3], width: CONTRIBUTOR_WIDTH},
   'in-': {colour: '#d08a00', dash: [2, 2], width: CONTRIBUTOR_WIDTH},
   'r:rf': {colour: '#2b8a47', dash: [8, 3, 2, 3], width: CONTRIBUTOR_WIDTH},
@@ -89,6 +91,14 @@ export const NOISE_STYLES: Record<NoiseKey, LineStyle> = {
   'r:rs': {colour: '#0e8c8c', dash: [12, 4], width: CONTRIBUTOR_WIDTH},
   'r:rcomp': {colour: '#a3234d', dash: [1, 3], width: CONTRIBUTOR_WIDTH},
   'r:rshunt': {colour: '#6b5a2a', dash: [6, 2, 2, 2, 2, 2], width: CONTRIBUTOR_WIDTH},
+  // The §8 topologies' resistors reuse the palette: no stage has more than eight contributors.
+  'r:rp': {colour: '#0e8c8c', dash: [3, 2], width: CONTRIBUTOR_WIDTH},
+  'r:rref': {colour: '#a3234d', dash: [10, 2, 2, 2], width: CONTRIBUTOR_WIDTH},
+  'r:r1': {colour: '#2b8a47', dash: [3, 2], width: CONTRIBUTOR_WIDTH},
+  'r:r2': {colour: '#7d3fa6', dash: [10, 3], width: CONTRIBUTOR_WIDTH},
+  'r:r3': {colour: '#0e8c8c', dash: [6, 3, 1, 3], width: CONTRIBUTOR_WIDTH},
+  'r:riso': {colour: '#6b5a2a', dash: [2, 4], width: CONTRIBUTOR_WIDTH},
+  'r:rload': {colour: '#5a6b7d', dash: [5, 1], width: CONTRIBUTOR_WIDTH},
   shot: {colour: '#5a6b7d', dash: [12, 3, 3, 3], width: CONTRIBUTOR_WIDTH},
   'shot-signal': {colour: '#b0306a', dash: [3, 2, 8, 2], width: CONTRIBUTOR_WIDTH}
 }

@@ -22,7 +22,9 @@ export function summaryTable(r: StageResult): Table {
     ...(signalShot(r) ? [['Output noise at zero signal (the floor), rms', q(r.noise.zeroSignalOutputRms, 'V')]] : []),
     ...(r.dc.calibrated === null ? [] : [[`DC error at output after calibration (${r.dc.calibrated.calibration}), worst case / RSS`,
       `${q(r.dc.calibrated.worstCaseOutput, 'V')} / ${q(r.dc.calibrated.rssOutput, 'V')}`]]),
-    ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
+    r.topology === 'instrumentation'
+      ? ['Phase margin', 'not analysed (compensated inside the part)']
+      : ['Phase margin at crossover', `${deg(r.stability.phaseMargin)} at ${q(r.stability.crossover, 'Hz')}`],
     ['Closed-loop −3 dB bandwidth', q(r.stability.bandwidth, 'Hz')]
   ], ['left', 'right'])
 }
@@ -81,6 +83,12 @@ export function noiseTable(r: StageResult, input: StageInput): Table {
 /** Loop stability and closed-loop response figures. */
 export function stabilityTable(r: StageResult): Table {
   const s = r.stability
+  if (r.topology === 'instrumentation') {
+    return table(['Quantity', 'Value'], [
+      ['Phase margin', 'not analysed (compensated inside the part)'],
+      ['Closed-loop −3 dB bandwidth (gbw/G)', q(s.bandwidth, 'Hz')]
+    ], ['left', 'right'])
+  }
   const rows: string[][] = [
     ['Loop-gain crossover', q(s.crossover, 'Hz')],
     ['Phase margin', s.phaseMargin === null ? 'no crossover' : deg(s.phaseMargin)],
@@ -92,4 +100,15 @@ export function stabilityTable(r: StageResult): Table {
       s.suggestedCf === null ? 'none up to 1 µF' : s.suggestedCf === 0 ? 'none needed (60° without Cf)' : q(s.suggestedCf, 'F')])
   }
   return table(['Quantity', 'Value'], rows, ['left', 'right'])
+}
+
+/** Low-pass figures from the solved response (DESIGN §8.4). */
+export function filterTable(r: StageResult): Table | null {
+  const f = r.filter
+  if (f === null) return null
+  return table(['Quantity', 'Value'], [
+    ['f0 (phase of H/H(0) at −90°)', f.f0 === null ? 'not reached in the analysed span' : q(f.f0, 'Hz')],
+    ['Q = |H(f0)/H(0)|', f.q === null ? '—' : f.q.toFixed(3)],
+    ['Passband gain H(0)', q(f.passbandGain, 'V/V', 4)]
+  ], ['left', 'right'])
 }

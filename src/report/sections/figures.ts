@@ -5,7 +5,7 @@
 import type {StageEvaluation} from '../../evaluate/index.js'
 import type {ReportContext} from '../context.js'
 import type {FigureNode} from '../types.js'
-import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec} from '../charts/index.js'
+import {cumulativeRmsSpec, dcBarsSpec, loopGainSpec, noiseDensitySpec, responseSpec} from '../charts/index.js'
 import {coincidingCurves} from '../charts/noise-density.js'
 import {dcPresent, noisePresent} from '../present.js'
 import {DC_LABELS, NOISE_LABELS} from '../../results/labels.js'
@@ -43,3 +43,10 @@ export function noiseFigures(ctx: ReportContext, ev: StageEvaluation): FigureNod
 export const loopFigure = (ctx: ReportContext, ev: StageEvaluation): FigureNode =>
   figure(ctx, loopGainSpec(ev.result.curves, ev.result.stability),
     `Loop gain of stage ${ev.input.id}: magnitude and phase, crossover and phase margin marked`)
+
+/** The low-pass response chart (DESIGN §8.4); null for other topologies. */
+export const responseFigure = (ctx: ReportContext, ev: StageEvaluation): FigureNode | null =>
+  ev.result.filter === null
+    ? null
+    : figure(ctx, responseSpec(ev.result.curves, ev.result.filter),
+      `Signal response of stage ${ev.input.id}: magnitude and phase of H(f)/H(0), f0 marked`)

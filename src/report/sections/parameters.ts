@@ -4,7 +4,7 @@
  */
 import type {BlockContent, Table} from 'mdast'
 import {ARCHETYPE_DISCLAIMER} from '../../engine/archetypes.js'
-import type {OpampParams} from '../../engine/types.js'
+import type {InaParams, OpampParams} from '../../engine/types.js'
 import type {BlockEntry, DefaultedValue} from '../../note/types.js'
 import {q as fq} from '../format.js'
 import {OPAMP_KEYS} from '../../note/keys.js'
@@ -79,3 +79,27 @@ const entered = (v: number | null, unit: string): string => (v === null ? 'not e
 /** The archetype disclaimer, wherever an archetype is used. */
 export const archetypeNotice = (op: OpampParams): BlockContent =>
   callout('info', 'ARCHETYPE', [paragraph(`Op-amp “${op.name}” is a built-in archetype. `, ARCHETYPE_DISCLAIMER)])
+
+const q = fq
+const dbOf = (linear: number): string => `${(20 * Math.log10(linear)).toFixed(1)} dB`
+
+/** A number to 3 significant digits without prefix. */
+const plain = (x: number): string => String(Number(x.toPrecision(3)))
+
+/** An instrumentation amplifier's values as the engine uses them (DESIGN §8.2). */
+export function inaValuesTable(ina: InaParams): Table {
+  const rows: string[][] = [
+    ['Input type', ina.inputType],
+    ['Gain constant (G = 1 + constant/rg)', q(ina.gainConstant, 'Ω')],
+    ['Gain error / drift, excluding rg', `${plain(ina.gainError * 100)} % / ${plain(ina.gainDrift * 1e6)} ppm/K`],
+    ['Nonlinearity, of the output span', `${plain(ina.nonlinearity * 1e6)} ppm`],
+    ['Offset, input / output stage', `${q(ina.vosIn, 'V')} / ${q(ina.vosOut, 'V')}`],
+    ['Offset drift, input / output stage', `${q(ina.vosInDrift, 'V/K')} / ${q(ina.vosOutDrift, 'V/K')}`],
+    ['Bias / offset current, max at 25 °C', `${q(ina.ib, 'A')} / ${q(ina.ios, 'A')}`],
+    ['Voltage noise, input / output stage; 1/f corner', `${q(ina.enIn, 'V/√Hz')} / ${q(ina.enOut, 'V/√Hz')}; ${q(ina.enCorner, 'Hz')}`],
+    ['Current noise; 1/f corner', `${q(ina.in, 'A/√Hz')}; ${q(ina.inCorner, 'Hz')}`],
+    ['CMRR at the stage gain / PSRR (input-referred)', `${dbOf(ina.cmrr)} / ${dbOf(ina.psrr)}`],
+    ['Gain-bandwidth (bandwidth ≈ gbw/G)', q(ina.gbw, 'Hz')]
+  ]
+  return table(['Parameter', 'Value used'], rows, ['left', 'right'])
+}

@@ -93,7 +93,7 @@ describe('cascaded noise', () => {
     const psd = (input: typeof a, f: number): number => {
       const ws = createWorkspace(stageNetlist(input))
       const sources = noiseSources(input, ws.net)
-      return noiseTransfers(input, f).reduce((s, t, i) => s + (t.transfer.re ** 2 + t.transfer.im ** 2) * sources[i]!.white * (1 + sources[i]!.corner / f), 0)
+      return noiseTransfers(input, f).reduce((s, t, i) => s + t.parts.reduce((sp, p, j) => sp + (p.re ** 2 + p.im ** 2) * sources[i]!.parts[j]!.white, 0) * (1 + sources[i]!.corner / f), 0)
     }
     const n = 4000
     const uL = 0, h = Math.log(2000) / n

@@ -74,7 +74,9 @@ export function stageCurves(): StageCurves {
     frequency,
     loopGainMagnitude: loop.map((l) => l.magnitude),
     loopGainPhase: loop.map((l) => l.phase),
-    closedLoopMagnitude: loop.map((l) => NOISE_GAIN * (l.magnitude / Math.hypot(1, l.magnitude)))
+    closedLoopMagnitude: loop.map((l) => NOISE_GAIN * (l.magnitude / Math.hypot(1, l.magnitude))),
+    // Not drawn by these charts (the low-pass response chart has its own data).
+    closedLoopPhase: frequency.map(() => 0)
   }
 }
 
@@ -98,6 +100,7 @@ export function dcBudget(): DcBudget {
       {key: 'resistor-tolerance', output: 9e-3}
     ],
     calibrated: null,
+    networkCmrr: null,
     worstCaseOutput: 10.7e-3,
     rssOutput: 9.1e-3,
     worstCaseInput: 0.97e-3,
