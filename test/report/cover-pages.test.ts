@@ -1,9 +1,9 @@
 /**
- * The cover and sign-off fit on one page for an ordinary note: the load-cell and photodiode
- * samples (open notes and archetype lines included) and the starting note of every topology
+ * The cover and sign-off fit on one page for an ordinary note: the photodiode and
+ * current-shunt samples (open notes and archetype lines included) and the starting note of every topology
  * (no open note). Read back with pdfjs: the closing statements are on page 1 and the body
- * starts on page 2. The reference-buffer and weigh-scale-chain samples (twelve and thirteen verdict
- * rows) are longer than a page: its closing statements flow onto page 2, whole, before the body.
+ * starts on page 2. The reference-buffer, weigh-scale-chain and load-cell samples (twelve or
+ * more verdict rows; the load cell has two stages) are longer than a page: its closing statements flow onto page 2, whole, before the body.
  * The load-cell sample's calibration code block is not split across pages.
  */
 import {describe, expect, it} from 'vitest'
@@ -13,7 +13,7 @@ import {readPdf} from '../render/helpers.js'
 import {pdfOf, ROOT} from './helpers.js'
 
 /** Samples whose verdict table (twelve rows or more) makes the cover longer than a page. */
-const LONG_COVERS = ['reference-buffer.md', 'weigh-scale-chain.md']
+const LONG_COVERS = ['reference-buffer.md', 'weigh-scale-chain.md', 'load-cell-bridge.md']
 const NOTES = [
   ...readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md') && !LONG_COVERS.includes(f)).map((f) => join(ROOT, 'sample-designs', f)),
   ...readdirSync(join(ROOT, 'test', 'fixtures', 'topologies')).filter((f) => f.endsWith('.md')).map((f) => join(ROOT, 'test', 'fixtures', 'topologies', f)),
