@@ -18,7 +18,7 @@ import type {Reporter} from './diagnostics.js'
 import {didYouMean} from './did-you-mean.js'
 import {noteMessages} from './messages.js'
 import type {DefaultedValue, StageBlockNode} from './types.js'
-import {choiceOf, quantityOf, rangeOf, scalarOf} from './values.js'
+import {bandOf, choiceOf, quantityOf, rangeOf, scalarOf} from './values.js'
 
 /** Topologies that take the sensor's own signal and so can only be first (DESIGN §8.6). */
 export const FIRST_ONLY_TOPOLOGIES: readonly string[] = ['transimpedance', 'instrumentation', 'difference']
@@ -213,14 +213,9 @@ export function buildChain(fields: readonly Field[], ctx: ChainContext): BuiltCh
         if (r !== null) temperature = r.value
         break
       }
-      case 'band': {
-        const r = rangeOf(field, 'frequency', report, 'from-zero')
-        if (r === null) break
-        if (r.value[0] <= 0) report.error(noteMessages.bandFromZero(), r.s.at(0), 'bad-value')
-        else if (r.value[0] === r.value[1]) report.error(noteMessages.bandEmpty(r.s.text.trim()), r.s.at(0), 'bad-value')
-        else band = r.value
+      case 'band':
+        band = bandOf(field, report) ?? band
         break
-      }
       case 'calibration':
         calibration = choiceOf(field, CALIBRATIONS, report)
         break

@@ -15,7 +15,7 @@ import {
 } from './keys.js'
 import {noteMessages} from './messages.js'
 import {STAGE_ROLES} from './types.js'
-import {capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
+import {bandOf, capacitorOf, choiceOf, quantityOf, rangeOf, resistorOf, scalarOf, supplyOf} from './values.js'
 import {formatQuantity, formatRange, formatTempco} from '../units/index.js'
 
 export interface ReadResistor {
@@ -253,14 +253,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
         if (r !== null) read.temperature = r.value
         break
       }
-      case 'band': {
-        const r = rangeOf(field, 'frequency', report, 'from-zero')
-        if (r === null) break
-        if (r.value[0] <= 0) report.error(noteMessages.bandFromZero(), r.s.at(0), 'bad-value')
-        else if (r.value[0] === r.value[1]) report.error(noteMessages.bandEmpty(r.s.text.trim()), r.s.at(0), 'bad-value')
-        else read.band = r.value
+      case 'band':
+        read.band = bandOf(field, report) ?? read.band
         break
-      }
       case 'require':
         readRequire(field, read, report)
         break

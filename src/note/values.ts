@@ -61,6 +61,16 @@ export function rangeOf(field: Field, dim: Dimension, report: Reporter, single: 
   return read(field, `a range of ${expectedOf(dim).replace(/^an? /, '')}`, report, (t) => parseRange(t, dim, options))
 }
 
+/** A noise band `[fL, fH]`, Hz: a range that starts above 0 Hz and is not empty (null after an error). */
+export function bandOf(field: Field, report: Reporter): [number, number] | null {
+  const r = rangeOf(field, 'frequency', report, 'from-zero')
+  if (r === null) return null
+  if (r.value[0] <= 0) report.error(noteMessages.bandFromZero(), r.s.at(0), 'bad-value')
+  else if (r.value[0] === r.value[1]) report.error(noteMessages.bandEmpty(r.s.text.trim()), r.s.at(0), 'bad-value')
+  else return r.value
+  return null
+}
+
 /** A supply `[negative, positive]`, V. */
 export function supplyOf(field: Field, report: Reporter): {value: [number, number]; s: ScalarText} | null {
   return read(field, 'a supply (`±15 V`, `0 .. 5 V`)', report, (t) => parseSupply(t, {key: field.key}))
