@@ -50,7 +50,8 @@ export const REQUIREMENT_LABELS: Record<RequirementKey, string> = {
   'phase-margin': 'Phase margin (minimum)',
   bandwidth: 'Closed-loop bandwidth (minimum)',
   'output-error-calibrated': 'DC error at output after calibration, worst case',
-  'input-error-calibrated': 'DC error referred to input after calibration, worst case'
+  'input-error-calibrated': 'DC error referred to input after calibration, worst case',
+  yield: 'Yield of the DC requirements, Monte Carlo (minimum)'
 }
 
 export const LIMIT_LABELS: Record<LimitKey, string> = {
@@ -82,6 +83,8 @@ export const requirementUnit = (key: RequirementKey, t: Topology): string => {
   switch (key) {
     case 'phase-margin':
       return '°'
+    case 'yield':
+      return '%'
     case 'bandwidth':
       return 'Hz'
     case 'input-error':

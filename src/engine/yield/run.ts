@@ -1,0 +1,275 @@
+/**
+ * The Monte Carlo run over a stage's DC budget (DESIGN §8.7): draw every trial's variables
+ * from the counter-based generator, evaluate the signed error sums of `model.ts` at every
+ * input end and temperature, keep the largest magnitude (with and without the calibration),
+ * then the requirement yields with their Wilson intervals, the percentiles, the histogram
+ * and the variance shares.
+ *
+ * Trial i uses only uniformOf(trialKey(seed, i), slot): the draws, and so every figure, are
+ * the same however the trials are split. The loop runs over typed arrays, the closed form of
+ * `closed-form.ts` evaluated 1 + T·(1 + P) times a trial for T temperatures and P input ends.
+ */
+import type {DcBudget, StageInput, YieldKey, YieldOptions, YieldRequirement, YieldResult} from '../types.js'
+import {YIELD_KEYS} from '../types.js'
+import {seedKey, trialKey, uniformOf} from './counter-rng.js'
+import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
+import {truncatedNormal} from './normal.js'
+import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
+
+/** Trials of a run that asks for none (a yield requirement alone, or the CLI's `--yield`). */
+export const DEFAULT_YIELD_TRIALS = 100_000
+
+/**
+ * The Monte Carlo options of a stage: its `yield` map, else the defaults when it requires a
+ * yield (a yield requirement needs the run), else null (off).
+ */
+export function yieldOptionsOf(input: StageInput): YieldOptions | null {
+  if (input.yield) return input.yield
+  return input.require.yield !== undefined ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null
+}
+
+/** Base rows of the variance-share estimate (each costs one evaluation per variable). */
+export const VARIANCE_ROWS = 8192
+/** Bins of the report's histogram. */
+export const HISTOGRAM_BINS = 48
+/** Offset of the second, independent sample of Jansen's design in the generator's variable index. */
+const STREAM_B = 64
+
+/** Fill `vals` (SLOT_COUNT long) with one trial's draws; inactive slots stay 0. */
+export function drawTrial(model: YieldModel, key: number, vals: Float64Array, stream = 0): void {
+  const vars = model.variables
+  for (let k = 0; k < vars.length; k++) {
+    const v = vars[k]
+    const u = uniformOf(key, v.slot + stream)
+    vals[v.slot] = v.kind === DrawKind.Normal ? truncatedNormal(u, v.scale) : v.kind === DrawKind.Symmetric ? v.scale * (2 * u - 1) : v.scale * u
+  }
+}
+
+/** Scratch arrays of one evaluator. */
+interface Scratch {
+  rTol: Float64Array
+  rT: Float64Array
+  rIb: Float64Array
+  tol: Float64Array
+}
+
+const scratchOf = (m: YieldModel): Scratch => ({
+  rTol: Float64Array.from(m.nominal),
+  rT: Float64Array.from(m.nominal),
+  rIb: Float64Array.from(m.nominal),
+  tol: new Float64Array(m.points.length)
+})
+
+/**
+ * One trial's signed errors: `out[ti·P + p]` the full error and `outCal[ti·P + p]` the
+ * calibrated residual (equal to the full error without a calibration) at temperature ti and
+ * input end p. The terms are those of `model.ts`.
+ */
+export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): void {
+  const f = m.form
+  const pts = m.points
+  const P = pts.length
+  const mov = m.moving
+  const nom = m.nominal
+  const {rTol, rT, rIb, tol} = s
+  for (let j = 0; j < mov.length; j++) {
+    const i = mov[j]
+    rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
+  }
+  for (let p = 0; p < P; p++) {
+    const q = pts[p]
+    tol[p] = f(rTol, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+  }
+  const vos = vals[SLOT.vos]
+  const ib = vals[SLOT.ib]
+  const iosOut = vals[SLOT.ios] * m.kIos
+  const idarkOut = vals[SLOT.idark] * m.kIdark
+  const cmrr = vals[SLOT.cmrr]
+  const psrrOut = m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  for (let ti = 0; ti < m.temperatures.length; ti++) {
+    const dt = m.temperatures[ti] - 25
+    for (let j = 0; j < mov.length; j++) {
+      const i = mov[j]
+      const c = vals[tcSlot(i)] * dt
+      rT[i] = nom[i] * (1 + c)
+      rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+    }
+    const ibOut = ib * f(rIb, 0, 0, 0, 0, 1, 1)
+    const drift = m.kVos * vals[SLOT.vosDrift] * dt + psrrOut
+    const full = drift + ibOut + iosOut + idarkOut + m.kVos * vos
+    const cal = drift + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual
+    for (let p = 0; p < P; p++) {
+      const q = pts[p]
+      const tc = f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+      const gainTerms = m.kVos * q.cmDeviation * cmrr + q.aol + tol[p]
+      out[ti * P + p] = full + tc + gainTerms
+      outCal[ti * P + p] = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : full + tc + gainTerms
+    }
+  }
+}
+
+/** The raw errors of trials [from, to): full and calibrated, max |signed sum| over the points. */
+export function trialBlock(m: YieldModel, seed: number, from: number, to: number, err: Float64Array, errCal: Float64Array): void {
+  const sk = seedKey(seed)
+  const vals = new Float64Array(SLOT_COUNT)
+  const s = scratchOf(m)
+  const n = m.points.length * m.temperatures.length
+  const out = new Float64Array(n)
+  const outCal = new Float64Array(n)
+  for (let t = from; t < to; t++) {
+    drawTrial(m, trialKey(sk, t), vals)
+    trialErrors(m, vals, s, out, outCal)
+    let e = 0
+    let ec = 0
+    for (let k = 0; k < n; k++) {
+      const a = Math.abs(out[k])
+      const b = Math.abs(outCal[k])
+      if (a > e) e = a
+      if (b > ec) ec = b
+    }
+    err[t - from] = e
+    errCal[t - from] = ec
+  }
+}
+
+/** The figure a requirement is judged on, from the trial's full and calibrated output errors. */
+const ERROR_OF: Record<YieldKey, 'full' | 'cal'> = {
+  'output-error': 'full',
+  'input-error': 'full',
+  'output-error-calibrated': 'cal',
+  'input-error-calibrated': 'cal'
+}
+
+/** An unavailable result (no closed form for the topology). */
+function unavailableResult(input: StageInput, options: YieldOptions, reason: string, dc: DcBudget): YieldResult {
+  return {
+    ...options,
+    unavailable: reason,
+    results: [],
+    basis: input.calibration === 'none' ? 'output' : 'output-calibrated',
+    worstCase: dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput,
+    errorPercentiles: null,
+    maxError: 0,
+    variance: [],
+    varianceAt: null,
+    varianceRows: 0,
+    histogram: {top: 0, counts: []}
+  }
+}
+
+/**
+ * The Monte Carlo of one stage (DESIGN §8.7).
+ * @param dc
+ *   The stage's budget (the worst-case bound shown beside the distribution).
+ * @param gain
+ *   The signed signal gain G (input-referred = output ÷ |G|).
+ */
+export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number): YieldResult {
+  const model = yieldModel(input, options.distribution)
+  if (model === null) {
+    return unavailableResult(input, options, `the ${input.topology} topology has no closed-form DC solution for the Monte Carlo`, dc)
+  }
+  const n = options.trials
+  const err = new Float64Array(n)
+  const errCal = new Float64Array(n)
+  trialBlock(model, options.seed, 0, n, err, errCal)
+  const g = Math.abs(gain)
+  const results: YieldRequirement[] = []
+  for (const key of YIELD_KEYS) {
+    const limit = input.require[key]
+    if (limit === undefined) continue
+    const e = ERROR_OF[key] === 'full' ? err : errCal
+    const bound = key.startsWith('input') ? limit * g : limit
+    let passed = 0
+    for (let i = 0; i < n; i++) if (e[i] <= bound) passed++
+    results.push({key, limit, passed, yield: passed / n, interval: wilsonInterval(passed, n)})
+  }
+  const calibrated = input.calibration !== 'none'
+  const basisErr = calibrated ? errCal : err
+  const worstCase = calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput
+  const sorted = Float64Array.from(basisErr).sort()
+  const maxError = n > 0 ? sorted[n - 1] : 0
+  const limits = results.filter((r) => ERROR_OF[r.key] === (calibrated ? 'cal' : 'full')).map((r) => (r.key.startsWith('input') ? r.limit * g : r.limit))
+  const top = Math.max(maxError, worstCase, ...limits) * 1.02
+  const shares = varianceShares(model, options.seed, Math.min(n, VARIANCE_ROWS), calibrated)
+  return {
+    ...options,
+    unavailable: null,
+    results,
+    basis: calibrated ? 'output-calibrated' : 'output',
+    worstCase,
+    errorPercentiles: {p50: percentileSorted(sorted, 0.5), p99: percentileSorted(sorted, 0.99), p999: percentileSorted(sorted, 0.999)},
+    maxError,
+    variance: shares.variance,
+    varianceAt: shares.at === null ? null : {input: shares.at.x, inputCm: input.topology === 'difference' ? shares.at.cm : null, temperature: shares.at.t},
+    varianceRows: shares.rows,
+    histogram: {top, counts: histogram(basisErr, HISTOGRAM_BINS, top)}
+  }
+}
+
+/**
+ * Variance shares (DESIGN §8.7): Jansen's total-effect index of each variable for the signed
+ * error at the input end and temperature of largest variance, over the first `rows` trials
+ * (matrix A) and an independent second draw of the same trials (matrix B), normalised to sum 1.
+ */
+function varianceShares(m: YieldModel, seed: number, rows: number, calibrated: boolean): {
+  variance: {variable: string; share: number}[]
+  at: {x: number; cm: number; t: number} | null
+  rows: number
+} {
+  if (rows < 2 || m.variables.length === 0) return {variance: [], at: null, rows: 0}
+  const sk = seedKey(seed)
+  const P = m.points.length
+  const n = P * m.temperatures.length
+  const vals = new Float64Array(SLOT_COUNT)
+  const valsB = new Float64Array(SLOT_COUNT)
+  const mixed = new Float64Array(SLOT_COUNT)
+  const s = scratchOf(m)
+  const out = new Float64Array(n)
+  const outCal = new Float64Array(n)
+  const pick = calibrated ? outCal : out
+  // Pass 1: the point of largest variance over the A rows.
+  const sum = new Float64Array(n)
+  const sum2 = new Float64Array(n)
+  for (let j = 0; j < rows; j++) {
+    drawTrial(m, trialKey(sk, j), vals)
+    trialErrors(m, vals, s, out, outCal)
+    for (let k = 0; k < n; k++) {
+      sum[k] += pick[k]
+      sum2[k] += pick[k] * pick[k]
+    }
+  }
+  let best = 0
+  let bestVar = -1
+  for (let k = 0; k < n; k++) {
+    const v = sum2[k] / rows - (sum[k] / rows) ** 2
+    if (v > bestVar) {
+      bestVar = v
+      best = k
+    }
+  }
+  // Pass 2: f(A) and f(A_B^(i)) at that point.
+  const fA = new Float64Array(rows)
+  const fAB = m.variables.map(() => new Float64Array(rows))
+  for (let j = 0; j < rows; j++) {
+    const key = trialKey(sk, j)
+    drawTrial(m, key, vals)
+    drawTrial(m, key, valsB, STREAM_B)
+    trialErrors(m, vals, s, out, outCal)
+    fA[j] = pick[best]
+    for (let i = 0; i < m.variables.length; i++) {
+      const slot = m.variables[i].slot
+      mixed.set(vals)
+      mixed[slot] = valsB[slot]
+      trialErrors(m, mixed, s, out, outCal)
+      fAB[i][j] = pick[best]
+    }
+  }
+  const raw = jansenTotalEffects(fA, fAB)
+  const total = raw.reduce((a, b) => a + b, 0)
+  const variance = m.variables
+    .map((v, i) => ({variable: v.name, share: total > 0 ? raw[i] / total : 0}))
+    .sort((a, b) => b.share - a.share || (a.variable < b.variable ? -1 : 1))
+  const q = m.points[best % P]
+  return {variance, at: {x: q.x, cm: q.cm, t: m.temperatures[Math.floor(best / P)]}, rows}
+}
