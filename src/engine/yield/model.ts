@@ -130,10 +130,13 @@ export function yieldModel(input: StageInput, distribution: YieldDistribution): 
   const vcmRef = op.vcmRef ?? (input.supply[0] + input.supply[1]) / 2
   const points = signalPoints(input).map((p): YieldPoint => {
     const ideal = solveStageDc(input, nomR, p)
+    const x = p.input ?? 0
+    const cm = p.inputCm ?? 0
     return {
-      x: p.input ?? 0,
-      cm: p.inputCm ?? 0,
-      nominal: ideal.vout,
+      x,
+      cm,
+      // The closed form's own nominal, so that a trial whose resistors do not move has no resistor term at all.
+      nominal: form(nominal, x, cm, input.vref, 0, 0, 0),
       cmDeviation: ideal.vplus - vcmRef,
       aol: solveStageDc(input, nomR, {...p, aol: op.aol}).vout - ideal.vout
     }
