@@ -94,13 +94,14 @@ export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: 
       rT[i] = nom[i] * (1 + c)
       rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
     }
-    const ibOut = ib * f(rIb, 0, 0, 0, 0, 1, 1)
+    // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
+    const ibOut = ib === 0 ? 0 : ib * f(dt === 0 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
     const drift = m.kVos * vals[SLOT.vosDrift] * dt + psrrOut
     const full = drift + ibOut + iosOut + idarkOut + m.kVos * vos
     const cal = drift + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual
     for (let p = 0; p < P; p++) {
       const q = pts[p]
-      const tc = f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+      const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
       const gainTerms = m.kVos * q.cmDeviation * cmrr + q.aol + tol[p]
       out[ti * P + p] = full + tc + gainTerms
       outCal[ti * P + p] = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : full + tc + gainTerms
@@ -108,8 +109,47 @@ export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: 
   }
 }
 
+/**
+ * The signed error at one temperature ti and input end p only (the variance shares'
+ * evaluations): the same terms as `trialErrors`, full or calibrated.
+ */
+export function pointError(m: YieldModel, vals: Float64Array, s: Scratch, p: number, ti: number, calibrated: boolean): number {
+  const f = m.form
+  const q = m.points[p]
+  const mov = m.moving
+  const nom = m.nominal
+  const {rTol, rT, rIb} = s
+  const dt = m.temperatures[ti] - 25
+  for (let j = 0; j < mov.length; j++) {
+    const i = mov[j]
+    const c = vals[tcSlot(i)] * dt
+    rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
+    rT[i] = nom[i] * (1 + c)
+    rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+  }
+  const ib = vals[SLOT.ib]
+  const ibOut = ib === 0 ? 0 : ib * f(rIb, 0, 0, 0, 0, 1, 1)
+  const iosOut = vals[SLOT.ios] * m.kIos
+  const idarkOut = vals[SLOT.idark] * m.kIdark
+  const common = m.kVos * vals[SLOT.vosDrift] * dt + m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+  const gainTerms = m.kVos * q.cmDeviation * vals[SLOT.cmrr] + q.aol + (f(rTol, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal)
+  if (calibrated && m.calibrated) {
+    return common + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual + tc + (m.gainCalibrated ? 0 : gainTerms)
+  }
+  return common + ibOut + iosOut + idarkOut + m.kVos * vals[SLOT.vos] + tc + gainTerms
+}
+
+/** Sums of the signed error at every point over the first `rows` trials (to find the point of largest variance). */
+export interface PointSums {
+  rows: number
+  calibrated: boolean
+  sum: Float64Array
+  sum2: Float64Array
+}
+
 /** The raw errors of trials [from, to): full and calibrated, max |signed sum| over the points. */
-export function trialBlock(m: YieldModel, seed: number, from: number, to: number, err: Float64Array, errCal: Float64Array): void {
+export function trialBlock(m: YieldModel, seed: number, from: number, to: number, err: Float64Array, errCal: Float64Array, sums?: PointSums): void {
   const sk = seedKey(seed)
   const vals = new Float64Array(SLOT_COUNT)
   const s = scratchOf(m)
@@ -129,6 +169,13 @@ export function trialBlock(m: YieldModel, seed: number, from: number, to: number
     }
     err[t - from] = e
     errCal[t - from] = ec
+    if (sums !== undefined && t < sums.rows) {
+      const pick = sums.calibrated ? outCal : out
+      for (let k = 0; k < n; k++) {
+        sums.sum[k] += pick[k]
+        sums.sum2[k] += pick[k] * pick[k]
+      }
+    }
   }
 }
 
@@ -172,7 +219,12 @@ export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget,
   const n = options.trials
   const err = new Float64Array(n)
   const errCal = new Float64Array(n)
-  trialBlock(model, options.seed, 0, n, err, errCal)
+  const calibrated = input.calibration !== 'none'
+  const P = model.points.length * model.temperatures.length
+  const rows = Math.min(n, VARIANCE_ROWS)
+  const sums: PointSums = {rows, calibrated, sum: new Float64Array(P), sum2: new Float64Array(P)}
+  // The first `rows` trials (in order, so any later split keeps these sums) also locate the point of largest variance.
+  trialBlock(model, options.seed, 0, n, err, errCal, sums)
   const g = Math.abs(gain)
   const results: YieldRequirement[] = []
   for (const key of YIELD_KEYS) {
@@ -184,14 +236,13 @@ export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget,
     for (let i = 0; i < n; i++) if (e[i] <= bound) passed++
     results.push({key, limit, passed, yield: passed / n, interval: wilsonInterval(passed, n)})
   }
-  const calibrated = input.calibration !== 'none'
   const basisErr = calibrated ? errCal : err
   const worstCase = calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput
   const sorted = Float64Array.from(basisErr).sort()
   const maxError = n > 0 ? sorted[n - 1] : 0
   const limits = results.filter((r) => ERROR_OF[r.key] === (calibrated ? 'cal' : 'full')).map((r) => (r.key.startsWith('input') ? r.limit * g : r.limit))
   const top = Math.max(maxError, worstCase, ...limits) * 1.02
-  const shares = varianceShares(model, options.seed, Math.min(n, VARIANCE_ROWS), calibrated)
+  const shares = varianceShares(model, options.seed, sums)
   return {
     ...options,
     unavailable: null,
@@ -209,60 +260,46 @@ export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget,
 
 /**
  * Variance shares (DESIGN §8.7): Jansen's total-effect index of each variable for the signed
- * error at the input end and temperature of largest variance, over the first `rows` trials
- * (matrix A) and an independent second draw of the same trials (matrix B), normalised to sum 1.
+ * error at the input end and temperature of largest variance (from `sums`), over the first
+ * `sums.rows` trials (matrix A) and an independent second draw of the same trials (matrix B),
+ * normalised to sum 1.
  */
-function varianceShares(m: YieldModel, seed: number, rows: number, calibrated: boolean): {
+function varianceShares(m: YieldModel, seed: number, sums: PointSums): {
   variance: {variable: string; share: number}[]
   at: {x: number; cm: number; t: number} | null
   rows: number
 } {
+  const rows = sums.rows
   if (rows < 2 || m.variables.length === 0) return {variance: [], at: null, rows: 0}
   const sk = seedKey(seed)
   const P = m.points.length
-  const n = P * m.temperatures.length
-  const vals = new Float64Array(SLOT_COUNT)
-  const valsB = new Float64Array(SLOT_COUNT)
-  const mixed = new Float64Array(SLOT_COUNT)
-  const s = scratchOf(m)
-  const out = new Float64Array(n)
-  const outCal = new Float64Array(n)
-  const pick = calibrated ? outCal : out
-  // Pass 1: the point of largest variance over the A rows.
-  const sum = new Float64Array(n)
-  const sum2 = new Float64Array(n)
-  for (let j = 0; j < rows; j++) {
-    drawTrial(m, trialKey(sk, j), vals)
-    trialErrors(m, vals, s, out, outCal)
-    for (let k = 0; k < n; k++) {
-      sum[k] += pick[k]
-      sum2[k] += pick[k] * pick[k]
-    }
-  }
   let best = 0
   let bestVar = -1
-  for (let k = 0; k < n; k++) {
-    const v = sum2[k] / rows - (sum[k] / rows) ** 2
+  for (let k = 0; k < sums.sum.length; k++) {
+    const v = sums.sum2[k] / rows - (sums.sum[k] / rows) ** 2
     if (v > bestVar) {
       bestVar = v
       best = k
     }
   }
-  // Pass 2: f(A) and f(A_B^(i)) at that point.
+  const p = best % P
+  const ti = Math.floor(best / P)
+  const vals = new Float64Array(SLOT_COUNT)
+  const valsB = new Float64Array(SLOT_COUNT)
+  const s = scratchOf(m)
   const fA = new Float64Array(rows)
   const fAB = m.variables.map(() => new Float64Array(rows))
   for (let j = 0; j < rows; j++) {
     const key = trialKey(sk, j)
     drawTrial(m, key, vals)
     drawTrial(m, key, valsB, STREAM_B)
-    trialErrors(m, vals, s, out, outCal)
-    fA[j] = pick[best]
+    fA[j] = pointError(m, vals, s, p, ti, sums.calibrated)
     for (let i = 0; i < m.variables.length; i++) {
       const slot = m.variables[i].slot
-      mixed.set(vals)
-      mixed[slot] = valsB[slot]
-      trialErrors(m, mixed, s, out, outCal)
-      fAB[i][j] = pick[best]
+      const keep = vals[slot]
+      vals[slot] = valsB[slot]
+      fAB[i][j] = pointError(m, vals, s, p, ti, sums.calibrated)
+      vals[slot] = keep
     }
   }
   const raw = jansenTotalEffects(fA, fAB)
@@ -270,6 +307,6 @@ function varianceShares(m: YieldModel, seed: number, rows: number, calibrated: b
   const variance = m.variables
     .map((v, i) => ({variable: v.name, share: total > 0 ? raw[i] / total : 0}))
     .sort((a, b) => b.share - a.share || (a.variable < b.variable ? -1 : 1))
-  const q = m.points[best % P]
-  return {variance, at: {x: q.x, cm: q.cm, t: m.temperatures[Math.floor(best / P)]}, rows}
+  const q = m.points[p]
+  return {variance, at: {x: q.x, cm: q.cm, t: m.temperatures[ti]}, rows}
 }
