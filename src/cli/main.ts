@@ -47,7 +47,7 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
   const all = await expandNotes(args.operands)
   const notes = args.shard === null ? all : inShard(all, args.shard)
   const runOpts: RunOptions = {
-    formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict,
+    formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict, yield: args.yield,
     sourceDateEpoch: io.env['SOURCE_DATE_EPOCH']
   }
   if (args.watch) {

@@ -3,7 +3,7 @@
  * Pure: a block the engine cannot evaluate becomes a fatal message on the file.
  */
 import type {VFile} from 'vfile'
-import {evaluateStage} from '../engine/index.js'
+import {DEFAULT_YIELD_TRIALS, evaluateStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
@@ -35,8 +35,18 @@ export function evaluateNote(parsed: ParsedNote, file: VFile): StageEvaluation[]
   return evaluateNoteWithChains(parsed, file).stages
 }
 
+/** Options of the evaluate phase. */
+export interface EvaluateOptions {
+  /** The Monte Carlo (DESIGN §8.7) on every stage without a `yield` of its own, at the default trials and seed. */
+  yield?: boolean
+}
+
+/** The stage with the default Monte Carlo when `options.yield` asks for it and the stage has none. */
+const withYieldOption = (input: StageInput, options: EvaluateOptions): StageInput =>
+  options.yield === true && !input.yield ? {...input, yield: {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'}} : input
+
 /** Evaluate the note's stages, then its chains from those evaluations. */
-export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
+export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options: EvaluateOptions = {}): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
   const plan = chainPlan(parsed)
   const byId = new Map(parsed.stages.filter((b) => b.input !== null).map((b) => [b.id, b] as const))
   const done = new Map<StageBlockNode, StageEvaluation>()
@@ -50,7 +60,7 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages
   for (const block of order) {
     if (block.input === null) continue
     if (block.inputFromChain === true && !plan.previous.has(block.id)) continue
-    const ev = evaluateOne(block, chainedInput(block, block.input, plan, spans, file), parsed, file)
+    const ev = evaluateOne(block, withYieldOption(chainedInput(block, block.input, plan, spans, file), options), parsed, file)
     if (ev === null) continue
     done.set(block, ev)
     spans.set(block.id, [ev.result.swing.outputSpan[0], ev.result.swing.outputSpan[1]])

@@ -11,13 +11,12 @@
  */
 import type {DcBudget, StageInput, YieldKey, YieldOptions, YieldRequirement, YieldResult} from '../types.js'
 import {YIELD_KEYS} from '../types.js'
+import {DEFAULT_YIELD_TRIALS} from '../constants.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
 import {truncatedNormal} from './normal.js'
 import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
 
-/** Trials of a run that asks for none (a yield requirement alone, or the CLI's `--yield`). */
-export const DEFAULT_YIELD_TRIALS = 100_000
 
 /**
  * The Monte Carlo options of a stage: its `yield` map, else the defaults when it requires a
