@@ -3,7 +3,7 @@
  * contract's order, report-only fields dropped. Numbers are plain SI; a value that does
  * not exist is null (never NaN or Infinity).
  */
-import type {RequirementResult} from '../engine/types.js'
+import type {RequirementResult, YieldKey, YieldResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
 import type {JsonChain} from './chain-json.js'
 
@@ -55,6 +55,48 @@ export interface JsonStage {
   notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
   /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
   role: StageRole
+  /** The Monte Carlo over the DC budget (DESIGN §8.7); null when off. */
+  yield: JsonYield | null
+}
+
+/**
+ * DESIGN §8.7's `yield` object, with what a reader needs to judge it: the distribution of the
+ * resistor draws, `unavailable` (why there is no yield, else null), each result's limit and
+ * count, which error the percentiles describe (`basis`) and its worst-case bound, and where
+ * the variance shares were taken.
+ */
+export interface JsonYield {
+  trials: number
+  seed: number
+  distribution: YieldResult['distribution']
+  unavailable: string | null
+  results: {key: YieldKey; limit: number; passed: number; yield: number; interval: [number, number]}[]
+  basis: YieldResult['basis']
+  worstCase: number
+  errorPercentiles: {p50: number; p99: number; p999: number} | null
+  maxError: number
+  variance: {variable: string; share: number}[]
+  varianceAt: YieldResult['varianceAt']
+  varianceRows: number
+}
+
+/** The JSON of a stage's Monte Carlo (the histogram is report-only). */
+export function jsonYield(y: YieldResult | null): JsonYield | null {
+  if (y === null) return null
+  return {
+    trials: y.trials,
+    seed: y.seed,
+    distribution: y.distribution,
+    unavailable: y.unavailable,
+    results: y.results.map((r) => ({key: r.key, limit: r.limit, passed: r.passed, yield: r.yield, interval: [r.interval[0], r.interval[1]]})),
+    basis: y.basis,
+    worstCase: y.worstCase,
+    errorPercentiles: y.errorPercentiles === null ? null : {p50: y.errorPercentiles.p50, p99: y.errorPercentiles.p99, p999: y.errorPercentiles.p999},
+    maxError: y.maxError,
+    variance: y.variance.map((v) => ({variable: v.variable, share: v.share})),
+    varianceAt: y.varianceAt === null ? null : {...y.varianceAt},
+    varianceRows: y.varianceRows
+  }
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -105,7 +147,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     filter: r.filter === null ? null : {f0: finite(r.filter.f0), q: finite(r.filter.q), passbandGain: r.filter.passbandGain},
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
-    role: ev.role
+    role: ev.role,
+    yield: jsonYield(r.yield)
   }
 }
 
