@@ -98,3 +98,23 @@ export const requirementUnit = (key: RequirementKey, t: Topology): string => {
       return 'V'
   }
 }
+
+/** Names of the Monte Carlo's random variables (DESIGN §8.7), as in the variance-share chart. */
+const YIELD_VARIABLE_LABELS: Record<string, string> = {
+  vos: 'Offset voltage (vos)',
+  'vos-drift': 'Offset drift (vos-drift)',
+  ib: 'Bias current (ib)',
+  ios: 'Offset current (ios)',
+  idark: 'Dark current (idark)',
+  cmrr: 'Common-mode rejection (1/CMRR)',
+  psrr: 'Supply rejection (1/PSRR)',
+  supply: 'Supply deviation'
+}
+
+/** The label of a Monte Carlo variable: `rf:tolerance` → "rf tolerance". */
+export const yieldVariableLabel = (name: string): string => {
+  const known = YIELD_VARIABLE_LABELS[name]
+  if (known !== undefined) return known
+  const [part, what] = name.split(':')
+  return what === undefined ? name : `${part} ${what}`
+}

@@ -18,7 +18,8 @@ export function wilsonInterval(k: number, n: number, z = Z95): [number, number] 
   const denom = 1 + z2 / n
   const centre = (p + z2 / (2 * n)) / denom
   const half = (z / denom) * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n))
-  return [Math.max(0, centre - half), Math.min(1, centre + half)]
+  // At k = 0 and k = n the bounds are exactly 0 and 1 (the formula's rounding would leave 1 − 1e-16).
+  return [k === 0 ? 0 : Math.max(0, centre - half), k === n ? 1 : Math.min(1, centre + half)]
 }
 
 /** Nearest-rank percentile of ascending `sorted` (q in (0, 1]): sorted[⌈q·n⌉ − 1]. */
