@@ -7,7 +7,8 @@
  *       a cold `check`; each ratio with its target and pass/FAIL; and a module-load trace of
  *       `check` (it must load no pdfkit, fontkit or vega and read no font);
  *   (b) stage evaluations per second, in this process, on sample-like inputs, and a chain
- *       of four stages into a converter (target: under 2 ms on one core);
+ *       of four stages into a converter (target: under 2 ms on one core); the Monte Carlo's
+ *       trials per second on one core and on all cores, and what a 100k run adds;
  *   (c) notes of 50, 200 and 1,000 stages built with --format json (the 50-stage one also
  *       as PDF): time and growth per stage;
  *   (d) a no-op rebuild of 100 cached notes;
@@ -311,6 +312,17 @@ for (let i = 0; i < CHAINS; i++) wholeChain()
 const chainMs = (performance.now() - t0) / CHAINS
 row('b', `chain of 4 stages + converter, cascade only (${CHAINS} runs)`, `${cascadeMs.toFixed(3)} ms`, '—')
 row('b', `chain of 4 stages + converter, with its 4 stage evaluations (${CHAINS} runs)`, `${chainMs.toFixed(3)} ms`, '< 2 ms', chainMs < 2)
+
+// ---------------------------------------------------------------------------------------
+// (b3) Monte Carlo yield over the DC budget (DESIGN §8.7), in this process: the trial loop
+// on one core (target ≥ 5 M trials/s), the same on every core (worker threads, each a
+// disjoint range of trials — trial i depends only on (seed, i), so the joined errors must
+// equal the one-thread run byte for byte), and what a 100k-trial default adds to a stage's
+// evaluation (the whole run: trials, sort, histogram, variance shares; target < 0.1 s).
+
+progress('Monte Carlo yield')
+const {yieldBench} = await import('./yield-bench.mjs')
+await yieldBench({root: ROOT, quick: QUICK, stage: base, row})
 
 // ---------------------------------------------------------------------------------------
 // (c) Large notes

@@ -21,7 +21,8 @@ export function mix32(x: number): number {
 }
 
 const GOLDEN = 0x9e3779b9
-const TWO_32 = 4294967296
+// 2^-32: multiplying by it is exact, the same number as dividing by 2^32.
+const INV_TWO_32 = 1 / 4294967296
 
 /** The key of one seed (computed once per run). */
 export const seedKey = (seed: number): number => mix32((seed >>> 0) ^ 0x5bd1e995)
@@ -33,7 +34,7 @@ export const trialKey = (seedK: number, trial: number): number => mix32(seedK ^ 
  * Uniform in the open interval (0, 1) for variable `v` of a trial key: 2^32 equally spaced
  * values, never 0 or 1.
  */
-export const uniformOf = (trialK: number, v: number): number => (mix32((trialK + Math.imul(v + 1, GOLDEN)) >>> 0) + 0.5) / TWO_32
+export const uniformOf = (trialK: number, v: number): number => (mix32((trialK + Math.imul(v + 1, GOLDEN)) >>> 0) + 0.5) * INV_TWO_32
 
 /** Uniform in (0, 1) for (seed, trial, variable): the one definition the loops use. */
 export const uniformAt = (seed: number, trial: number, v: number): number => uniformOf(trialKey(seedKey(seed), trial), v)

@@ -76,6 +76,10 @@ export interface YieldModel {
   nominal: Float64Array
   /** Indices (R_INDEX) of the resistors that move. */
   moving: Int32Array
+  /** The variables as typed arrays for the trial loop: slot, kind and scale of each. */
+  varSlot: Int32Array
+  varKind: Int8Array
+  varScale: Float64Array
   vref: number
   /** Nominal transfers: vos → out, (ib+ − ib−) → out, source current → out. */
   kVos: number
@@ -150,6 +154,9 @@ export function yieldModel(input: StageInput, distribution: YieldDistribution): 
     temperatures,
     nominal,
     moving: new Int32Array(moving),
+    varSlot: Int32Array.from(variables, (v) => v.slot),
+    varKind: Int8Array.from(variables, (v) => v.kind),
+    varScale: Float64Array.from(variables, (v) => v.scale),
     vref: input.vref,
     kVos: out({vos: 1}),
     kIos: out({ibPlus: 0.5, ibMinus: -0.5}),

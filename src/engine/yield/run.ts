@@ -36,16 +36,21 @@ const STREAM_B = 64
 
 /** Fill `vals` (SLOT_COUNT long) with one trial's draws; inactive slots stay 0. */
 export function drawTrial(model: YieldModel, key: number, vals: Float64Array, stream = 0): void {
-  const vars = model.variables
-  for (let k = 0; k < vars.length; k++) {
-    const v = vars[k]
-    const u = uniformOf(key, v.slot + stream)
-    vals[v.slot] = v.kind === DrawKind.Normal ? truncatedNormal(u, v.scale) : v.kind === DrawKind.Symmetric ? v.scale * (2 * u - 1) : v.scale * u
+  const slots = model.varSlot
+  const kinds = model.varKind
+  const scales = model.varScale
+  for (let k = 0; k < slots.length; k++) {
+    const slot = slots[k]
+    const kind = kinds[k]
+    const scale = scales[k]
+    const u = uniformOf(key, slot + stream)
+    vals[slot] = kind === DrawKind.Normal ? truncatedNormal(u, scale) : kind === DrawKind.Symmetric ? scale * (2 * u - 1) : scale * u
   }
 }
 
 /** Scratch arrays of one evaluator. */
 interface Scratch {
+  maxCal: number
   rTol: Float64Array
   rT: Float64Array
   rIb: Float64Array
@@ -53,6 +58,7 @@ interface Scratch {
 }
 
 const scratchOf = (m: YieldModel): Scratch => ({
+  maxCal: 0,
   rTol: Float64Array.from(m.nominal),
   rT: Float64Array.from(m.nominal),
   rIb: Float64Array.from(m.nominal),
@@ -65,6 +71,11 @@ const scratchOf = (m: YieldModel): Scratch => ({
  * input end p. The terms are those of `model.ts`.
  */
 export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): void {
+  trialMax(m, vals, s, out, outCal)
+}
+
+/** `trialErrors`, returning the largest |full error| and leaving the largest |calibrated residual| in `s.maxCal`. */
+function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): number {
   const f = m.form
   const pts = m.points
   const P = pts.length
@@ -85,6 +96,8 @@ export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: 
   const idarkOut = vals[SLOT.idark] * m.kIdark
   const cmrr = vals[SLOT.cmrr]
   const psrrOut = m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  let e = 0
+  let ec = 0
   for (let ti = 0; ti < m.temperatures.length; ti++) {
     const dt = m.temperatures[ti] - 25
     for (let j = 0; j < mov.length; j++) {
@@ -102,10 +115,18 @@ export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: 
       const q = pts[p]
       const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
       const gainTerms = m.kVos * q.cmDeviation * cmrr + q.aol + tol[p]
-      out[ti * P + p] = full + tc + gainTerms
-      outCal[ti * P + p] = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : full + tc + gainTerms
+      const a = full + tc + gainTerms
+      const b = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : a
+      out[ti * P + p] = a
+      outCal[ti * P + p] = b
+      const aa = Math.abs(a)
+      const bb = Math.abs(b)
+      if (aa > e) e = aa
+      if (bb > ec) ec = bb
     }
   }
+  s.maxCal = ec
+  return e
 }
 
 /**
@@ -157,17 +178,8 @@ export function trialBlock(m: YieldModel, seed: number, from: number, to: number
   const outCal = new Float64Array(n)
   for (let t = from; t < to; t++) {
     drawTrial(m, trialKey(sk, t), vals)
-    trialErrors(m, vals, s, out, outCal)
-    let e = 0
-    let ec = 0
-    for (let k = 0; k < n; k++) {
-      const a = Math.abs(out[k])
-      const b = Math.abs(outCal[k])
-      if (a > e) e = a
-      if (b > ec) ec = b
-    }
-    err[t - from] = e
-    errCal[t - from] = ec
+    err[t - from] = trialMax(m, vals, s, out, outCal)
+    errCal[t - from] = s.maxCal
     if (sums !== undefined && t < sums.rows) {
       const pick = sums.calibrated ? outCal : out
       for (let k = 0; k < n; k++) {
