@@ -21,7 +21,7 @@ export type Primitive =
 
 /** The symbols of our set (IEC 60617 shapes; see `symbols.ts`). */
 export const SYMBOL_NAMES = [
-  'resistor', 'capacitor', 'opamp', 'voltage-source', 'current-source', 'ground', 'terminal'
+  'resistor', 'capacitor', 'opamp', 'inamp', 'voltage-source', 'current-source', 'ground', 'terminal'
 ] as const
 export type SymbolName = (typeof SYMBOL_NAMES)[number]
 
@@ -60,6 +60,8 @@ export interface Placement {
   with?: PartKey
   /** Drawn only while none of these parts is present (the ground that replaces an absent reference). */
   unless?: Condition
+  /** Drawn only while one of these parts is present (the output terminal placed after a load). */
+  when?: Condition
 }
 
 
@@ -81,7 +83,7 @@ export interface Wire {
 export interface Layout {
   width: number
   height: number
-  /** Where the op-amp's name starts (its first line, left-aligned; further lines below). */
+  /** Where the amplifier's name starts (its first line, left-aligned; further lines below). */
   opampLabel: Point
   parts: readonly Placement[]
   wires: readonly Wire[]

@@ -21,10 +21,9 @@ import type {RuleNote} from '../../rules/types.js'
 import type {StageInput} from '../../engine/types.js'
 import {stageSchematic} from '../schematic/stage.js'
 
-/** The stage's schematic, first in its section; a topology without a layout says so. */
+/** The stage's schematic, first in its section. */
 function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
   const drawing = stageSchematic(input)
-  if (drawing === null) return paragraph(`No schematic is drawn for the ${input.topology} topology yet; the parameters table lists its parts.`)
   return {type: 'schematic', number: ++ctx.figure, drawing,
     caption: `Schematic of stage ${input.id}: every part with its key and nominal value (tolerances in the parameters table)`}
 }
