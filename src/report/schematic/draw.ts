@@ -146,6 +146,7 @@ export function drawLayout(layout: Layout, labels: ReadonlyMap<PartKey, PartLabe
     const label = place.with === undefined ? labels.get(place.key) : labels.has(place.with) ? {lines: []} : undefined
     if (label === undefined || (place.unless !== undefined && present(place.unless))) continue
     if (place.when !== undefined && !present(place.when)) continue
+    if (place.whenAll !== undefined && !place.whenAll.every((k) => labels.has(k))) continue
     const primitives = placeSymbol(place.symbol, place.at, place.rotate ?? 0, place.plusOnTop ?? false)
     // The amplifier's inputs, output and gain pins sit on its outline, not on a lead: each is one wire end.
     const outline = place.symbol === 'opamp' ? [OPAMP_PINS.upper, OPAMP_PINS.lower, OPAMP_PINS.out]
@@ -159,6 +160,7 @@ export function drawLayout(layout: Layout, labels: ReadonlyMap<PartKey, PartLabe
   for (const w of layout.wires) {
     if (!present(w.when)) continue
     if (w.unless !== undefined && present(w.unless)) continue
+    if (w.whenAll !== undefined && !w.whenAll.every((k) => labels.has(k))) continue
     wiring.push({kind: 'line', points: w.points})
   }
   wiring.push(...junctions(parts, wiring))

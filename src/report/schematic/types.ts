@@ -62,6 +62,8 @@ export interface Placement {
   unless?: Condition
   /** Drawn only while one of these parts is present (the output terminal placed after a load). */
   when?: Condition
+  /** Drawn only while every one of these parts is present (rload moved out past cload). */
+  whenAll?: readonly PartKey[]
 }
 
 
@@ -74,6 +76,8 @@ export interface Wire {
   points: readonly Point[]
   when?: Condition
   unless?: Condition
+  /** Drawn only if every one of these parts is present. */
+  whenAll?: readonly PartKey[]
 }
 
 /**

@@ -17,22 +17,28 @@ const SHUNT_LOAD: readonly string[] = ['cload', 'rload']
 /**
  * The output side from node `f` (where the feedback meets the op-amp's output wire),
  * rightwards: riso in series, then cload and rload down to ground, then the output terminal.
- * Without them the terminal sits close to `f`; after riso alone, just past it.
+ * Without them the terminal sits close to `f`; after riso alone, just past it; rload alone
+ * takes cload's place.
  */
 export function loadPiece(f: Point): Piece {
   const [x, y] = f
   const lx = x + 70
   const rx = x + 115
+  const both = ['cload', 'rload']
   return {
     parts: [
       {key: 'riso', symbol: 'resistor', at: [x + 15, y]},
       {key: 'cload', symbol: 'capacitor', at: [lx, y], rotate: 90},
       {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'cload'},
-      {key: 'rload', symbol: 'resistor', at: [rx, y], rotate: 90},
-      {key: 'gnd', symbol: 'ground', at: [rx, y + 40], rotate: 90, with: 'rload'},
+      {key: 'rload', symbol: 'resistor', at: [lx, y], rotate: 90, unless: 'cload'},
+      {key: 'rload', symbol: 'resistor', at: [rx, y], rotate: 90, whenAll: both},
+      {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'rload', unless: 'cload'},
+      {key: 'gnd', symbol: 'ground', at: [rx, y + 40], rotate: 90, with: 'rload', whenAll: both},
       {key: 'out', symbol: 'terminal', at: [x + 50, y], unless: LOAD},
       {key: 'out', symbol: 'terminal', at: [x + 75, y], when: 'riso', unless: SHUNT_LOAD},
-      {key: 'out', symbol: 'terminal', at: [rx + 30, y], when: SHUNT_LOAD}
+      {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'cload', unless: 'rload'},
+      {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'rload', unless: 'cload'},
+      {key: 'out', symbol: 'terminal', at: [rx + 30, y], whenAll: both}
     ],
     wires: [
       {points: [[x, y], [x + 47.5, y]], unless: LOAD},
@@ -40,8 +46,10 @@ export function loadPiece(f: Point): Piece {
       {points: [[x + 15, y], [x + 55, y]], when: SHUNT_LOAD, unless: 'riso'},
       {points: [[x + 55, y], [x + 72.5, y]], when: 'riso', unless: SHUNT_LOAD},
       {points: [[x + 55, y], [lx, y]], when: SHUNT_LOAD},
-      {points: [[lx, y], [rx, y]], when: SHUNT_LOAD},
-      {points: [[rx, y], [rx + 27.5, y]], when: SHUNT_LOAD}
+      {points: [[lx, y], [lx + 27.5, y]], when: 'cload', unless: 'rload'},
+      {points: [[lx, y], [lx + 27.5, y]], when: 'rload', unless: 'cload'},
+      {points: [[lx, y], [rx, y]], whenAll: both},
+      {points: [[rx, y], [rx + 27.5, y]], whenAll: both}
     ]
   }
 }
