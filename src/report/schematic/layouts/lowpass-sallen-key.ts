@@ -7,10 +7,10 @@
 import type {Layout} from '../types.js'
 import {loadPiece} from './shared.js'
 
-const load = loadPiece([380, 125])
+const load = loadPiece([415, 125])
 
 export const lowpassSallenKeyLayout: Layout = {
-  width: 570,
+  width: 610,
   opampLabel: [324, 86],
   height: 280,
   parts: [
@@ -28,8 +28,8 @@ export const lowpassSallenKeyLayout: Layout = {
     {key: 'gnd', symbol: 'ground', at: [245, 240], rotate: 90, with: 'rg'},
     {key: 'cstray', symbol: 'capacitor', at: [195, 200], rotate: 90},
     {key: 'gnd', symbol: 'ground', at: [195, 240], rotate: 90, with: 'cstray'},
-    {key: 'rf', symbol: 'resistor', at: [300, 200]},
-    {key: 'cf', symbol: 'capacitor', at: [300, 230], label: 'below'},
+    {key: 'rf', symbol: 'resistor', at: [330, 200]},
+    {key: 'cf', symbol: 'capacitor', at: [330, 230], label: 'below'},
     ...load.parts
   ],
   wires: [
@@ -38,20 +38,20 @@ export const lowpassSallenKeyLayout: Layout = {
     {points: [[90, 110], [105, 110]]},
     {points: [[105, 110], [145, 110]], unless: 'r2'},
     {points: [[105, 110], [105, 50], [200, 50]]},
-    {points: [[240, 50], [380, 50], [380, 125]]},
+    {points: [[240, 50], [415, 50], [415, 125]]},
     {points: [[145, 110], [160, 110]]},
     {points: [[160, 110], [215, 110]]},
     {points: [[215, 110], [300, 110]]},
     {points: [[300, 140], [285, 140], [285, 200]]},
     {points: [[285, 200], [245, 200]], when: ['rg', 'cstray']},
     {points: [[245, 200], [195, 200]], when: 'cstray'},
-    {points: [[285, 200], [300, 200]]},
-    {points: [[300, 200], [340, 200]], unless: 'rf'},
-    {points: [[340, 200], [380, 200]]},
-    {points: [[380, 200], [380, 125]]},
-    {points: [[285, 200], [285, 230], [300, 230]], when: 'cf'},
-    {points: [[340, 230], [380, 230], [380, 200]], when: 'cf'},
-    {points: [[360, 125], [380, 125]]},
+    {points: [[285, 200], [330, 200]]},
+    {points: [[330, 200], [370, 200]], unless: 'rf'},
+    {points: [[370, 200], [415, 200]]},
+    {points: [[415, 200], [415, 125]]},
+    {points: [[285, 200], [285, 230], [330, 230]], when: 'cf'},
+    {points: [[370, 230], [415, 230], [415, 200]], when: 'cf'},
+    {points: [[360, 125], [415, 125]]},
     ...load.wires
   ]
 }
