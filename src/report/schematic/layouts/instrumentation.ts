@@ -8,7 +8,8 @@ import type {Layout} from '../types.js'
 import {differentialSource, loadPiece} from './shared.js'
 
 const source = differentialSource(40, 100, 180)
-const load = loadPiece([320, 140])
+// An in-amp stage takes no riso or cload (DESIGN §8.2: no loop of ours to isolate).
+const load = loadPiece([320, 140], false)
 
 export const instrumentationLayout: Layout = {
   width: 520,

@@ -20,38 +20,43 @@ const SHUNT_LOAD: readonly string[] = ['cload', 'rload']
  * Without them the terminal sits close to `f`; after riso alone, just past it; rload alone
  * takes cload's place.
  */
-export function loadPiece(f: Point): Piece {
+export function loadPiece(f: Point, riso = true): Piece {
   const [x, y] = f
-  const lx = x + 70
-  const rx = x + 115
+  // Without a place for riso (an in-amp stage takes none) the shunt parts move up to f.
+  const sx = riso ? x + 55 : x
+  const lx = sx + 15
+  const rx = lx + 45
   const both = ['cload', 'rload']
-  return {
-    parts: [
+  const parts: Placement[] = [
+    {key: 'cload', symbol: 'capacitor', at: [lx, y], rotate: 90},
+    {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'cload'},
+    {key: 'rload', symbol: 'resistor', at: [lx, y], rotate: 90, unless: 'cload'},
+    {key: 'rload', symbol: 'resistor', at: [rx, y], rotate: 90, whenAll: both},
+    {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'rload', unless: 'cload'},
+    {key: 'gnd', symbol: 'ground', at: [rx, y + 40], rotate: 90, with: 'rload', whenAll: both},
+    {key: 'out', symbol: 'terminal', at: [x + 50, y], unless: LOAD},
+    {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'cload', unless: 'rload'},
+    {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'rload', unless: 'cload'},
+    {key: 'out', symbol: 'terminal', at: [rx + 30, y], whenAll: both}
+  ]
+  const wires: Wire[] = [
+    {points: [[x, y], [x + 47.5, y]], unless: LOAD},
+    {points: [[sx, y], [lx, y]], when: SHUNT_LOAD},
+    {points: [[lx, y], [lx + 27.5, y]], when: 'cload', unless: 'rload'},
+    {points: [[lx, y], [lx + 27.5, y]], when: 'rload', unless: 'cload'},
+    {points: [[lx, y], [rx, y]], whenAll: both},
+    {points: [[rx, y], [rx + 27.5, y]], whenAll: both}
+  ]
+  if (riso) {
+    parts.push(
       {key: 'riso', symbol: 'resistor', at: [x + 15, y]},
-      {key: 'cload', symbol: 'capacitor', at: [lx, y], rotate: 90},
-      {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'cload'},
-      {key: 'rload', symbol: 'resistor', at: [lx, y], rotate: 90, unless: 'cload'},
-      {key: 'rload', symbol: 'resistor', at: [rx, y], rotate: 90, whenAll: both},
-      {key: 'gnd', symbol: 'ground', at: [lx, y + 40], rotate: 90, with: 'rload', unless: 'cload'},
-      {key: 'gnd', symbol: 'ground', at: [rx, y + 40], rotate: 90, with: 'rload', whenAll: both},
-      {key: 'out', symbol: 'terminal', at: [x + 50, y], unless: LOAD},
-      {key: 'out', symbol: 'terminal', at: [x + 75, y], when: 'riso', unless: SHUNT_LOAD},
-      {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'cload', unless: 'rload'},
-      {key: 'out', symbol: 'terminal', at: [lx + 30, y], when: 'rload', unless: 'cload'},
-      {key: 'out', symbol: 'terminal', at: [rx + 30, y], whenAll: both}
-    ],
-    wires: [
-      {points: [[x, y], [x + 47.5, y]], unless: LOAD},
+      {key: 'out', symbol: 'terminal', at: [x + 75, y], when: 'riso', unless: SHUNT_LOAD})
+    wires.push(
       {points: [[x, y], [x + 15, y]], when: LOAD},
       {points: [[x + 15, y], [x + 55, y]], when: SHUNT_LOAD, unless: 'riso'},
-      {points: [[x + 55, y], [x + 72.5, y]], when: 'riso', unless: SHUNT_LOAD},
-      {points: [[x + 55, y], [lx, y]], when: SHUNT_LOAD},
-      {points: [[lx, y], [lx + 27.5, y]], when: 'cload', unless: 'rload'},
-      {points: [[lx, y], [lx + 27.5, y]], when: 'rload', unless: 'cload'},
-      {points: [[lx, y], [rx, y]], whenAll: both},
-      {points: [[rx, y], [rx + 27.5, y]], whenAll: both}
-    ]
+      {points: [[x + 55, y], [x + 72.5, y]], when: 'riso', unless: SHUNT_LOAD})
   }
+  return {parts, wires}
 }
 
 /**
