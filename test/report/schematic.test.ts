@@ -43,7 +43,7 @@ const CASES: [string, string[]][] = [
   ['inv-bare', ['rf', 'rg']],
   // The + pin sits on ground (no rcomp, vref 0 V): cstray-plus is shorted and not in the netlist.
   ['inv-load', ['cload', 'rf', 'rg', 'riso', 'rload']],
-  ['tia-full', ['ccomp', 'cf', 'csource', 'cstray', 'rcomp', 'rf', 'rshunt']],
+  ['tia-full', ['ccomp', 'cf', 'csource', 'cstray', 'cstray-plus', 'rcomp', 'rf', 'rshunt']],
   ['tia-vref', ['rf']],
   ['tia-load', ['cf', 'csource', 'rf', 'rload']],
   ['noninv-full', ['ccomp', 'cf', 'cstray', 'rcomp', 'rf', 'rg', 'rs']],
