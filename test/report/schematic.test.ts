@@ -312,3 +312,14 @@ describe('the schematics in the load-cell PDF, read back with pdfjs', async () =
       expect(pageOf('bridge-ina')).toContain(label.normalize('NFKC'))
     })
 })
+
+describe('the difference schematic in the current-shunt PDF, read back with pdfjs', async () => {
+  const {pdf} = await pdfOf(sample('current-shunt-monitor.md'))
+  const pages = (await readPdf(pdf)).pages
+  const page = (pages.find((p) => p.includes('Schematic of stage shunt-amp')) ?? '').normalize('NFKC')
+
+  it.each(['rg', 'rf', '200 kΩ', 'rp', 'rref', 'vcm', '4.75 … 5.25 V', 'vd 0 … 50 mV', 'vref', '250 mV', 'riso', '110 Ω', 'cload', '10 nF', 'cs-amp'])(
+    'carries the label “%s” as text', (label) => {
+      expect(page).toContain(label.normalize('NFKC'))
+    })
+})
