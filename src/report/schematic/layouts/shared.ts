@@ -50,11 +50,11 @@ export function loadPiece(f: Point, riso = true): Piece {
   if (riso) {
     parts.push(
       {key: 'riso', symbol: 'resistor', at: [x + 15, y]},
-      {key: 'out', symbol: 'terminal', at: [x + 75, y], when: 'riso', unless: SHUNT_LOAD})
+      {key: 'out', symbol: 'terminal', at: [x + 85, y], when: 'riso', unless: SHUNT_LOAD})
     wires.push(
       {points: [[x, y], [x + 15, y]], when: LOAD},
       {points: [[x + 15, y], [x + 55, y]], when: SHUNT_LOAD, unless: 'riso'},
-      {points: [[x + 55, y], [x + 72.5, y]], when: 'riso', unless: SHUNT_LOAD})
+      {points: [[x + 55, y], [x + 82.5, y]], when: 'riso', unless: SHUNT_LOAD})
   }
   return {parts, wires}
 }
