@@ -187,7 +187,7 @@ describe('stageSchematic()', () => {
       for (let j = i + 1; j < boxes.length; j++) {
         const a = boxes[i]!
         const b = boxes[j]!
-        expect(overlap(a.box, b.box), `${a.text} / ${b.text}`).toBe(false)
+        expect(overlap(grow(a.box, 3), b.box), `${a.text} / ${b.text}`).toBe(false)
       }
     }
     const ink = [...d.parts.flatMap((p) => p.primitives), ...d.wiring].filter((p) => p.kind !== 'text')
@@ -233,6 +233,8 @@ function labelBox(p: Extract<Primitive, {kind: 'text'}>): Box {
   return {left, right: left + w, top: p.y - 0.55 * p.size, bottom: p.y + 0.55 * p.size}
 }
 
+/** A box grown by `d` to each side: labels side by side keep that much clear space (lines of one label stack closer). */
+const grow = (b: Box, d: number): Box => ({...b, left: b.left - d, right: b.right + d})
 const overlap = (a: Box, b: Box): boolean => a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom
 const inside = ([x, y]: Point, b: Box): boolean => x > b.left && x < b.right && y > b.top && y < b.bottom
 
