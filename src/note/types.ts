@@ -70,6 +70,8 @@ export interface StageBlockNode {
   defaulted: DefaultedValue[]
   /** True when the block gives no `input`: a chain supplies it (DESIGN §8.6; `input` is then a placeholder). */
   inputFromChain?: true
+  /** True when the block says `alternatives: true`: evaluate it again with every candidate amplifier (DESIGN §8.8). */
+  alternatives?: true
   position?: Position
 }
 
