@@ -43,6 +43,8 @@ export interface AlternativeScore {
   notMet: number
   /** Largest value/limit over the stage's DC requirements; null when it states none. */
   dcRatio: number | null
+  /** The requirement that ratio is taken against; null with it. */
+  dcRequirement: RequirementKey | null
   /** Worst-case DC error at the output, V (ranks when `dcRatio` is null). */
   worstCaseOutput: number
   /** Output noise, rms over the band, V. */
@@ -114,13 +116,17 @@ export function dominantOf(result: StageResult): DcKey | null {
 export function scoreOf(result: StageResult): AlternativeScore {
   const notMet = result.requirements.filter((r) => r.met === false).length
   let dcRatio: number | null = null
+  let dcRequirement: RequirementKey | null = null
   for (const r of result.requirements) {
     if (r.kind !== 'require' || !DC_REQUIREMENTS.includes(r.key)) continue
     const v = r.value ?? Infinity
     const ratio = r.limit > 0 ? v / r.limit : v > 0 ? Infinity : 0
-    dcRatio = Math.max(dcRatio ?? 0, ratio)
+    if (dcRatio === null || ratio > dcRatio) {
+      dcRatio = ratio
+      dcRequirement = r.key
+    }
   }
-  return {notMet, dcRatio, worstCaseOutput: result.dc.worstCaseOutput, outputRms: result.noise.outputRms}
+  return {notMet, dcRatio, dcRequirement, worstCaseOutput: result.dc.worstCaseOutput, outputRms: result.noise.outputRms}
 }
 
 /** Negative when `a` scores better than `b` (module header, steps 1–3). */

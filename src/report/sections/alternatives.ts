@@ -1,0 +1,119 @@
+/**
+ * The stage's input-technology alternatives (DESIGN §8.8): the same circuit with each
+ * candidate amplifier, one row per candidate in score order, the one in use marked, and a
+ * sentence naming the best-scoring candidate by its id and input type. The evaluation and
+ * the score are src/evaluate/alternatives.ts's; this only lays them out.
+ */
+import type {AlignType, BlockContent, PhrasingContent} from 'mdast'
+import type {AlternativeEvaluation, StageAlternatives, StageEvaluation} from '../../evaluate/index.js'
+import {isRequire, type RequirementResult, type StageInput} from '../../engine/types.js'
+import {INPUT_TYPE_LABELS} from '../../results/labels.js'
+import {nextTable, type ReportContext} from '../context.js'
+import {deg, pct, q} from '../format.js'
+import {caption, code, heading, paragraph, table, type Phrase} from '../mdast.js'
+import {verdictOf} from '../verdicts.js'
+
+const MARK = {met: '✓', 'not-met': '✗', 'not-evaluated': '–'} as const
+
+/** "JFET input", "bias-cancelled bipolar input". */
+const inputText = (a: AlternativeEvaluation): string => `${INPUT_TYPE_LABELS[a.inputType]} input`
+
+/** The limits column: the checked limits not met, or a tick when all checked ones are met. */
+function limitsCell(rows: readonly RequirementResult[]): string {
+  const checked = rows.filter((r) => r.kind === 'limit' && r.met !== null)
+  if (checked.length === 0) return '– not checked'
+  const failed = checked.filter((r) => r.met === false).map((r) => r.key)
+  return failed.length === 0 ? MARK.met : `${MARK['not-met']} ${failed.join(', ')}`
+}
+
+function dominantCell(a: AlternativeEvaluation): Phrase[] {
+  if (a.dominant === null) return ['—']
+  const c = a.result.dc.contributors.find((x) => x.key === a.dominant)
+  const share = c !== undefined && a.result.dc.worstCaseOutput > 0 ? ` (${pct(c.output / a.result.dc.worstCaseOutput)})` : ''
+  return [code(a.dominant), share]
+}
+
+/** How a candidate stands against the requirements, for the sentence. */
+function standing(a: AlternativeEvaluation): string {
+  const rows = a.result.requirements.filter((r) => isRequire(r) || r.met !== null)
+  const failed = rows.filter((r) => r.met === false).map((r) => r.key)
+  return failed.length === 0
+    ? `meets all ${rows.length} of the stage’s requirements and checked limits`
+    : `misses ${failed.length} of ${rows.length} (${failed.join(', ')})`
+}
+
+/** The DC figure the score ranks, as words. */
+function dcText(a: AlternativeEvaluation): string {
+  const wc = q(a.result.dc.worstCaseOutput, 'V')
+  const {dcRatio, dcRequirement} = a.score
+  return dcRatio === null || dcRequirement === null ? `worst-case DC error ${wc} at the output`
+    : `worst-case DC error ${wc} at the output (${Number.isFinite(dcRatio) ? pct(dcRatio) : 'beyond'} of the ${dcRequirement} limit)`
+}
+
+function bestSentence(alts: StageAlternatives, input: StageInput): Phrase[] {
+  const best = alts.candidates[alts.ranking[0]!]!
+  const out: Phrase[] = [
+    'Best-scoring candidate: ', code(best.candidate), ` (${inputText(best)}${best.source === 'archetype' ? ', archetype' : ''}), which ${standing(best)}, ` +
+    `with ${dcText(best)} and output noise ${q(best.result.noise.outputRms, 'V')} rms.`
+  ]
+  if (best.current) {
+    out.push(' It is the amplifier the stage uses.')
+  } else {
+    const place = alts.ranking.findIndex((i) => alts.candidates[i]!.current)
+    const current = alts.candidates[alts.ranking[place]!]
+    if (current !== undefined) out.push(` The amplifier in use, `, code(current.candidate), ` (${inputText(current)}), ranks ${place + 1} of ${alts.candidates.length}: it ${standing(current)}.`)
+  }
+  return [...out, ...rcompSentence(alts, input)]
+}
+
+/**
+ * With a compensation resistor in the circuit: what it balances with the FET-input
+ * candidates (IB·rcomp, bias current at its worst over the range) and what it costs (its
+ * own thermal noise at the output).
+ */
+function rcompSentence(alts: StageAlternatives, input: StageInput): Phrase[] {
+  const r = input.rcomp?.value ?? 0
+  const fets = alts.candidates.filter((a) => a.inputType === 'jfet' || a.inputType === 'cmos')
+  if (r <= 0 || fets.length === 0) return []
+  const ib = Math.max(...fets.map((a) => a.result.bias.ibMax))
+  const noise = Math.max(...fets.map((a) => a.result.noise.contributors.find((c) => c.key === 'r:rcomp')?.outputRms ?? 0))
+  return [' With the JFET and CMOS candidates the bias current that ', code('rcomp'), ` = ${q(r, 'Ω')} is there to balance is at most ${q(ib, 'A')} over the range, ` +
+    `so IB·rcomp is at most ${q(ib * r, 'V')}, while the resistor’s own thermal noise reaches ${q(noise, 'V')} rms at the output: with those inputs it costs noise and buys no DC accuracy.`]
+}
+
+/** The section's blocks; none when the stage did not ask for alternatives. */
+export function alternativesBlocks(ctx: ReportContext, ev: StageEvaluation): BlockContent[] {
+  const alts = ev.alternatives
+  if (alts === null) return []
+  const {input} = ev
+  const ina = input.topology === 'instrumentation'
+  const kind = ina ? 'instrumentation amplifier' : 'op-amp'
+  const intro = paragraph(
+    `The same circuit — resistors, supply, temperature range, band and requirements unchanged — evaluated with each ${kind} block of this note and each built-in ${kind} archetype ` +
+    `(${alts.candidates.length} candidates; archetype rows are representative of their class, not real parts). ` +
+    'Rows are ranked: fewest verdicts not met (requirements and checked limits), then the smallest worst-case DC error relative to its requirement, then the lowest output noise. ' +
+    'The dominant term is the largest DC contributor with its share of the worst case.')
+  if (alts.candidates.length === 0) return [heading(3, 'Input-technology alternatives'), intro, paragraph('No candidate could be evaluated.')]
+  const reqs = alts.candidates[0]!.result.requirements.filter(isRequire).map((r) => r.key)
+  const header: Phrase[] = ['#', 'Candidate', 'Input type', 'Worst-case DC error', 'Output noise, rms', ...(ina ? [] : ['Phase margin']), 'Dominant DC term',
+    ...reqs.map((k) => code(k)), 'Limits']
+  const rows = alts.ranking.map((i, rank) => {
+    const a = alts.candidates[i]!
+    const verdicts = reqs.map((k) => {
+      const r = a.result.requirements.find((x) => x.key === k)
+      return r === undefined ? '—' : MARK[verdictOf(r)]
+    })
+    const name: PhrasingContent[] = a.current ? [code(a.candidate), {type: 'text', value: ' (in use)'}] : [code(a.candidate)]
+    return [
+      String(rank + 1), name, INPUT_TYPE_LABELS[a.inputType], q(a.result.dc.worstCaseOutput, 'V'), q(a.result.noise.outputRms, 'V'),
+      ...(ina ? [] : [deg(a.result.stability.phaseMargin)]), dominantCell(a), ...verdicts, limitsCell(a.result.requirements)
+    ]
+  })
+  const align: AlignType[] = ['right', 'left', 'left', 'right', 'right', ...(ina ? [] : ['right' as const]), 'left', ...reqs.map(() => 'center' as const), 'left']
+  return [
+    heading(3, 'Input-technology alternatives'), intro,
+    caption(nextTable(ctx, `Alternatives of stage ${input.id}, best-scoring first (✓ met, ✗ not met)`)),
+    table(header, rows, align),
+    paragraph(...bestSentence(alts, input))
+  ]
+}
