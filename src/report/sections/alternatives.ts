@@ -4,10 +4,10 @@
  * sentence naming the best-scoring candidate by its id and input type. The evaluation and
  * the score are src/evaluate/alternatives.ts's; this only lays them out.
  */
-import type {AlignType, BlockContent, PhrasingContent} from 'mdast'
+import type {BlockContent, PhrasingContent} from 'mdast'
 import type {AlternativeEvaluation, StageAlternatives, StageEvaluation} from '../../evaluate/index.js'
 import {isRequire, type RequirementResult, type StageInput} from '../../engine/types.js'
-import {INPUT_TYPE_LABELS} from '../../results/labels.js'
+import {DC_LABELS, INPUT_TYPE_LABELS} from '../../results/labels.js'
 import {nextTable, type ReportContext} from '../context.js'
 import {deg, pct, q} from '../format.js'
 import {caption, code, heading, paragraph, table, type Phrase} from '../mdast.js'
@@ -26,11 +26,12 @@ function limitsCell(rows: readonly RequirementResult[]): string {
   return failed.length === 0 ? MARK.met : `${MARK['not-met']} ${failed.join(', ')}`
 }
 
-function dominantCell(a: AlternativeEvaluation): Phrase[] {
-  if (a.dominant === null) return ['—']
+/** The dominant term by its label (short words wrap in a narrow column), with its share of the worst case. */
+function dominantCell(a: AlternativeEvaluation): string {
+  if (a.dominant === null) return '—'
   const c = a.result.dc.contributors.find((x) => x.key === a.dominant)
   const share = c !== undefined && a.result.dc.worstCaseOutput > 0 ? ` (${pct(c.output / a.result.dc.worstCaseOutput)})` : ''
-  return [code(a.dominant), share]
+  return `${DC_LABELS[a.dominant]}${share}`
 }
 
 /** How a candidate stands against the requirements, for the sentence. */
@@ -47,7 +48,7 @@ function dcText(a: AlternativeEvaluation): string {
   const wc = q(a.result.dc.worstCaseOutput, 'V')
   const {dcRatio, dcRequirement} = a.score
   return dcRatio === null || dcRequirement === null ? `worst-case DC error ${wc} at the output`
-    : `worst-case DC error ${wc} at the output (${Number.isFinite(dcRatio) ? pct(dcRatio) : 'beyond'} of the ${dcRequirement} limit)`
+    : `worst-case DC error ${wc} at the output (its tightest DC requirement, ${dcRequirement}, at ${Number.isFinite(dcRatio) ? pct(dcRatio) : 'no finite share'} of its limit)`
 }
 
 function bestSentence(alts: StageAlternatives, input: StageInput): Phrase[] {
@@ -91,29 +92,34 @@ export function alternativesBlocks(ctx: ReportContext, ev: StageEvaluation): Blo
   const intro = paragraph(
     `The same circuit — resistors, supply, temperature range, band and requirements unchanged — evaluated with each ${kind} block of this note and each built-in ${kind} archetype ` +
     `(${alts.candidates.length} candidates; archetype rows are representative of their class, not real parts). ` +
-    'Rows are ranked: fewest verdicts not met (requirements and checked limits), then the smallest worst-case DC error relative to its requirement, then the lowest output noise. ' +
-    'The dominant term is the largest DC contributor with its share of the worst case.')
+    'Candidates are ranked: fewest verdicts not met (requirements and checked limits), then the smallest worst-case DC error relative to its requirement, then the lowest output noise. ' +
+    'The first table gives each candidate’s figures, the dominant term being its largest DC contributor with its share of the worst case; the second its verdicts.')
   if (alts.candidates.length === 0) return [heading(3, 'Input-technology alternatives'), intro, paragraph('No candidate could be evaluated.')]
-  const reqs = alts.candidates[0]!.result.requirements.filter(isRequire).map((r) => r.key)
-  const header: Phrase[] = ['#', 'Candidate', 'Input type', 'Worst-case DC error', 'Output noise, rms', ...(ina ? [] : ['Phase margin']), 'Dominant DC term',
-    ...reqs.map((k) => code(k)), 'Limits']
-  const rows = alts.ranking.map((i, rank) => {
-    const a = alts.candidates[i]!
-    const verdicts = reqs.map((k) => {
-      const r = a.result.requirements.find((x) => x.key === k)
-      return r === undefined ? '—' : MARK[verdictOf(r)]
-    })
-    const name: PhrasingContent[] = a.current ? [code(a.candidate), {type: 'text', value: ' (in use)'}] : [code(a.candidate)]
-    return [
-      String(rank + 1), name, INPUT_TYPE_LABELS[a.inputType], q(a.result.dc.worstCaseOutput, 'V'), q(a.result.noise.outputRms, 'V'),
-      ...(ina ? [] : [deg(a.result.stability.phaseMargin)]), dominantCell(a), ...verdicts, limitsCell(a.result.requirements)
-    ]
-  })
-  const align: AlignType[] = ['right', 'left', 'left', 'right', 'right', ...(ina ? [] : ['right' as const]), 'left', ...reqs.map(() => 'center' as const), 'left']
+  const ranked = alts.ranking.map((i) => alts.candidates[i]!)
+  const nameCell = (a: AlternativeEvaluation): PhrasingContent[] => (a.current ? [code(a.candidate), {type: 'text', value: ' (in use)'}] : [code(a.candidate)])
+  const figures = table(
+    ['#', 'Candidate', 'Input type', 'Worst-case DC error', 'Output noise, rms', ...(ina ? [] : ['Phase margin']), 'Dominant DC term'],
+    ranked.map((a, rank) => [
+      String(rank + 1), nameCell(a), INPUT_TYPE_LABELS[a.inputType], q(a.result.dc.worstCaseOutput, 'V'), q(a.result.noise.outputRms, 'V'),
+      ...(ina ? [] : [deg(a.result.stability.phaseMargin)]), dominantCell(a)
+    ]),
+    ['right', 'left', 'left', 'right', 'right', ...(ina ? [] : ['right' as const]), 'left'])
+  const reqs = ranked[0]!.result.requirements.filter(isRequire).map((r) => r.key)
+  const verdicts = table(
+    ['#', 'Candidate', ...reqs.map((k) => code(k)), 'Limits'],
+    ranked.map((a, rank) => [
+      String(rank + 1), nameCell(a),
+      ...reqs.map((k) => {
+        const r = a.result.requirements.find((x) => x.key === k)
+        return r === undefined ? '—' : MARK[verdictOf(r)]
+      }),
+      limitsCell(a.result.requirements)
+    ]),
+    ['right', 'left', ...reqs.map(() => 'center' as const), 'left'])
   return [
     heading(3, 'Input-technology alternatives'), intro,
-    caption(nextTable(ctx, `Alternatives of stage ${input.id}, best-scoring first (✓ met, ✗ not met)`)),
-    table(header, rows, align),
+    caption(nextTable(ctx, `Alternatives of stage ${input.id}, best-scoring first`)), figures,
+    caption(nextTable(ctx, `Verdicts of the alternatives of stage ${input.id} (✓ met, ✗ not met, – not evaluated)`)), verdicts,
     paragraph(...bestSentence(alts, input))
   ]
 }
