@@ -85,6 +85,12 @@ describe('evaluateAlternatives()', () => {
     expect(r.candidates.find((c) => c.current)!.result).toBe(own)
   })
 
+  it('leaves out a candidate the engine refuses, with a warning that names it', () => {
+    const {alts: r, messages: m} = alternativesOf(stage, [opampBlock('no-gbw', testOpamp({name: 'no-gbw', gbw: 0}))])
+    expect(r.candidates.map((c) => c.candidate)).toEqual([...ARCHETYPE_NAMES])
+    expect(m.map((x) => [x.fatal, x.ruleId, x.reason.split(':')[0]])).toEqual([[false, 'alternative-failed', 'Alternative `no-gbw` of stage `test-stage` could not be evaluated']])
+  })
+
   it('differs between candidates where the input type matters: the JFET’s bias terms are far below the general bipolar’s', () => {
     const ibOf = (name: string): number => alts.candidates.find((c) => c.candidate === name)!.result.dc.contributors.find((c) => c.key === 'ios')!.output
     expect(ibOf('precision-jfet')).toBeLessThan(ibOf('general-bipolar') / 1000)
