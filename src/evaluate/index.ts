@@ -80,7 +80,7 @@ function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNot
     const result = evaluateStage(input)
     const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
     const alternatives = block.alternatives === true || options.alternatives === true
-      ? evaluateAlternatives(input, result, parsed.opamps, file, block.position?.start) : null
+      ? evaluateAlternatives(input, result, [...parsed.opamps, ...(parsed.inas ?? [])], file, block.position?.start) : null
     return {block, input, result, notes, role: roleOf(block), alternatives}
   } catch (error) {
     const m = file.message(

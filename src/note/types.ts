@@ -97,6 +97,8 @@ export interface ParsedNote {
   adcs?: import('./chain-types.js').AdcBlockNode[]
   /** Chain blocks (DESIGN §8.6), in document order. */
   chains?: import('./chain-types.js').ChainBlockNode[]
+  /** `ina` blocks (DESIGN §8.2), in document order (their node carries `ina`, never `opamp`). */
+  inas?: OpampBlockNode[]
 }
 
 declare module 'mdast' {

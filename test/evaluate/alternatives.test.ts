@@ -158,6 +158,15 @@ describe('alternatives in a note', () => {
     expect(stages[0]!.alternatives?.candidates.slice(0, 2).map((c) => `${c.candidate}:${c.inputType}`)).toEqual(['above-amp:cmos', 'below-amp:cmos'])
   })
 
+  it('give an instrumentation stage the note’s ina blocks, the one in use marked, and the INA archetypes', async () => {
+    const {readFileSync} = await import('node:fs')
+    const {join} = await import('node:path')
+    const md = readFileSync(join(import.meta.dirname, '..', 'fixtures', 'topologies', 'instrumentation.md'), 'utf8')
+    const {stages} = evaluatedOf(md.replace('band: 0.1 .. 1k Hz', 'band: 0.1 .. 1k Hz\nalternatives: true'))
+    const alts = stages[0]!.alternatives!
+    expect(alts.candidates.map((c) => `${c.candidate}${c.current ? ' (in use)' : ''}`)).toEqual(['my-ina (in use)', ...INA_ARCHETYPE_NAMES])
+  })
+
   it('are evaluated for every stage with the option on', async () => {
     const {parseNote} = await import('../../src/note/index.js')
     const {evaluateNote} = await import('../../src/evaluate/index.js')
