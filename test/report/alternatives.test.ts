@@ -77,7 +77,8 @@ describe('alternatives in the soil-potential-input sample', async () => {
   it('says where the amplifier in use ranks when it is not the best, and what rcomp buys the FET inputs', () => {
     const place = cells(bipolar.figures).findIndex((r) => r[1] === 'stock-bipolar (in use)')
     expect(bipolar.sentence).toContain(`The amplifier in use, stock-bipolar (bipolar input), ranks ${place} of 8`)
-    expect(bipolar.sentence).toMatch(/IB·rcomp is at most [\d.]+ µV, while the resistor’s own thermal noise reaches [\d.]+ nV rms at the output/)
+    expect(bipolar.sentence).toMatch(/IB·rcomp is at most [\d.]+ µV, [\d.]+ µV at the output: [\d.]+ % of the smallest worst-case DC error among them\. /)
+    expect(bipolar.sentence).toMatch(/The resistor’s own thermal noise reaches [\d.]+ nV rms at the output, so with those inputs it costs noise and buys little DC accuracy\.$/)
     expect(cmos.sentence).not.toContain('rcomp')
   })
 
@@ -109,6 +110,15 @@ describe('alternatives in a stage section', () => {
     const sentence = alternativesOf(sectionOf(report.document.body.children, 'amp'))!.sentence
     expect(sentence.startsWith(`Best-scoring candidate: ${expected.candidate} (`)).toBe(true)
     expect(expected.candidate).not.toBe('zero-drift')
+  })
+
+  it('draw no conclusion on rcomp when the FET inputs’ bias current through it is not small', async () => {
+    // 125 °C doubles a FET input's bias current ten times over: nanoamperes through 10 MΩ.
+    const md = gainStage('amp', '10k', '1k', '-10m .. 10m V', '\nrcomp: 10M\ntemperature: 25 .. 125 °C\nalternatives: true')
+    const {report} = await reportOfText(md)
+    const sentence = alternativesOf(sectionOf(report.document.body.children, 'amp'))!.sentence
+    expect(sentence).toMatch(/The resistor’s own thermal noise reaches [\d.]+ [nµ]V rms at the output\.$/)
+    expect(sentence).not.toContain('buys little')
   })
 
   it('say so when no candidate meets every requirement', async () => {

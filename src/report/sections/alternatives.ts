@@ -1,8 +1,9 @@
 /**
  * The stage's input-technology alternatives (DESIGN §8.8): the same circuit with each
- * candidate amplifier, one row per candidate in score order, the one in use marked, and a
- * sentence naming the best-scoring candidate by its id and input type. The evaluation and
- * the score are src/evaluate/alternatives.ts's; this only lays them out.
+ * candidate amplifier, as two tables in score order (figures; verdicts per requirement),
+ * the one in use marked, and a sentence naming the best-scoring candidate by its id and
+ * input type. The evaluation and the score are src/evaluate/alternatives.ts's; this only
+ * lays them out.
  */
 import type {BlockContent, PhrasingContent} from 'mdast'
 import type {AlternativeEvaluation, StageAlternatives, StageEvaluation} from '../../evaluate/index.js'
@@ -64,22 +65,30 @@ function bestSentence(alts: StageAlternatives, input: StageInput): Phrase[] {
     const current = alts.candidates[alts.ranking[place]!]
     if (current !== undefined) out.push(` The amplifier in use, `, code(current.candidate), ` (${inputText(current)}), ranks ${place + 1} of ${alts.candidates.length}: it ${standing(current)}.`)
   }
-  return [...out, ...rcompSentence(alts, input)]
+  return [...out, ...rcompSentence(alts, input, best.result.noiseGain)]
 }
 
+/** At most this share of the smallest worst case, what rcomp could balance is called little (our choice). */
+const LITTLE = 0.05
+
 /**
- * With a compensation resistor in the circuit: what it balances with the FET-input
- * candidates (IB·rcomp, bias current at its worst over the range) and what it costs (its
- * own thermal noise at the output).
+ * With a compensation resistor in the circuit: what it could balance with the FET-input
+ * candidates (IB·rcomp, bias current at its worst over the range, times the noise gain at
+ * the output) and what it costs (its own thermal noise at the output).
  */
-function rcompSentence(alts: StageAlternatives, input: StageInput): Phrase[] {
+function rcompSentence(alts: StageAlternatives, input: StageInput, noiseGain: number): Phrase[] {
   const r = input.rcomp?.value ?? 0
   const fets = alts.candidates.filter((a) => a.inputType === 'jfet' || a.inputType === 'cmos')
   if (r <= 0 || fets.length === 0) return []
   const ib = Math.max(...fets.map((a) => a.result.bias.ibMax))
   const noise = Math.max(...fets.map((a) => a.result.noise.contributors.find((c) => c.key === 'r:rcomp')?.outputRms ?? 0))
+  const balanced = ib * r * noiseGain
+  const smallest = Math.min(...fets.map((a) => a.result.dc.worstCaseOutput))
+  const little = smallest > 0 && balanced <= LITTLE * smallest
+  const share = smallest > 0 ? `: ${pct(balanced / smallest)} of the smallest worst-case DC error among them` : ''
   return [' With the JFET and CMOS candidates the bias current that ', code('rcomp'), ` = ${q(r, 'Ω')} is there to balance is at most ${q(ib, 'A')} over the range, ` +
-    `so IB·rcomp is at most ${q(ib * r, 'V')}, while the resistor’s own thermal noise reaches ${q(noise, 'V')} rms at the output: with those inputs it costs noise and buys no DC accuracy.`]
+    `so IB·rcomp is at most ${q(ib * r, 'V')}, ${q(balanced, 'V')} at the output${share}. The resistor’s own thermal noise reaches ${q(noise, 'V')} rms at the output` +
+    (little ? ', so with those inputs it costs noise and buys little DC accuracy.' : '.')]
 }
 
 /** The section's blocks; none when the stage did not ask for alternatives. */
