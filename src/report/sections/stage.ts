@@ -16,6 +16,7 @@ import {dcFigure, loopFigure, noiseFigures, responseFigure} from './figures.js'
 import {AS_WRITTEN, archetypeNotice, entriesTable, inaValuesTable} from './parameters.js'
 import {INA_ARCHETYPE_DISCLAIMER} from '../../engine/ina-archetypes.js'
 import {requirementBlocks} from './requirements.js'
+import {alternativesBlocks} from './alternatives.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
 import type {StageInput} from '../../engine/types.js'
@@ -141,6 +142,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   }
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
+  out.push(...alternativesBlocks(ctx, ev))
   out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared, input.id, ctx.coverNotes))
   return out
 }
