@@ -91,7 +91,9 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   const op = input.opamp
   const out: BlockContent[] = [
     heading(2, `Stage ${input.id} — ${input.title}`),
-    paragraph(`${TOPOLOGY_LABELS[input.topology]} on ${input.ina ? 'instrumentation amplifier' : 'op-amp'} `, code(op.name), op.archetype ? ' (archetype).' : '.')
+    input.ina
+      ? paragraph('Integrated instrumentation amplifier ', code(op.name), op.archetype ? ' (archetype).' : '.')
+      : paragraph(`${TOPOLOGY_LABELS[input.topology]} on op-amp `, code(op.name), op.archetype ? ' (archetype).' : '.')
   ]
   out.push(schematicBlock(ctx, input))
   if (input.ina) {
