@@ -8,6 +8,8 @@ import type {StageEvaluation} from '../evaluate/index.js'
 import type {JsonChain} from './chain-json.js'
 
 export {jsonChain, type JsonChain} from './chain-json.js'
+import {jsonAlternatives, type JsonAlternative} from './alternatives-json.js'
+export type {JsonAlternative} from './alternatives-json.js'
 import type {Topology} from '../engine/types.js'
 import type {StageRole} from '../note/types.js'
 import type {NoteRuleId} from '../rules/index.js'
@@ -55,6 +57,8 @@ export interface JsonStage {
   notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
   /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
   role: StageRole
+  /** The stage with each candidate amplifier (DESIGN §8.8); null when not asked for. */
+  alternatives: JsonAlternative[] | null
   /** The Monte Carlo over the DC budget (DESIGN §8.7); null when off. */
   yield: JsonYield | null
 }
@@ -148,6 +152,7 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
     role: ev.role,
+    alternatives: ev.alternatives === null ? null : jsonAlternatives(ev.alternatives),
     yield: jsonYield(r.yield)
   }
 }
