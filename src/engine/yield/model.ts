@@ -76,10 +76,14 @@ export interface YieldModel {
   nominal: Float64Array
   /** Indices (R_INDEX) of the resistors that move. */
   moving: Int32Array
-  /** The variables as typed arrays for the trial loop: slot, kind and scale of each. */
+  /**
+   * The variables as typed arrays for the trial loop, grouped by kind: slots and scales of the
+   * symmetric uniforms [0, kindEnds[0]), the truncated normals [kindEnds[0], kindEnds[1]) and
+   * the positive uniforms [kindEnds[1], end).
+   */
   varSlot: Int32Array
-  varKind: Int8Array
   varScale: Float64Array
+  kindEnds: [number, number]
   vref: number
   /** Nominal transfers: vos → out, (ib+ − ib−) → out, source current → out. */
   kVos: number
@@ -154,9 +158,7 @@ export function yieldModel(input: StageInput, distribution: YieldDistribution): 
     temperatures,
     nominal,
     moving: new Int32Array(moving),
-    varSlot: Int32Array.from(variables, (v) => v.slot),
-    varKind: Int8Array.from(variables, (v) => v.kind),
-    varScale: Float64Array.from(variables, (v) => v.scale),
+    ...groupedByKind(variables),
     vref: input.vref,
     kVos: out({vos: 1}),
     kIos: out({ibPlus: 0.5, ibMinus: -0.5}),
@@ -168,6 +170,13 @@ export function yieldModel(input: StageInput, distribution: YieldDistribution): 
     iosResidual: residual(bias.iosMax, op.ios),
     idarkResidual: residual(bias.idarkMax, input.idark)
   }
+}
+
+function groupedByKind(variables: readonly YieldVariable[]): Pick<YieldModel, 'varSlot' | 'varScale' | 'kindEnds'> {
+  const order = [DrawKind.Symmetric, DrawKind.Normal, DrawKind.Positive].flatMap((kind) => variables.filter((v) => v.kind === kind))
+  const symmetric = variables.filter((v) => v.kind === DrawKind.Symmetric).length
+  const normal = variables.filter((v) => v.kind === DrawKind.Normal).length
+  return {varSlot: Int32Array.from(order, (v) => v.slot), varScale: Float64Array.from(order, (v) => v.scale), kindEnds: [symmetric, symmetric + normal]}
 }
 
 export const tolSlot = (resistorIndex: number): number => TOL0 + resistorIndex

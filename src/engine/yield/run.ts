@@ -36,15 +36,21 @@ const STREAM_B = 64
 
 /** Fill `vals` (SLOT_COUNT long) with one trial's draws; inactive slots stay 0. */
 export function drawTrial(model: YieldModel, key: number, vals: Float64Array, stream = 0): void {
+  // One loop per kind (the variables are grouped by kind in the model), no branch per draw.
   const slots = model.varSlot
-  const kinds = model.varKind
   const scales = model.varScale
-  for (let k = 0; k < slots.length; k++) {
+  const [symmetricEnd, normalEnd] = model.kindEnds
+  for (let k = 0; k < symmetricEnd; k++) {
     const slot = slots[k]
-    const kind = kinds[k]
-    const scale = scales[k]
-    const u = uniformOf(key, slot + stream)
-    vals[slot] = kind === DrawKind.Normal ? truncatedNormal(u, scale) : kind === DrawKind.Symmetric ? scale * (2 * u - 1) : scale * u
+    vals[slot] = scales[k] * (2 * uniformOf(key, slot + stream) - 1)
+  }
+  for (let k = symmetricEnd; k < normalEnd; k++) {
+    const slot = slots[k]
+    vals[slot] = truncatedNormal(uniformOf(key, slot + stream), scales[k])
+  }
+  for (let k = normalEnd; k < slots.length; k++) {
+    const slot = slots[k]
+    vals[slot] = scales[k] * uniformOf(key, slot + stream)
   }
 }
 
