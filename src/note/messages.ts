@@ -103,6 +103,8 @@ export const noteMessages = {
   yieldTrials: (value: string, max: number) =>
     `Unexpected ${q(value)} for \`yield.trials\`, expected a whole number of trials from 1 to ${max.toLocaleString('en-US')} (\`100k\`, \`1M\`, \`20000\`)`,
   yieldRequirement: (value: string) => `Unexpected ${q(value)} for \`require.yield\`, expected a minimum yield above 0 % and at most 100 % (\`99.7 %\`)`,
+  yieldWithoutDcRequirement: () =>
+    'Unexpected `yield` without a DC error requirement, expected it beside `output-error`, `input-error` or their `-calibrated` forms (the yield is the share of trials meeting them)',
   yieldSeed: (value: string) => `Unexpected ${q(value)} for \`yield.seed\`, expected a whole number from 0 to 4294967295`,
   yieldUnknownKey: (key: string, suggestion: string | null, known: readonly string[]) =>
     `Unexpected key ${q(key)} in \`yield\`, expected ${suggestion === null ? `one of ${known.map(q).join(', ')}` : `${q(suggestion)}`}`,

@@ -4,7 +4,7 @@
  * look at several keys, defaults and the assembly of `StageInput` are in `stage-block.ts`.
  */
 import type {Point} from 'unist'
-import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, type Calibration, type RequirementKey, type Topology, type YieldOptions} from '../engine/types.js'
+import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, YIELD_KEYS, type Calibration, type RequirementKey, type Topology, type YieldOptions} from '../engine/types.js'
 import {readYield} from './yield-read.js'
 import type {Dimension} from '../units/index.js'
 import type {Field} from './block-yaml.js'
@@ -88,6 +88,12 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
       continue
     }
     read.require[key] = q.value
+  }
+  // A yield is counted against the stage's DC error requirements (DESIGN §8.7): without one it has nothing to count.
+  const yieldField = v.fields.find((f) => f.key === 'require.yield')
+  if (read.require.yield !== undefined && yieldField !== undefined && !YIELD_KEYS.some((k) => read.require[k] !== undefined)) {
+    report.error(noteMessages.yieldWithoutDcRequirement(), yieldField.keyAt, 'bad-value')
+    delete read.require.yield
   }
 }
 

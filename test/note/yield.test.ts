@@ -42,8 +42,10 @@ describe('stage key `yield`', () => {
     const r = blocksOf(note(['require:', '  output-error: 2 mV', '  yield: 99.7 %']))
     expect(r.diagnostics).toEqual([])
     expect(r.stages[0]?.input?.require.yield).toBeCloseTo(0.997, 12)
-    expect(blocksOf(note(['require:', '  yield: 120 %'])).diagnostics[0]).toMatch(/require.yield/)
-    expect(blocksOf(note(['require:', '  yield: 0 %'])).diagnostics[0]).toMatch(/require.yield/)
+    expect(blocksOf(note(['require:', '  output-error: 2 mV', '  yield: 120 %'])).diagnostics[0]).toMatch(/require.yield/)
+    expect(blocksOf(note(['require:', '  output-error: 2 mV', '  yield: 0 %'])).diagnostics[0]).toMatch(/require.yield/)
+    const alone = blocksOf(note(['require:', '  noise-rms: 30 uV', '  yield: 99 %']))
+    expect(alone.diagnostics[0]).toMatch(new RegExp(`^${LINE + 2}:3: error: Unexpected \`yield\` without a DC error requirement`))
   })
   it('parseTrials: k and M multipliers, whole numbers only', () => {
     expect(parseTrials('100k')).toBe(100_000)

@@ -67,3 +67,14 @@ describe('compare reports yield changes', () => {
     expect(compareRuns(a, a).changes).toEqual([])
   })
 })
+
+describe('the yield verdict as printed', () => {
+  it('prints the value and limit as percentages and the margin in percentage points', async () => {
+    const {requirementValue, margin, limitText} = await import('../../src/report/verdicts.js')
+    const row = {key: 'yield', kind: 'require', limit: 0.997, value: 0.99953, met: true} as const
+    expect(requirementValue(row, 'value', 'noninverting')).toBe('99.953 %')
+    expect(limitText(row, 'noninverting')).toBe('≥ 99.70 %')
+    expect(margin(row, 'noninverting')).toBe('0.25 percentage points')
+    expect(requirementValue({...row, value: null, met: false}, 'value', 'noninverting')).toBe('—')
+  })
+})
