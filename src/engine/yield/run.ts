@@ -39,7 +39,9 @@ export function drawTrial(model: YieldModel, key: number, vals: Float64Array, st
   // One loop per kind (the variables are grouped by kind in the model), no branch per draw.
   const slots = model.varSlot
   const scales = model.varScale
-  const [symmetricEnd, normalEnd] = model.kindEnds
+  // Indexed, not destructured: array destructuring runs the iterator protocol every trial.
+  const symmetricEnd = model.kindEnds[0]
+  const normalEnd = model.kindEnds[1]
   for (let k = 0; k < symmetricEnd; k++) {
     const slot = slots[k]
     vals[slot] = scales[k] * (2 * uniformOf(key, slot + stream) - 1)
@@ -183,7 +185,7 @@ export function trialBlock(m: YieldModel, seed: number, from: number, to: number
   const out = new Float64Array(n)
   const outCal = new Float64Array(n)
   for (let t = from; t < to; t++) {
-    drawTrial(m, trialKey(sk, t), vals)
+    drawTrial(m, trialKey(sk, t), vals, 0)
     err[t - from] = trialMax(m, vals, s, out, outCal)
     errCal[t - from] = s.maxCal
     if (sums !== undefined && t < sums.rows) {
