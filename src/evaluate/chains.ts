@@ -9,7 +9,7 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {dcAnalysis, evaluateChain, evaluateInstrumentation, operatingPoints, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import {dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
 import {chainMessages} from '../note/chain-messages.js'
@@ -29,7 +29,10 @@ export interface ChainEvaluation {
 
 /** The output span [low, high] of a stage over its input range (V). */
 export function outputSpanOf(input: StageInput): [number, number] {
-  const v = operatingPoints(input).map((p) => p.vout)
+  // An instrumentation stage has no netlist: G·vd + vref from its block model (DESIGN §8.2).
+  const v = input.topology === 'instrumentation' && input.ina !== null && input.rg !== null
+    ? input.input.map((vd) => inaGain(input.ina!, input.rg!.value) * vd + input.vref)
+    : operatingPoints(input).map((p) => p.vout)
   return [Math.min(...v), Math.max(...v)]
 }
 

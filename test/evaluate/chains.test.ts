@@ -4,6 +4,7 @@
  * stage's own evaluation.
  */
 import {describe, expect, it} from 'vitest'
+import {outputSpanOf} from '../../src/evaluate/index.js'
 import {evaluatedOf, fence, gainStage} from './helpers.js'
 
 describe('evaluateNoteWithChains()', () => {
@@ -70,5 +71,19 @@ describe('a chain whose first stage is an instrumentation amplifier', () => {
     expect(front.find((x) => x.key === 'gain-error')!.output).toBe(0)
     expect(front.find((x) => x.key === 'psrr')!.output).toBeGreaterThan(0)
     expect(cal.worstCaseOutput).toBeLessThan(r.chains[0]!.result.dc.worstCaseOutput)
+  })
+})
+
+describe('outputSpanOf()', () => {
+  it('gives an instrumentation stage’s G·vd + vref from its block model (no netlist)', () => {
+    const md = fence('stage front', 'topology: instrumentation\nina: precision-ina\nrg: 494\ninput: -10m .. 20m V\nvref: 0.5 V\nsupply: ±15 V\nband: 0.1 .. 10 Hz')
+    const r = evaluatedOf(md)
+    const s = r.stages[0]!
+    const g = s.result.gain
+    const [lo, hi] = outputSpanOf(s.input)
+    expect(lo).toBeCloseTo(-0.01 * g + 0.5, 12)
+    expect(hi).toBeCloseTo(0.02 * g + 0.5, 12)
+    expect(lo).toBeCloseTo(s.result.swing.outputSpan[0], 12)
+    expect(hi).toBeCloseTo(s.result.swing.outputSpan[1], 12)
   })
 })
