@@ -53,19 +53,18 @@ function check({result, stages}: ChainRuleContext): RuleFinding[] {
     if (rin === null || !(rin.ohms > 0)) continue
     const divider = riso / (riso + rin.ohms)
     const atOutput = divider * fullScale
-    const where = rin.atDc
-      ? `a gain error of ${formatQuantity(atOutput, 'V')} at the chain output's full scale (${formatQuantity(fullScale, 'V')})` +
-        (lsb === null ? '' : `, ${(atOutput / lsb).toPrecision(3)} LSB`) + ', not in the chain\'s DC budget'
-      : `at DC the Sallen–Key input draws no current, but in and above its passband the input impedance falls towards r1 and the response ` +
-        `there is off by up to that much (${formatQuantity(atOutput, 'V')} at the chain output's full scale), not in the chain's figures`
-    out.push({
-      severity: 'caution',
-      text:
-        `Stage ${stages[k]!.input.id} drives stage ${next.id} through riso = ${formatQuantity(riso, 'Ω')} into its ${rin.what} = ${formatQuantity(rin.ohms, 'Ω')}: ` +
-        `the chain takes each stage as an ideal source, so the divider riso/(riso + Rin) = ${(divider * 100).toPrecision(3)} % is ${where}. ` +
-        `Consider counting riso in stage ${next.id}'s ${rin.what === 'r1' ? 'r1' : 'rg'} (reduce it by ${formatQuantity(riso, 'Ω')}); a gain calibration removes the ` +
-        '25 °C part, not the difference between the two resistors’ tempcos.'
-    })
+    const lead =
+      `Stage ${stages[k]!.input.id} drives stage ${next.id} through riso = ${formatQuantity(riso, 'Ω')} into its ${rin.what} = ${formatQuantity(rin.ohms, 'Ω')}: ` +
+      `the chain takes each stage as an ideal source, so the divider riso/(riso + Rin) = ${(divider * 100).toPrecision(3)} % is not in the chain's figures. `
+    const effect = rin.atDc
+      ? `It is a gain error of ${formatQuantity(atOutput, 'V')} at the chain output's full scale (${formatQuantity(fullScale, 'V')})` +
+        (lsb === null ? '' : `, ${(atOutput / lsb).toPrecision(3)} LSB`) + '. '
+      : 'At DC the Sallen–Key input draws no current, so the DC gain keeps its value; in and above the passband its input impedance falls ' +
+        `towards r1, and the response there is off by up to that much (${formatQuantity(atOutput, 'V')} at the chain output's full scale): ` +
+        'riso adds to r1 and moves f0 and Q. '
+    const advice = `Consider counting riso in stage ${next.id}'s ${rin.what === 'r1' ? 'r1' : 'rg'} (reduce it by ${formatQuantity(riso, 'Ω')})` +
+      (rin.atDc ? '; a gain calibration removes the 25 °C part, not the difference between the two resistors’ tempcos.' : '.')
+    out.push({severity: 'caution', text: lead + effect + advice})
   }
   return out
 }
