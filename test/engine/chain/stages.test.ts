@@ -146,6 +146,28 @@ describe('a chain from an instrumentation stage into an op-amp stage', () => {
   })
 })
 
+describe('the instrumentation stage’s pole in the chain’s response', () => {
+  // By hand: H = G/(1 + jf/fb), fb = gbw/G, is one pole; a fast unity follower after it
+  // (1 GHz op-amp) leaves it alone, so the chain's −3 dB bandwidth is fb and its alias
+  // rejection 10·lg(1 + ((fs − fH)/fb)²).
+  const a = inaStage()
+  const ra = realStage(a)
+  const f = stageInput({id: 'f', topology: 'follower', opamp: testOpamp({gbw: 1e9, aol: 1e7, cinDiff: 0, cinCm: 0}), rf: null, rg: null, rs: null, cstray: 0, input: [-1.1, 1.1]})
+  const rf = realStage(f)
+  const fb = a.ina!.gbw / ra.result.gain
+
+  it('gives the chain bandwidth gbw/G (0.1 %)', () => {
+    const r = evaluateChain(chainInput(['ina', 'f'], null, [0.1, 10]), [ra.view, rf.view])
+    expect(Math.abs(r.bandwidth! / fb - 1)).toBeLessThan(1e-3)
+  })
+
+  it('gives the alias rejection of one pole at gbw/G (0.01 dB)', () => {
+    const fs = 1e6, fH = 10
+    const r = evaluateChain(chainInput(['ina', 'f'], idealAdc(24, [-2.5, 2.5], fs), [0.1, fH]), [ra.view, rf.view])
+    expect(Math.abs(r.aliasRejection! - 10 * Math.log10(1 + ((fs - fH) / fb) ** 2))).toBeLessThan(0.01)
+  })
+})
+
 /** Sallen–Key, gain K = 1 + rf/rg = 2, f0 ≈ 1.57 kHz, Q ≈ 2 (fixture values of test/engine/helpers.ts). */
 const sallenKey = (over: Partial<StageInput> = {}): StageInput => stageInput({
   id: 'sk', topology: 'lowpass-sallen-key', opamp: testOpamp({gbw: 1e9, aol: 1e7, cinDiff: 0, cinCm: 0}), cstray: 0, r1: res(10e3, 0.001, 25e-6), r2: res(22e3, 0.001, 25e-6),
