@@ -190,7 +190,7 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
     const place = ev.block.position?.start
     for (const n of ev.notes) {
       if (n.severity !== 'warning' && n.severity !== 'caution') continue
-      file.message(`Chain \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place, ruleId: n.rule, source: 'ampreview'})
+      file.message(`Chain \`${ev.input.id}\`: ${n.text}`, {place, ruleId: n.rule, source: 'ampreview'})
     }
     for (const r of ev.result.requirements) {
       if (r.met !== false) continue
