@@ -180,15 +180,14 @@ async function renderNow(spec: TopLevelSpec, fonts: ChartFonts): Promise<ChartSv
   }
   try {
     await running
+    const failures = (): string[] => [...errors, ...warnings.filter((w) => w.startsWith('Loading failed') || w.startsWith('Data ingestion failed'))]
+    if (failures().length > 0) throw new Error(`Chart rendering failed: ${failures().join('; ')}`)
     // A pulse after the synchronous section would have laid text out with vega's estimate:
     // refuse the chart rather than draw it wrong (none of our specs does this).
     if (pulseStamp(view) !== stamp) throw new Error('Chart rendering failed: vega ran this chart asynchronously, outside the DejaVu text metric')
     vega.resetSVGDefIds()
     const svg = renumberDefIds(await view.toSVG())
-    const failed = warnings.filter((w) => w.startsWith('Loading failed') || w.startsWith('Data ingestion failed'))
-    if (errors.length > 0 || failed.length > 0) {
-      throw new Error(`Chart rendering failed: ${[...errors, ...failed].join('; ')}`)
-    }
+    if (failures().length > 0) throw new Error(`Chart rendering failed: ${failures().join('; ')}`)
     return {svg, width: svgSize(svg, 'width'), height: svgSize(svg, 'height'), warnings}
   } finally {
     view.finalize()
