@@ -12,7 +12,7 @@ import type {Root} from 'mdast'
 import {unified} from 'unified'
 import remarkParse from 'remark-parse'
 import remarkGfm from 'remark-gfm'
-import type {FontSet, Theme} from '../render/pdf/index.js'
+import type {FontSet, LoadedFonts, Theme} from '../render/pdf/index.js'
 import {parseTheme} from '../render/pdf/theme.js'
 
 /** The package root: two levels above this file, in src/ and in dist/ alike. */
@@ -36,6 +36,16 @@ const FONT_FILES: Record<keyof FontSet, string> = {
 export function lazyFonts(): () => Promise<FontSet> {
   let fonts: Promise<FontSet> | null = null
   return () => (fonts ??= loadFonts())
+}
+
+/**
+ * The fonts of `fonts` parsed for the PDF renderer, on the first call (fontkit loads only
+ * then, so `check` never does), the same parsed faces afterwards: one run's documents share
+ * the parsing and the shaping of each distinct string.
+ */
+export function lazyFaces(fonts: () => Promise<FontSet>): () => Promise<LoadedFonts> {
+  let faces: Promise<LoadedFonts> | null = null
+  return () => (faces ??= Promise.all([fonts(), import('../render/pdf/fonts.js')]).then(([set, m]) => m.loadFonts(set)))
 }
 
 export async function loadFonts(): Promise<FontSet> {
