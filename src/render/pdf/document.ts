@@ -99,6 +99,7 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
     outline: {stack: []},
     frame: {x: theme.margins.left, width: doc.page.width - theme.margins.left - theme.margins.right},
     listDepth: 0,
+    heights: new Map(),
     tight: false,
     anchors: new Map(),
     pageRefs: [],
