@@ -44,6 +44,8 @@ export interface Resources {
   /** The same fonts parsed for the PDF renderer, once a run (`lazyFaces`): shaping is shared by its notes. */
   faces: () => Promise<LoadedFonts>
   version: string
+  /** The bundle's own hash (`buildId`), for the build cache's key only; never printed. */
+  buildId: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
 }

@@ -23,6 +23,15 @@ export async function toolVersion(): Promise<string> {
   return pkg.version
 }
 
+/**
+ * The identity of the code that runs: `npm run build` writes the SHA-256 of the bundle to
+ * dist/bin/build-id.txt. The build cache keys on it beside the version, so a changed build
+ * of the same version never calls an earlier PDF up to date. Empty when not bundled.
+ */
+export async function buildId(): Promise<string> {
+  return readFile(join(PACKAGE_ROOT, 'dist', 'bin', 'build-id.txt'), 'utf8').then((s) => s.trim(), () => '')
+}
+
 const FONT_FILES: Record<keyof FontSet, string> = {
   regular: 'DejaVuSans.ttf',
   bold: 'DejaVuSans-Bold.ttf',

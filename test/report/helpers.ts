@@ -39,7 +39,7 @@ export async function compiledReportOf(path: string): Promise<ReportOutput & {fi
 /** Build a note to PDF in a fresh temporary folder; returns the outcome and the PDF bytes. */
 export async function pdfOf(path: string): Promise<{outcome: NoteOutcome; pdf: Uint8Array}> {
   const fonts = lazyFonts()
-  const res: Resources = {fonts, faces: lazyFaces(fonts), version: '0.0.0-test', templates: new Map()}
+  const res: Resources = {fonts, faces: lazyFaces(fonts), version: '0.0.0-test', buildId: '', templates: new Map()}
   const outDir = mkdtempSync(join(tmpdir(), 'ampreview-report-'))
   const outcome = await processNote(path, res, {formats: ['pdf'], outDir, strict: false, sourceDateEpoch: undefined})
   const pdfPath = outcome.outputs.find((o) => o.endsWith('.pdf'))
