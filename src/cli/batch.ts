@@ -112,7 +112,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
       const t0 = performance.now()
       let refusal = clashes[i] ?? null
       const source = building && refusal === null ? await readFile(note).then((x) => new Uint8Array(x), () => null) : null
-      const key = source === null ? null : buildKey({source, template: b.templateHash, version: res.version, options: optionsOf(note)})
+      const key = source === null ? null : buildKey({source, template: b.templateHash, version: `${res.version} ${res.buildId}`, options: optionsOf(note)})
       const cache = building && refusal === null ? await cacheFor(note) : null
       const hit = key !== null && cache !== null && !b.force ? await cache.hit(resolve(note), key) : null
       const cached = hit !== null && source !== null ? await fromCache(note, source, hit) : null

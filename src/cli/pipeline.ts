@@ -23,7 +23,7 @@ import {evaluateNoteWithChains, type ChainEvaluation, type StageEvaluation} from
 import {jsonChain, jsonStage, noteJson, toJson, type JsonChain, type JsonStage} from '../results/json.js'
 import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js'
-import type {FontSet} from '../render/pdf/index.js'
+import type {FontSet, LoadedFonts} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
 import {recordOf, type OutputRecord} from './cache.js'
@@ -41,7 +41,11 @@ export {MAX_NOTE_BYTES} from '../note/index.js'
 export interface Resources {
   /** The fonts, loaded once on first use (only builds need them). */
   fonts: () => Promise<FontSet>
+  /** The same fonts parsed for the PDF renderer, once a run (`lazyFaces`): shaping is shared by its notes. */
+  faces: () => Promise<LoadedFonts>
   version: string
+  /** The bundle's own hash (`buildId`), for the build cache's key only; never printed. */
+  buildId: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
 }
@@ -49,6 +53,7 @@ export interface Resources {
 /** What one note may read besides its own bytes: everything `runNote` gets from outside. */
 export interface NoteResources {
   fonts: () => Promise<FontSet>
+  faces: () => Promise<LoadedFonts>
   version: string
   template: (name: string) => Promise<Template>
   /** The images the note's tree names (messages for refused ones go on `file`). */
@@ -127,6 +132,7 @@ export {noteJson}
 export function noteResources(path: string, res: Resources): NoteResources {
   return {
     fonts: res.fonts,
+    faces: res.faces,
     version: res.version,
     template: async (name) => {
       const known = res.templates.get(name)
@@ -192,7 +198,7 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
     const place = ev.block.position?.start
     for (const n of ev.notes) {
       if (n.severity !== 'warning' && n.severity !== 'caution') continue
-      file.message(`Chain \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place, ruleId: n.rule, source: 'ampreview'})
+      file.message(`Chain \`${ev.input.id}\`: ${n.text}`, {place, ruleId: n.rule, source: 'ampreview'})
     }
     for (const r of ev.result.requirements) {
       if (r.met !== false) continue
@@ -275,7 +281,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   let renderWarnings: string[] = []
   if (wantPdf) {
     const rendered = await renderPdf(report.document, {
-      theme: template.theme, fonts, images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
+      theme: template.theme, fonts, faces: await res.faces(), images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
     files.push({name: outputName(name, 'pdf'), data: rendered.pdf})

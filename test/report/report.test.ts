@@ -156,7 +156,7 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
 
   it('shows the verdicts as words and the overall status on the cover', () => {
     expect(text).toContain('MET')
-    expect(text).toContain('Overall: all 12 requirements and physical limits of 2 stages met')
+    expect(text).toContain('Overall: all 15 requirements and physical limits of 2 stages and 1 chain met')
   })
 
   it('carries the compensation-resistor note with its three-way table', () => {
