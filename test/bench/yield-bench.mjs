@@ -62,19 +62,27 @@ export async function yieldBench({root, quick, stage, row}) {
 
   const oneThread = digest(errA)
   const cores = availableParallelism()
-  const chunk = Math.ceil(trials / cores)
-  const workers = Array.from({length: cores}, (_, k) =>
-    new Worker(WORKER, {eval: true, workerData: {engine: engineUrl, input, from: k * chunk, to: Math.min(trials, (k + 1) * chunk)}}))
-  await Promise.all(workers.map((w) => new Promise((ok) => w.once('message', ok))))
-  const t0 = performance.now()
-  const parts = await Promise.all(workers.map((w) => new Promise((ok) => { w.once('message', ok); w.postMessage('go') })))
-  const allCores = trials / ((performance.now() - t0) / 1000)
-  for (const w of workers) await w.terminate()
-  const joined = new Float64Array(trials)
-  parts.forEach((p, k) => joined.set(p.err, k * chunk))
-  const identical = digest(joined) === oneThread
-  row('b', `Monte Carlo trial loop, all ${cores} cores (worker threads)`, `${(allCores / 1e6).toFixed(2)} M trials/s`, '—')
-  row('b', `Monte Carlo errors, ${cores} workers vs one thread (sha-256)`, identical ? 'identical' : 'DIFFERENT', 'identical', identical)
+  /** The trials on `count` worker threads: the rate, and whether the joined errors equal the one-thread run's. */
+  const onWorkers = async (count) => {
+    const chunk = Math.ceil(trials / count)
+    const workers = Array.from({length: count}, (_, k) =>
+      new Worker(WORKER, {eval: true, workerData: {engine: engineUrl, input, from: k * chunk, to: Math.min(trials, (k + 1) * chunk)}}))
+    await Promise.all(workers.map((w) => new Promise((ok) => w.once('message', ok))))
+    const t0 = performance.now()
+    const parts = await Promise.all(workers.map((w) => new Promise((ok) => { w.once('message', ok); w.postMessage('go') })))
+    const rate = trials / ((performance.now() - t0) / 1000)
+    for (const w of workers) await w.terminate()
+    const joined = new Float64Array(trials)
+    parts.forEach((p, k) => joined.set(p.err, k * chunk))
+    return {rate, identical: digest(joined) === oneThread}
+  }
+  const all = await onWorkers(cores)
+  row('b', `Monte Carlo trial loop, all ${cores} cores (worker threads)`, `${(all.rate / 1e6).toFixed(2)} M trials/s`, '—')
+  const counts = [...new Set([1, 2, 4, cores])].sort((a, b) => a - b)
+  const same = []
+  for (const count of counts) same.push(count === cores ? all.identical : (await onWorkers(count)).identical)
+  const identical = same.every(Boolean)
+  row('b', `Monte Carlo errors on ${counts.join(' / ')} workers vs one thread (sha-256)`, identical ? 'identical' : 'DIFFERENT', 'identical', identical)
 
   const dc = evaluateStage(input).dc
   const ms = []

@@ -120,6 +120,18 @@ describe('determinism', () => {
     const whole = new Float64Array(1000)
     const wholeCal = new Float64Array(1000)
     trialBlock(m, 3, 0, 1000, whole, wholeCal)
+    // 1, 2 and 4 equal parts, as 1, 2 and 4 workers would take them.
+    for (const parts of [1, 2, 4]) {
+      const joined = new Float64Array(1000)
+      for (let k = 0; k < parts; k++) {
+        const from = (k * 1000) / parts
+        const to = ((k + 1) * 1000) / parts
+        const part = new Float64Array(to - from)
+        trialBlock(m, 3, from, to, part, new Float64Array(to - from))
+        joined.set(part, from)
+      }
+      expect(Buffer.from(joined.buffer).equals(Buffer.from(whole.buffer))).toBe(true)
+    }
     for (const cut of [1, 333, 512, 999]) {
       const a = new Float64Array(cut)
       const b = new Float64Array(1000 - cut)
