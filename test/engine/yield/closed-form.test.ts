@@ -20,7 +20,7 @@ export const CLOSED_FORM_STAGES: Record<string, () => StageInput> = {
   follower: () => stageFrom('engine', {topology: 'follower', rg: null, rf: res(10e3, 0.01), rcomp: res(2e3, 0.01)}),
   'follower-wire': () => stageFrom('engine', {topology: 'follower', rg: null, rf: null}),
   transimpedance: () =>
-    stageFrom('engine', {topology: 'transimpedance', rg: null, rs: null, rf: res(1e6, 0.001), rshunt: 50e6, rcomp: res(1e6, 0.01), vref: 0.5, input: [0, 1e-6]}),
+    stageFrom('engine', {topology: 'transimpedance', rg: null, rs: null, rf: res(1e6, 0.001), rshunt: 50e6, rcomp: res(1e6, 0.01), vref: 0.5, input: [0, 1e-6], idark: 2e-9}),
   difference: () =>
     stageFrom('engine', {
       topology: 'difference', rf: res(40e3, 0.001), rg: res(10e3, 0.001), rp: res(10e3, 0.001), rref: res(40e3, 0.001), rs: res(50, 0.01),

@@ -155,6 +155,13 @@ describe('determinism', () => {
   })
 })
 
+describe('the random variables', () => {
+  it('are the §8.7 set: op-amp maxima, idark for a transimpedance stage, supply, each resistor\'s tolerance and tempco', () => {
+    const names = yieldModel(CLOSED_FORM_STAGES['transimpedance']!(), 'uniform')!.variables.map((v) => v.name)
+    expect(names).toEqual(['vos', 'vos-drift', 'ib', 'ios', 'idark', 'cmrr', 'psrr', 'supply', 'rf:tolerance', 'rcomp:tolerance'])
+  })
+})
+
 describe('the worst case bounds every trial (property)', () => {
   const CALS: Calibration[] = ['none', 'offset', 'offset-and-gain']
   const names = Object.keys(CLOSED_FORM_STAGES)
