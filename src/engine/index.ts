@@ -56,5 +56,6 @@ export {evaluateInstrumentation, inaGain, INA_DC_KEYS, INA_NOISE_KEYS} from './i
 export * from './chain/index.js'
 export {
   runYield, yieldOptionsOf, trialBlock, yieldModel, closedFormOf, wilsonInterval, inverseNormal, truncatedNormal, uniformAt,
-  type YieldModel, type ClosedForm
+  runChainYield, chainYieldModel, chainTrialBlock, chainTrialErrors, drawChainTrial, STAGE_STRIDE, CONVERTER_KEYS,
+  type YieldModel, type ClosedForm, type ChainYieldModel, type ChainYieldStage
 } from './yield/index.js'

@@ -9,7 +9,8 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import {DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import type {YieldOptions} from '../engine/types.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
 import {chainMessages} from '../note/chain-messages.js'
@@ -97,8 +98,16 @@ function calibratedAs(input: StageInput, calibration: ChainInput['calibration'])
   return dc.calibrated?.contributors ?? null
 }
 
-/** Evaluate every planned chain whose stages were all evaluated. */
-export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile): ChainEvaluation[] {
+/** The chain's Monte Carlo options: its own `yield`, else the defaults with `--yield`, else null (off). */
+export const chainYieldOptions = (input: ChainInput, forced: boolean): YieldOptions | null =>
+  input.yield ?? (forced ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null)
+
+/**
+ * Evaluate every planned chain whose stages were all evaluated.
+ * @param options
+ *   `yield`: the Monte Carlo on every chain without a `yield` of its own (`--yield`).
+ */
+export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile, options: {yield?: boolean} = {}): ChainEvaluation[] {
   const out: ChainEvaluation[] = []
   for (const {block, input} of plan.chains) {
     const evaluated = input.stages.map((id) => stages.get(id))
@@ -115,7 +124,12 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
           spectrum: stageSpectrum(s.input)
         }
       })
-      const result = evaluateChain(input, views)
+      const cascade = evaluateChain(input, views)
+      const yieldOptions = chainYieldOptions(input, options.yield === true)
+      const result: ChainResult = yieldOptions === null ? cascade : {
+        ...cascade,
+        yield: runChainYield(input, (evaluated as EvaluatedStage[]).map((s) => ({input: s.input, gain: s.result.gain})), cascade.dc, yieldOptions)
+      }
       const notes = runChainRules({input, result, stages: evaluated as EvaluatedStage[]})
       out.push({block, input, result, notes, topologies: (evaluated as EvaluatedStage[]).map((s) => s.input.topology)})
     } catch (error) {

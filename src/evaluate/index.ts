@@ -76,7 +76,7 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options:
     const ev = done.get(b)
     return ev === undefined ? [] : [ev]
   })
-  const chains = evaluateChains(plan, new Map(stages.map((ev) => [ev.input.id, ev] as const)), file)
+  const chains = evaluateChains(plan, new Map(stages.map((ev) => [ev.input.id, ev] as const)), file, {yield: options.yield === true})
   return {stages, chains}
 }
 

@@ -8,7 +8,7 @@
 import type {Point} from 'unist'
 import {ADC_ARCHETYPES, ADC_ARCHETYPE_NAMES, isAdcArchetypeName} from '../engine/chain/archetypes.js'
 import {CHAIN_REQUIREMENT_KEYS, type AdcParams, type ChainInput, type ChainRequirementKey} from '../engine/chain/types.js'
-import {CALIBRATIONS, type Calibration} from '../engine/types.js'
+import {CALIBRATIONS, type Calibration, type YieldOptions} from '../engine/types.js'
 import {formatRange, formatTemperatureRange} from '../units/index.js'
 import type {Field, FieldValue} from './block-yaml.js'
 import type {AdcBlockNode} from './chain-types.js'
@@ -17,6 +17,7 @@ import {CHAIN_KEYS, CHAIN_REQUIREMENT_DIMS, isChainKey} from './converter-keys.j
 import type {Reporter} from './diagnostics.js'
 import {didYouMean} from './did-you-mean.js'
 import {noteMessages} from './messages.js'
+import {readYield} from './yield-read.js'
 import type {DefaultedValue, StageBlockNode} from './types.js'
 import {bandOf, choiceOf, quantityOf, rangeOf, scalarOf} from './values.js'
 
@@ -186,6 +187,7 @@ export function buildChain(fields: readonly Field[], ctx: ChainContext): BuiltCh
   let temperature: [number, number] | null = null
   let band: [number, number] | null = null
   let calibration: Calibration | null = null
+  let yieldOptions: YieldOptions | null = null
   let title: string | null = null
   for (const field of fields) {
     const key = field.key
@@ -218,6 +220,9 @@ export function buildChain(fields: readonly Field[], ctx: ChainContext): BuiltCh
         break
       case 'calibration':
         calibration = choiceOf(field, CALIBRATIONS, report)
+        break
+      case 'yield':
+        yieldOptions = readYield(field, report)
         break
       case 'require':
         break
@@ -255,7 +260,8 @@ export function buildChain(fields: readonly Field[], ctx: ChainContext): BuiltCh
       temperature: temperature ?? [first.temperature[0], first.temperature[1]],
       band: band ?? [last.band[0], last.band[1]],
       calibration: calibration ?? 'none',
-      require
+      require,
+      yield: yieldOptions
     },
     defaulted
   }

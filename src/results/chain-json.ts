@@ -2,8 +2,9 @@
  * The `chains` entries of the machine-readable result (DESIGN §8.6): exactly the contract's
  * fields, in its order, report-only fields dropped, non-finite numbers as null.
  */
-import type {ChainDcContributor, ChainRequirementResult, ChainResult} from '../engine/chain/types.js'
+import type {ChainDcContributor, ChainRequirementResult, ChainResult, ChainYieldKey} from '../engine/chain/types.js'
 import type {ChainEvaluation} from '../evaluate/chains.js'
+import {jsonYield, type JsonYield} from './json.js'
 
 export interface JsonChain {
   id: string
@@ -23,6 +24,8 @@ export interface JsonChain {
   aliasRejection: number | null
   requirements: ChainRequirementResult[]
   notes: {rule: string; severity: string; text: string}[]
+  /** The Monte Carlo over the chain's DC budget (DESIGN §8.7), errors at the converter's input; null when off. */
+  yield: JsonYield<ChainYieldKey> | null
 }
 
 const finite = (n: number | null): number | null => (n === null || !Number.isFinite(n) ? null : n)
@@ -68,6 +71,7 @@ export function jsonChain(ev: ChainEvaluation): JsonChain {
     },
     aliasRejection: finite(r.aliasRejection),
     requirements: r.requirements.map(jsonRequirement),
-    notes: ev.notes.map((x) => ({rule: x.rule, severity: x.severity, text: x.text}))
+    notes: ev.notes.map((x) => ({rule: x.rule, severity: x.severity, text: x.text})),
+    yield: jsonYield(r.yield)
   }
 }

@@ -69,12 +69,12 @@ export interface JsonStage {
  * count, which error the percentiles describe (`basis`) and its worst-case bound, and where
  * the variance shares were taken.
  */
-export interface JsonYield {
+export interface JsonYield<K extends string = YieldKey> {
   trials: number
   seed: number
   distribution: YieldResult['distribution']
   unavailable: string | null
-  results: {key: YieldKey; limit: number; passed: number; yield: number; interval: [number, number]}[]
+  results: {key: K; limit: number; passed: number; yield: number; interval: [number, number]}[]
   basis: YieldResult['basis']
   worstCase: number
   errorPercentiles: {p50: number; p99: number; p999: number} | null
@@ -84,8 +84,8 @@ export interface JsonYield {
   varianceRows: number
 }
 
-/** The JSON of a stage's Monte Carlo (the histogram is report-only). */
-export function jsonYield(y: YieldResult | null): JsonYield | null {
+/** The JSON of a stage's (or a chain's) Monte Carlo (the histogram is report-only). */
+export function jsonYield<K extends string = YieldKey>(y: (Omit<YieldResult, 'results'> & {results: {key: K; limit: number; passed: number; yield: number; interval: [number, number]}[]}) | null): JsonYield<K> | null {
   if (y === null) return null
   return {
     trials: y.trials,

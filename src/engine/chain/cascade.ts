@@ -87,6 +87,8 @@ export function evaluateChain(input: ChainInput, stages: readonly ChainStage[]):
     },
     temperatureSpan: dT,
     band: [fL, fH],
-    curves: cascaded.curves
+    curves: cascaded.curves,
+    // The Monte Carlo needs the stages' inputs: the evaluate phase runs it (../yield/chain.ts).
+    yield: null
   }
 }

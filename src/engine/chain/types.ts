@@ -6,7 +6,7 @@
  * `ChainResult`'s fields `id … requirements` are the `chains` entries of `--json` (§8.6);
  * `curves`, `nodes`, `stageNoise`, `converter` and `outputSpan` are report-only.
  */
-import type {Calibration, Range} from '../types.js'
+import type {Calibration, Range, YieldOptions, YieldRequirement, YieldResult} from '../types.js'
 
 /** A converter's datasheet values, SI (DESIGN §8.5); LSB values already turned into volts. */
 export interface AdcParams {
@@ -68,7 +68,22 @@ export interface ChainInput {
   calibration: Calibration
   /** Requirement limits: V (or A), LSB, bits, dB. */
   require: Partial<Record<ChainRequirementKey, number>>
+  /** Monte Carlo over the chain's DC budget (DESIGN §8.7); absent or null = off. */
+  yield?: YieldOptions | null
 }
+
+/** The chain's DC requirements a yield is given for (DESIGN §8.6, §8.7), in this order. */
+export const CHAIN_YIELD_KEYS = ['output-error', 'input-error', 'error-lsb', 'output-error-calibrated', 'input-error-calibrated', 'error-lsb-calibrated'] as const
+export type ChainYieldKey = (typeof CHAIN_YIELD_KEYS)[number]
+
+/** The yield of one DC requirement of a chain. */
+export type ChainYieldRequirement = Omit<YieldRequirement, 'key'> & {key: ChainYieldKey}
+
+/**
+ * The Monte Carlo result of a chain (DESIGN §8.7): the stage's fields, the errors at the
+ * converter's input (V), variables named `<stage id>/<variable>` and `<converter>/<key>`.
+ */
+export type ChainYieldResult = Omit<YieldResult, 'results'> & {results: ChainYieldRequirement[]}
 
 /**
  * What the cascade needs of one evaluated stage: numbers from its own result, and its
@@ -209,4 +224,6 @@ export interface ChainResult {
   /** Report-only: the band used, Hz. */
   band: [number, number]
   curves: ChainCurves
+  /** Monte Carlo yield over the chain's DC budget (DESIGN §8.7); null when off. */
+  yield: ChainYieldResult | null
 }

@@ -32,7 +32,7 @@ export const VARIANCE_ROWS = 8192
 /** Bins of the report's histogram. */
 export const HISTOGRAM_BINS = 48
 /** Offset of the second, independent sample of Jansen's design in the generator's variable index. */
-const STREAM_B = 64
+export const STREAM_B = 64
 
 /** Fill `vals` (SLOT_COUNT long) with one trial's draws; inactive slots stay 0. */
 export function drawTrial(model: YieldModel, key: number, vals: Float64Array, stream = 0): void {
@@ -57,7 +57,7 @@ export function drawTrial(model: YieldModel, key: number, vals: Float64Array, st
 }
 
 /** Scratch arrays of one evaluator. */
-interface Scratch {
+export interface Scratch {
   maxCal: number
   rTol: Float64Array
   rT: Float64Array
@@ -65,7 +65,7 @@ interface Scratch {
   tol: Float64Array
 }
 
-const scratchOf = (m: YieldModel): Scratch => ({
+export const scratchOf = (m: YieldModel): Scratch => ({
   maxCal: 0,
   rTol: Float64Array.from(m.nominal),
   rT: Float64Array.from(m.nominal),
@@ -75,15 +75,16 @@ const scratchOf = (m: YieldModel): Scratch => ({
 
 /**
  * One trial's signed errors: `out[ti·P + p]` the full error and `outCal[ti·P + p]` the
- * calibrated residual (equal to the full error without a calibration) at temperature ti and
- * input end p. The terms are those of `model.ts`.
+ * calibrated residual (equal to the full error without a calibration) at temperature
+ * `temps[ti]` (the model's own Tmin, 25 °C, Tmax unless given: a chain evaluates all its
+ * stages at the same temperatures) and input end p. The terms are those of `model.ts`.
  */
-export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): void {
-  trialMax(m, vals, s, out, outCal)
+export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array, temps: ArrayLike<number> = m.temperatures): void {
+  trialMax(m, vals, s, out, outCal, temps)
 }
 
 /** `trialErrors`, returning the largest |full error| and leaving the largest |calibrated residual| in `s.maxCal`. */
-function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): number {
+function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array, temps: ArrayLike<number> = m.temperatures): number {
   const f = m.form
   const pts = m.points
   const P = pts.length
@@ -106,8 +107,8 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
   const psrrOut = m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
   let e = 0
   let ec = 0
-  for (let ti = 0; ti < m.temperatures.length; ti++) {
-    const dt = m.temperatures[ti] - 25
+  for (let ti = 0; ti < temps.length; ti++) {
+    const dt = temps[ti] - 25
     for (let j = 0; j < mov.length; j++) {
       const i = mov[j]
       const c = vals[tcSlot(i)] * dt
@@ -142,12 +143,17 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
  * evaluations): the same terms as `trialErrors`, full or calibrated.
  */
 export function pointError(m: YieldModel, vals: Float64Array, s: Scratch, p: number, ti: number, calibrated: boolean): number {
+  return pointErrorAt(m, vals, s, p, m.temperatures[ti], calibrated)
+}
+
+/** `pointError` at a temperature `t` (°C) given by value. */
+export function pointErrorAt(m: YieldModel, vals: Float64Array, s: Scratch, p: number, t: number, calibrated: boolean): number {
   const f = m.form
   const q = m.points[p]
   const mov = m.moving
   const nom = m.nominal
   const {rTol, rT, rIb} = s
-  const dt = m.temperatures[ti] - 25
+  const dt = t - 25
   for (let j = 0; j < mov.length; j++) {
     const i = mov[j]
     const c = vals[tcSlot(i)] * dt
@@ -199,7 +205,7 @@ export function trialBlock(m: YieldModel, seed: number, from: number, to: number
 }
 
 /** The figure a requirement is judged on, from the trial's full and calibrated output errors. */
-const ERROR_OF: Record<YieldKey, 'full' | 'cal'> = {
+export const ERROR_OF: Record<YieldKey, 'full' | 'cal'> = {
   'output-error': 'full',
   'input-error': 'full',
   'output-error-calibrated': 'cal',

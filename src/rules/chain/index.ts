@@ -7,6 +7,7 @@ import chainConverterNoise from './chain-converter-noise.js'
 import chainLaterStageNoise from './chain-later-stage-noise.js'
 import chainRangeUnderused from './chain-range-underused.js'
 import chainRisoDivider from './chain-riso-divider.js'
+import chainYieldUnavailable from './chain-yield-unavailable.js'
 import type {RuleNote} from '../types.js'
 import type {ChainRule, ChainRuleContext} from './rule.js'
 
@@ -21,7 +22,8 @@ export const CHAIN_RULES: {readonly [Id in ChainRuleId]: ChainRule<Id>} = {
   'chain-range-underused': chainRangeUnderused,
   'chain-later-stage-noise': chainLaterStageNoise,
   'chain-converter-noise': chainConverterNoise,
-  'chain-riso-divider': chainRisoDivider
+  'chain-riso-divider': chainRisoDivider,
+  'chain-yield-unavailable': chainYieldUnavailable
 }
 
 /** Run every chain rule, in `CHAIN_RULE_IDS` order, stamping each note with its rule id. */
