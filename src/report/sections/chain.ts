@@ -17,6 +17,7 @@ import {pct, q, verdictText} from '../format.js'
 import {callout, caption, code, heading, paragraph, strong, table} from '../mdast.js'
 import {chainDcTables, chainNoiseTable, resolutionTable} from './chain-tables.js'
 import {chainFigure} from './chain-figure.js'
+import {chainYieldBlocks} from './chain-yield.js'
 import {chainMargin, chainLimitText, chainRequirementLabel, chainRequirementValue, chainVerdictOf} from '../chain-verdicts.js'
 import {combine} from '../verdicts.js'
 import {entriesTable} from './parameters.js'
@@ -114,6 +115,7 @@ export function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: Re
     chainFigure(ctx, dcBarsSpec({contributors: dc.sourceRows}, {labels: {}, axisTitle: 'Worst-case error at the converter input'}),
       `DC error of chain ${ev.input.id} by source, at the converter input, largest first`),
     caption(nextTable(ctx, `DC error contributors of chain ${ev.input.id}`)), dc.contributors, ...dc.zeros)
+  out.push(...chainYieldBlocks(ctx, ev))
 
   out.push(heading(3, 'Noise of the chain'),
     paragraph(`Output density Sout(f) = Σ Sk(f)·Π|Hj(f)|² of the later stages, from each stage’s full output density and solved response, ` +

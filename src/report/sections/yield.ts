@@ -42,29 +42,50 @@ function assumptions(ev: StageEvaluation, y: YieldResult): string {
     'the parts’ real spreads, their correlations and lot-to-lot shifts decide the production figure.'
 }
 
-export function yieldBlocks(ctx: ReportContext, ev: StageEvaluation): BlockContent[] {
-  const y = ev.result.yield
-  if (y === null) return []
+/** What the shared yield blocks need to know of the block they describe (a stage or a chain). */
+export interface YieldSubject {
+  /** `stage ID` or `chain ID`, as in the captions. */
+  name: string
+  /** The result's requirement rows. */
+  results: readonly {key: string; limit: number; passed: number; yield: number; interval: [number, number]}[]
+  /** The requirement's label and its limit as shown. */
+  label: (key: string) => string
+  limitText: (key: string, limit: number) => string
+  /** The limit as an error at the point the errors are taken (V). */
+  bound: (key: string, limit: number) => number
+  /** The `yield` minimum, when the block requires one. */
+  minimum: number | undefined
+  /** The first paragraph's description of a trial, and where the error is taken ("at the output"). */
+  method: string
+  where: string
+  /** The unit of the input (variance point). */
+  inputUnit: string
+  variableLabel: (name: string) => string
+  assumptions: string
+  /** Said when the block states no DC error requirement. */
+  noRequirement: string
+}
+
+/** The yield table, histogram and variance chart of a Monte Carlo result (stage or chain). */
+export function monteCarloBlocks(ctx: ReportContext, y: Omit<YieldResult, 'results'>, sub: YieldSubject): BlockContent[] {
   const out: BlockContent[] = [heading(3, 'Monte Carlo yield')]
   if (y.unavailable !== null) {
     out.push(paragraph(`No yield is given: ${y.unavailable}. The worst-case and RSS budgets above stand on their own (see the notes).`))
     return out
   }
-  const g = Math.abs(ev.result.gain)
-  const iu = inputUnit(ev.input.topology)
+  const calibratedBasis = y.basis !== 'output'
   out.push(paragraph(
-    `${y.trials.toLocaleString('en-US')} trials, seed ${y.seed}; every trial draws each part’s values at random within its limits ` +
-    'and evaluates the DC budget’s signed terms from the drawn values (the resistors through the stage’s DC solution in closed form). ' +
-    `Intervals are 95 % Wilson score intervals. The error ${y.basis === 'output' ? 'at the output' : 'at the output after calibration'} ` +
+    `${y.trials.toLocaleString('en-US')} trials, seed ${y.seed}; ${sub.method} ` +
+    `Intervals are 95 % Wilson score intervals. The error ${calibratedBasis ? `${sub.where} after calibration` : sub.where} ` +
     `has median ${q(y.errorPercentiles!.p50, 'V')}, 99th percentile ${q(y.errorPercentiles!.p99, 'V')} and 99.9th percentile ` +
     `${q(y.errorPercentiles!.p999, 'V')}, against a worst-case sum of ${q(y.worstCase, 'V')}.`))
-  if (y.results.length > 0) {
-    const minimum = ev.input.require.yield
-    out.push(caption(nextTable(ctx, `Monte Carlo yield of stage ${ev.input.id}`)), table(
+  if (sub.results.length > 0) {
+    const minimum = sub.minimum
+    out.push(caption(nextTable(ctx, `Monte Carlo yield of ${sub.name}`)), table(
       ['Requirement', 'Limit', 'Trials meeting it', 'Yield', '95 % interval', ...(minimum === undefined ? [] : ['Minimum'])],
-      y.results.map((r) => [
-        [`${KEY_LABELS[r.key]} (`, code(r.key), ')'],
-        q(r.limit, r.key.startsWith('input') ? iu : 'V'),
+      sub.results.map((r) => [
+        [`${sub.label(r.key)} (`, code(r.key), ')'],
+        sub.limitText(r.key, r.limit),
         r.passed.toLocaleString('en-US'),
         yieldPct(r.yield),
         `${yieldPct(r.interval[0])} … ${yieldPct(r.interval[1])}`,
@@ -72,26 +93,48 @@ export function yieldBlocks(ctx: ReportContext, ev: StageEvaluation): BlockConte
       ]),
       ['left', 'right', 'right', 'right', 'right', ...(minimum === undefined ? [] : ['right' as const])]))
   } else {
-    out.push(paragraph('The stage states no DC error requirement, so no yield is counted; the distribution of the error is shown.'))
+    out.push(paragraph(sub.noRequirement))
   }
-  const limits = y.results
-    .filter((r) => (y.basis === 'output') === !r.key.endsWith('calibrated'))
-    .map((r) => ({label: r.key, value: r.key.startsWith('input') ? r.limit * g : r.limit}))
-  out.push(figure(ctx, yieldHistogramSpec({top: y.histogram.top, counts: y.histogram.counts, limits, worstCase: y.worstCase},
-    y.basis === 'output' ? 'DC error at the output' : 'DC error at the output after calibration'),
-  `Distribution of the ${y.basis === 'output' ? '' : 'calibrated '}DC error of stage ${ev.input.id} over ${y.trials.toLocaleString('en-US')} trials: ` +
+  const limits = sub.results
+    .filter((r) => calibratedBasis === r.key.endsWith('calibrated'))
+    .map((r) => ({label: r.key, value: sub.bound(r.key, r.limit)}))
+  const axis = `DC error ${sub.where}${calibratedBasis ? ' after calibration' : ''}`
+  out.push(figure(ctx, yieldHistogramSpec({top: y.histogram.top, counts: y.histogram.counts, limits, worstCase: y.worstCase}, axis),
+    `Distribution of the ${calibratedBasis ? 'calibrated ' : ''}DC error of ${sub.name} over ${y.trials.toLocaleString('en-US')} trials: ` +
     'limits as solid lines (input-referred limits times |G|), the worst-case sum dashed'))
   if (y.variance.length > 0 && y.varianceAt !== null) {
     const at = y.varianceAt
-    const where = `input ${q(at.input, iu)}${at.inputCm === null ? '' : `, common mode ${q(at.inputCm, 'V')}`}, ${q(at.temperature, '°C')}`
+    const where = `input ${q(at.input, sub.inputUnit)}${at.inputCm === null ? '' : `, common mode ${q(at.inputCm, 'V')}`}, ${q(at.temperature, '°C')}`
     const top = y.variance[0]!
     out.push(paragraph(
-      `What to tighten first: ${yieldVariableLabel(top.variable)} carries ${(top.share * 100).toFixed(1)} % of the error’s variance. ` +
+      `What to tighten first: ${sub.variableLabel(top.variable)} carries ${(top.share * 100).toFixed(1)} % of the error’s variance. ` +
       `Shares are each variable’s total-effect index (Jansen’s estimator over ${y.varianceRows.toLocaleString('en-US')} trials) at the input end and temperature ` +
       `where the error varies most (${where}), normalised to sum to 100 %.`),
-    figure(ctx, varianceSharesSpec(y.variance.map((v) => ({label: yieldVariableLabel(v.variable), share: v.share}))),
-      `Share of the error variance of stage ${ev.input.id} by random variable, largest first`))
+    figure(ctx, varianceSharesSpec(y.variance.map((v) => ({label: sub.variableLabel(v.variable), share: v.share}))),
+      `Share of the error variance of ${sub.name} by random variable, largest first`))
   }
-  out.push(paragraph(assumptions(ev, y)))
+  out.push(paragraph(sub.assumptions))
   return out
+}
+
+export function yieldBlocks(ctx: ReportContext, ev: StageEvaluation): BlockContent[] {
+  const y = ev.result.yield
+  if (y === null) return []
+  const g = Math.abs(ev.result.gain)
+  const iu = inputUnit(ev.input.topology)
+  return monteCarloBlocks(ctx, y, {
+    name: `stage ${ev.input.id}`,
+    results: y.results,
+    label: (k) => KEY_LABELS[k as YieldKey],
+    limitText: (k, limit) => q(limit, k.startsWith('input') ? iu : 'V'),
+    bound: (k, limit) => (k.startsWith('input') ? limit * g : limit),
+    minimum: ev.input.require.yield,
+    method: 'every trial draws each part’s values at random within its limits ' +
+      'and evaluates the DC budget’s signed terms from the drawn values (the resistors through the stage’s DC solution in closed form).',
+    where: 'at the output',
+    inputUnit: iu,
+    variableLabel: yieldVariableLabel,
+    assumptions: assumptions(ev, y),
+    noRequirement: 'The stage states no DC error requirement, so no yield is counted; the distribution of the error is shown.'
+  })
 }
