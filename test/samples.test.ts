@@ -114,7 +114,13 @@ describe('sample designs', () => {
     const f = out.files[0]!
     expect(Object.keys(f)).toEqual(['file', 'sourceSha256', 'diagnostics', 'stages', 'chains'])
     for (const c of f['chains'] as Json[]) {
-      expect(Object.keys(c)).toEqual(['id', 'stages', 'gain', 'bandwidth', 'rangeUsed', 'dc', 'noise', 'aliasRejection', 'requirements', 'notes'])
+      expect(Object.keys(c)).toEqual(['id', 'stages', 'gain', 'bandwidth', 'rangeUsed', 'dc', 'noise', 'aliasRejection', 'requirements', 'notes', 'yield'])
+      const y = c['yield'] as Json | null
+      if (y !== null) {
+        expect(Object.keys(y)).toEqual(['trials', 'seed', 'distribution', 'unavailable', 'results', 'basis', 'worstCase', 'errorPercentiles', 'maxError', 'variance', 'varianceAt', 'varianceRows'])
+        // The chain's worst-case sum bounds every trial.
+        expect(y['maxError'] as number).toBeLessThanOrEqual((y['worstCase'] as number) * (1 + 1e-9))
+      }
       expect(Object.keys(c['dc'] as Json)).toEqual(['contributors', 'worstCaseOutput', 'rssOutput', 'worstCaseInput', 'worstCaseLsb', 'calibrated'])
       expect(Object.keys(c['noise'] as Json)).toEqual(['outputRms', 'zeroSignalOutputRms', 'inputRms', 'converterRms', 'noiseFreeBits', 'effectiveBits', 'widebandRms'])
     }
