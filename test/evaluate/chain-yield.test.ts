@@ -1,0 +1,53 @@
+/**
+ * The chain key `yield` and `--yield` on chains (DESIGN §8.7) through parse and evaluate: the
+ * Monte Carlo runs when asked, is off otherwise, bad values are positioned errors, and a
+ * chain with an instrumentation stage gets no number but an info note.
+ */
+import {VFile} from 'vfile'
+import {describe, expect, it} from 'vitest'
+import {evaluateNoteWithChains} from '../../src/evaluate/index.js'
+import {parseNote} from '../../src/note/index.js'
+import {jsonChain} from '../../src/results/chain-json.js'
+import {evaluatedOf, fence, gainStage} from './helpers.js'
+
+const stages = gainStage('a', '9k 0.1% 25ppm/K', '1k 0.1% 25ppm/K', '-10m .. 10m V') + gainStage('b', '1k 1%', '1k 1%', null)
+
+describe('chain `yield`', () => {
+  it('runs the Monte Carlo with the given trials and seed, the chain worst case bounding every trial', () => {
+    const r = evaluatedOf(stages + fence('chain c', 'stages: [a, b]\nadc: sar-18\nyield: { trials: 5k, seed: 3 }\nrequire:\n  output-error: 50 mV\n  error-lsb: 2000'))
+    expect(r.diagnostics.filter((d) => d.includes('error:'))).toEqual([])
+    const c = r.chains[0]!
+    const y = c.result.yield!
+    expect(y.trials).toBe(5000)
+    expect(y.seed).toBe(3)
+    expect(y.results.map((x) => x.key)).toEqual(['output-error', 'error-lsb'])
+    expect(y.maxError).toBeLessThanOrEqual(c.result.dc.worstCaseOutput * (1 + 1e-9))
+    expect(y.variance.every((v) => /^(a|b|sar-18)\//.test(v.variable))).toBe(true)
+    expect(jsonChain(c).yield!.results[0]!.key).toBe('output-error')
+  })
+
+  it('is off (null in the JSON) without the key, on with --yield at 100k trials, seed 1', () => {
+    const md = stages + fence('chain c', 'stages: [a, b]\nrequire:\n  output-error: 50 mV')
+    expect(jsonChain(evaluatedOf(md).chains[0]!).yield).toBeNull()
+    const file = new VFile({path: 'note.md', value: md})
+    const forced = evaluateNoteWithChains(parseNote(file), file, {yield: true}).chains[0]!.result.yield!
+    expect(forced.trials).toBe(100_000)
+    expect(forced.seed).toBe(1)
+    expect(forced.results[0]!.yield).toBeGreaterThan(0)
+  })
+
+  it('reports a bad trials value and an unknown sub-key at their place', () => {
+    const r = evaluatedOf(stages + fence('chain c', 'stages: [a, b]\nyield: { trials: lots, sed: 2 }'))
+    expect(r.diagnostics.some((d) => /error: .*trials/i.test(d))).toBe(true)
+    expect(r.diagnostics.some((d) => /error: .*sed/.test(d) && /seed/.test(d))).toBe(true)
+  })
+
+  it('gives no yield for a chain with an instrumentation stage, with an info note', () => {
+    const ina = fence('stage front', 'topology: instrumentation\nina: precision-ina\nrg: 494 0.1% 10ppm/K\nrs: 175\ninput: -10m .. 10m V\ninput-cm: 2.5 V\nsupply: ±15 V\nband: 0.1 .. 10 Hz')
+    const r = evaluatedOf(ina + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [front, b]\nyield: on\nrequire:\n  output-error: 50 mV'))
+    const c = r.chains[0]!
+    expect(c.result.yield!.unavailable).toMatch(/front \(instrumentation\)/)
+    expect(c.result.yield!.results).toEqual([])
+    expect(c.notes.map((n) => [n.rule, n.severity])).toContainEqual(['chain-yield-unavailable', 'info'])
+  })
+})
