@@ -33,6 +33,8 @@ export function echoValue(raw: string, dim: Dimension | null): string {
   // A space between a number and its (prefixed) unit.
   text = text.replace(new RegExp(`(\\d)(${PREFIX}?)(${UNIT_AFTER})(?![A-Za-z])`, 'g'), (_m, d: string, p: string, u: string) => `${d} ${micro(p, dim)}${u}`)
   text = text.replace(new RegExp(`(\\d) (${PREFIX})(${UNIT_AFTER})`, 'g'), (_m, d: string, p: string, u: string) => `${d} ${micro(p, dim)}${u}`)
+  // The per-microsecond of a slew rate is written with the micro sign too ("0.5 V/us" → "0.5 V/µs").
+  text = text.replace(/V\/us(?![A-Za-z])/g, 'V/µs')
   if (dim === null) return rangeUnits(text)
   const spec = DIMENSIONS[dim]
   const first = spec?.units[0]

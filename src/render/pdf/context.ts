@@ -9,7 +9,7 @@ import type {FigureNode} from '../../report/types.js'
 import {FONT_NAMES, type FontKey, type LoadedFonts} from './fonts.js'
 import type {GlyphChecker} from './glyphs.js'
 import {breakLongWords} from './long-words.js'
-import {maxY, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
+import {maxY, NO_BREAK_HYPHEN, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
 import type {Theme} from './theme.js'
 import type {Warnings} from './warnings.js'
 
@@ -117,8 +117,17 @@ const UNIT_AFTER_NUMBER = /(\d) (?=[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|
  * test/render/keep-together.test.ts with fontkit). A reader copying the text gets a space.
  */
 export function keepTogether(text: string): string {
-  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0')
+  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0').replace(INNER_HYPHEN, NO_BREAK_HYPHEN)
 }
+
+/**
+ * A hyphen with a letter or digit on each side: inside a rule id (`phase-margin-low`), a key
+ * (`cm-headroom-neg`, `require.output-error`), "p-p", a date or a document number. It is
+ * drawn as the no-break hyphen U+2011 (every DejaVu face used carries it; a reader copying
+ * the text gets U+002D, pdfkit.ts), so that none of them is split at a line end. Ordinary
+ * hyphenated words stay whole too; a word wider than its line is still cut (long-words.ts).
+ */
+const INNER_HYPHEN = /(?<=[\p{L}\p{N}])-(?=[\p{L}\p{N}])/gu
 
 /** Height of a one-style string `width` wide, measured as drawn. */
 export function measureText(ctx: RenderContext, text: string, style: TextStyle, width: number, options: TextOptions = {}): number {
