@@ -75,6 +75,14 @@ function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<St
       out.push(...adcSection(ctx, node))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
+    } else if (node.type === 'paragraph' && node.children.some((c) => c.type === 'image' || c.type === 'imageReference')) {
+      // The note's own images are figures too, numbered in document order with the charts:
+      // those a paragraph holds directly, which the PDF draws as blocks of their own.
+      out.push({...node, children: node.children.map((c) => {
+        if (c.type !== 'image' && c.type !== 'imageReference') return c
+        ctx.figure += 1
+        return {...c, data: {...c.data, figure: ctx.figure}}
+      })})
     } else if (hasChildren(node)) {
       out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
     } else {

@@ -12,6 +12,7 @@ import {
   atPageTop, bodyStyle, drawText, estimateText, indented, keepSpace, measureText, newPage, spaceLeft, type RenderContext,
 } from './context.js'
 import {drawImage} from './image.js'
+import {noteImageFigure} from '../../report/types.js'
 import {drawRuns, runsOf, runsText} from './inline.js'
 import {drawList} from './list.js'
 import {drawSchematic, schematicHeight} from './schematic.js'
@@ -98,11 +99,11 @@ export function drawPhrasing(ctx: RenderContext, children: PhrasingContent[]): v
   for (const child of children) {
     if (child.type === 'image') {
       flush()
-      drawImage(ctx, child.url, child.alt ?? '')
+      drawImage(ctx, child.url, child.alt ?? '', noteImageFigure(child))
     } else if (child.type === 'imageReference') {
       flush()
       const def = ctx.definitions.get(child.identifier.toLowerCase())
-      drawImage(ctx, def?.url ?? child.identifier, child.alt ?? '')
+      drawImage(ctx, def?.url ?? child.identifier, child.alt ?? '', noteImageFigure(child))
     } else segment.push(child)
   }
   flush()
