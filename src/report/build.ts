@@ -26,7 +26,7 @@ export interface ReportInput {
   /** Evaluated chains (DESIGN §8.6); none when absent. */
   chains?: ChainEvaluation[]
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
-  fragments: {method: Root; closing: Root}
+  fragments: {method: Root; closing: Root; appendix?: 'full' | 'short'}
   sourceSha256: string
   toolVersion: string
   fileName: string
@@ -122,7 +122,7 @@ export function buildReport(input: ReportInput): ReportOutput {
     cover: coverSummary(input.evaluations, ctx.coverNotes, chainCoverRows(chains)),
     body,
     appendix: buildAppendix({
-      evaluations: input.evaluations, chains, method: input.fragments.method,
+      evaluations: input.evaluations, chains, method: input.fragments.method, form: input.fragments.appendix ?? 'full',
       sourceSha256: input.sourceSha256, toolVersion: input.toolVersion, fileName: input.fileName
     }),
     closing: input.fragments.closing,
