@@ -143,12 +143,13 @@ describe('the PDF of the load-cell sample, read back with pdfjs', async () => {
   })
 
   it.each([
-    'Figure 1 — DC error contributors of stage bridge-ina',
-    'Figure 2 — Output noise density of stage bridge-ina',
-    'Figure 3 — Cumulative output noise rms of stage bridge-ina',
-    'Figure 4 — Schematic of stage adc-driver',
-    'Figure 5 — DC error contributors of stage adc-driver',
-    'Figure 8 — Loop gain of stage adc-driver'
+    'Figure 1 — Block diagram of the WM-3 analogue front end',
+    'Figure 2 — DC error contributors of stage bridge-ina',
+    'Figure 3 — Output noise density of stage bridge-ina',
+    'Figure 4 — Cumulative output noise rms of stage bridge-ina',
+    'Figure 5 — Schematic of stage adc-driver',
+    'Figure 6 — DC error contributors of stage adc-driver',
+    'Figure 9 — Loop gain of stage adc-driver'
   ])('carries the caption “%s”', (caption) => {
     expect(text).toContain(caption)
   })

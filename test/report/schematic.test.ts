@@ -123,13 +123,14 @@ describe('stageSchematic()', () => {
 describe('the schematic in the load-cell PDF, read back with pdfjs', async () => {
   const {pdf} = await pdfOf(sample('load-cell-bridge.md'))
   const pages = (await readPdf(pdf)).pages
-  const page = pages.findIndex((p) => p.includes('Figure 4 — Schematic of stage adc-driver'))
+  const page = pages.findIndex((p) => p.includes('Figure 5 — Schematic of stage adc-driver'))
 
-  // The sample's first stage is an instrumentation stage (no layout yet: a sentence), so the driver's schematic is Figure 4.
-  it('is Figure 4, in the stage section before its parameters table', () => {
+  // The note's block diagram is Figure 1 and the first stage is an instrumentation stage (no
+  // layout yet: a sentence; three charts), so the driver's schematic is Figure 5.
+  it('is Figure 5, in the stage section before its parameters table', () => {
     expect(page).toBeGreaterThanOrEqual(0)
     const all = pages.join('\n')
-    expect(all.indexOf('Figure 4 — Schematic')).toBeLessThan(all.indexOf('Parameters of stage adc-driver'))
+    expect(all.indexOf('Figure 5 — Schematic')).toBeLessThan(all.indexOf('Parameters of stage adc-driver'))
   })
 
   it.each(['rcomp', '2 kΩ', 'rg', '10 kΩ', 'rf', '2.49 kΩ', 'cstray', '2 pF', 'source', '+15 V', '−15 V', 'wm-amp'])(
