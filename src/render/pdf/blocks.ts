@@ -37,6 +37,9 @@ function lines(ctx: RenderContext, n: number, size = ctx.theme.fontSizes.body): 
   return n * (size * 1.17 + ctx.theme.lineGap)
 }
 
+/** Blocks a short paragraph before them introduces. */
+const INTRODUCED = new Set<string>(['figure', 'schematic', 'table', 'code', 'caption', 'heading'])
+
 /** The least height that must stay on the page with a heading or caption placed before `node`. */
 export function keepHeight(ctx: RenderContext, node: RootContent | undefined, rest: RootContent[]): number {
   if (node === undefined) return 0
@@ -49,6 +52,13 @@ export function keepHeight(ctx: RenderContext, node: RootContent | undefined, re
     case 'code': return codeKeepHeight(ctx, node.value)
     case 'paragraph': {
       const h = estimateText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
+      // A line or two that introduces a figure, a table or code (a stage's "Voltage follower
+      // on …" before its schematic) goes with it: a heading then never ends a page with
+      // only its introduction under it.
+      const next = rest[0]
+      if (h <= lines(ctx, 2) && next !== undefined && INTRODUCED.has(next.type)) {
+        return h + ctx.theme.spacing.paragraph + keepHeight(ctx, next, rest.slice(1))
+      }
       return h <= lines(ctx, SHORT_PARAGRAPH_LINES) ? h : lines(ctx, 3)
     }
     default: return lines(ctx, 3)
