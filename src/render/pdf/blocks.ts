@@ -47,7 +47,9 @@ export function keepHeight(ctx: RenderContext, node: RootContent | undefined, re
     case 'figure': return figureHeight(ctx, node)
     case 'schematic': return schematicHeight(ctx, node)
     case 'caption': return lines(ctx, 1, ctx.theme.fontSizes.small) + keepHeight(ctx, rest[0], rest.slice(1))
-    case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + lines(ctx, 2)
+    // A heading placed here brings what it keeps with it (its own keep-with-next).
+    case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + ctx.theme.spacing.headingBefore + ctx.theme.spacing.headingAfter +
+      Math.max(lines(ctx, 2), keepHeight(ctx, rest[0], rest.slice(1)))
     case 'table': return lines(ctx, 2, ctx.theme.fontSizes.table) + 4 * ctx.theme.spacing.cellPadding
     case 'code': return codeKeepHeight(ctx, node.value)
     case 'paragraph': {
