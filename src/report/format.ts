@@ -36,8 +36,9 @@ const MAX_DECIMALS = 7
 
 /**
  * A table column of one quantity: every value in the SI prefix of the column's largest
- * magnitude, each to `digits` significant digits (trailing zeros dropped, as everywhere),
- * so that the eye compares like with like ("227 µV", "4.45 µV", "0.00453 µV"); null is an
+ * magnitude, each to `digits` significant digits, trailing zeros kept ("2.70 mV" beside
+ * "0.550 mV"), so that the eye compares like with like ("227 µV", "4.45 µV",
+ * "0.00453 µV"); zero is "0"; null is an
  * em dash. A value too small to print in that prefix within seven decimals, or outside
  * the printable magnitudes, keeps its own (`formatQuantity`).
  */
@@ -54,6 +55,7 @@ export function column(values: readonly (number | null)[], unit: string, digits 
     const m = Number((exp >= 0 ? v / 10 ** exp : v * 10 ** -exp).toPrecision(digits))
     const decimals = Math.max(0, digits - 1 - Math.floor(Math.log10(Math.abs(m))))
     if (decimals > MAX_DECIMALS) return q(v, unit, digits)
-    return withUnit(formatFixed(m, {decimals}))
+    // Trailing zeros kept here, unlike elsewhere: the column reads to the same digits.
+    return withUnit(m.toFixed(decimals).replace(/^-/, '−'))
   })
 }

@@ -29,14 +29,17 @@ describe('formatSlew()', () => {
 })
 
 describe('column()', () => {
+  it('keeps the trailing zeros of three significant digits (2.70 mV beside 0.550 mV)', () => {
+    expect(column([2.7e-3, 0.55e-3, 9e-6], 'V')).toEqual(['2.70 mV', '0.550 mV', '0.00900 mV'])
+  })
   it('sets every value in the prefix of the largest, three significant digits each', () => {
     expect(column([150e-6, 67.5e-6, 4.53e-9, 113e-9, 0, 227e-6, null], 'V')).toEqual(['150 µV', '67.5 µV', '0.00453 µV', '0.113 µV', '0 µV', '227 µV', '—'])
   })
   it('takes the prefix a rounded largest value needs (999.7 µV is 1 mV)', () => {
-    expect(column([999.7e-6, 12e-6], 'V')).toEqual(['1 mV', '0.012 mV'])
+    expect(column([999.7e-6, 12e-6], 'V')).toEqual(['1.00 mV', '0.0120 mV'])
   })
   it('lets a value too small for seven decimals in that prefix keep its own', () => {
-    expect(column([1, 2e-12], 'V')).toEqual(['1 V', '2 pV'])
+    expect(column([1, 2e-12], 'V')).toEqual(['1.00 V', '2 pV'])
   })
 })
 

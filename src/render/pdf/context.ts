@@ -109,7 +109,7 @@ export function layoutText(ctx: RenderContext, text: string, font: FontKey, size
 }
 
 /** A unit symbol (with its prefix) that follows a number, for `keepTogether`. */
-const UNIT_AFTER_NUMBER = /(\d) (?=[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|ppm|s|×)(?![A-Za-z]))/g
+const UNIT_AFTER_NUMBER = /(\d) (?=(?:[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|ppm|s|×)|LSB|bits?)(?![A-Za-z]))/g
 
 /**
  * No line break between a number and its unit ("12.4 mV" stays on one line): the space
