@@ -18,7 +18,7 @@ const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(
 const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
 
 function checkStage(s: Json): void {
-  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role'])
+  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives'])
   expect(['design', 'baseline']).toContain(s['role'])
   expect(typeof s['id']).toBe('string')
   expect(TOPOLOGIES as readonly unknown[]).toContain(s['topology'])
@@ -62,6 +62,17 @@ function checkStage(s: Json): void {
     expect(r['met'] === null || typeof r['met'] === 'boolean').toBe(true)
     if (r['key'] === 'output-swing' || r['key'] === 'input-common-mode') expect(pair(r['value']) && (r['limit'] === null || pair(r['limit']))).toBe(true)
     else expect(isNum(r['value']) && isNumOrNull(r['limit'])).toBe(true)
+  }
+  // DESIGN §8.8: null unless asked for; else one row per candidate, the one in use and the best marked once.
+  const alts = s['alternatives'] as Json[] | null
+  if (alts !== null) {
+    for (const a of alts) {
+      expect(Object.keys(a)).toEqual(['candidate', 'inputType', 'worstCaseOutput', 'outputRms', 'phaseMargin', 'dominant', 'met', 'current', 'best'])
+      expect(isNum(a['worstCaseOutput']) && isNum(a['outputRms']) && isNumOrNull(a['phaseMargin'])).toBe(true)
+      expect(Object.keys(a['met'] as Json)).toEqual((s['requirements'] as Json[]).map((r) => r['key']))
+    }
+    expect(alts.filter((a) => a['current'] === true).map((a) => a['candidate'])).toEqual([s['opamp']])
+    expect(alts.filter((a) => a['best'] === true)).toHaveLength(1)
   }
   for (const n of s['notes'] as Json[]) {
     expect(Object.keys(n)).toEqual(['rule', 'severity', 'text', 'accepted'])
@@ -115,6 +126,28 @@ describe('sample designs', () => {
     const r = runCli(['check', join('sample-designs', named![2]!)])
     expect(r.status).toBe(0)
     expect(r.stderr).toContain(`of baseline stage \`${named![1]}\` not met`)
+  })
+
+  it('include one whose alternatives show a FET or CMOS input making the compensation resistor pointless', () => {
+    const r = runCli(['check', '--json', join('sample-designs', 'soil-potential-input.md')])
+    expect(r.status).toBe(0)
+    type Alt = {candidate: string; inputType: string; worstCaseOutput: number; outputRms: number; met: Record<string, boolean | null>}
+    const stages = (JSON.parse(r.stdout) as {files: {stages: {id: string; requirements: {met: boolean | null}[]; alternatives: Alt[] | null}[]}[]}).files[0]!.stages
+    const withRcomp = stages.find((s) => s.id === 'probe-amp')!
+    const without = stages.find((s) => s.id === 'probe-amp-cmos')!
+    for (const s of [withRcomp, without]) expect(s.requirements.every((q) => q.met !== false)).toBe(true)
+    const alt = (s: typeof withRcomp, name: string): Alt => s.alternatives!.find((a) => a.candidate === name)!
+    // The bipolar part needs its rcomp: met with it, not met without.
+    expect(alt(withRcomp, 'stock-bipolar').met['output-error']).toBe(true)
+    expect(alt(without, 'stock-bipolar').met['output-error']).toBe(false)
+    // Every JFET and CMOS candidate meets the DC budget without rcomp, and the resistor only adds noise.
+    const fets = without.alternatives!.filter((a) => a.inputType === 'jfet' || a.inputType === 'cmos')
+    expect(fets.map((a) => a.candidate).sort()).toEqual(['candidate-cmos', 'precision-cmos', 'precision-jfet'])
+    for (const a of fets) {
+      expect(a.met['output-error']).toBe(true)
+      expect(alt(withRcomp, a.candidate).outputRms).toBeGreaterThan(a.outputRms)
+      expect(Math.abs(alt(withRcomp, a.candidate).worstCaseOutput - a.worstCaseOutput)).toBeLessThan(0.02 * a.worstCaseOutput)
+    }
   })
 
   it('include a baseline stage whose requirements are deliberately not met: shown, yet the run passes', () => {

@@ -30,6 +30,8 @@ export interface CliArgs {
   debug: boolean
   /** `--shard i/n`: only the notes of shard i of n (build, check). */
   shard: Shard | null
+  /** `--alternatives`: every stage with its input-technology alternatives (build, check; DESIGN §8.8). */
+  alternatives: boolean
 }
 
 export class UsageError extends Error {}
@@ -38,8 +40,8 @@ export class UsageError extends Error {}
 export const DEFAULT_THRESHOLD = 0.001
 
 export const USAGE = `Usage:
-  ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch] [--shard I/N]
-  ampreview check NOTE… [--json] [--shard I/N]
+  ampreview build NOTE… [--out DIR] [--format pdf,json,md] [--force] [--watch] [--shard I/N] [--alternatives]
+  ampreview check NOTE… [--json] [--shard I/N] [--alternatives]
   ampreview compare OLD NEW [--markdown] [--threshold P%]
   ampreview merge RESULT.json…
   ampreview new FILE [--topology noninverting|inverting|follower|transimpedance|difference|lowpass-sallen-key|lowpass-mfb|instrumentation]
@@ -56,6 +58,7 @@ Options:
   --watch        keep running and rebuild a note each time it is saved
   --jobs N       worker threads for a batch (default: one per free core)
   --shard I/N    only the notes of shard I of N (split by a hash of each note's path)
+  --alternatives evaluate every stage again with each archetype and amplifier block of its kind
   --json         check: print one JSON object on stdout; diagnostics also go to stderr
   --markdown     compare: print the comparison as Markdown (for a CI comment)
   --threshold P% compare: leave out values that changed by less than P % (default 0.1 %)
@@ -89,6 +92,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
         out: {type: 'string'}, format: {type: 'string'}, jobs: {type: 'string'}, topology: {type: 'string'},
         json: {type: 'boolean'}, force: {type: 'boolean'}, quiet: {type: 'boolean', short: 'q'}, watch: {type: 'boolean'},
         markdown: {type: 'boolean'}, threshold: {type: 'string'}, strict: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
+        alternatives: {type: 'boolean'},
         help: {type: 'boolean', short: 'h'}, version: {type: 'boolean', short: 'v'}
       }
     })
@@ -101,7 +105,8 @@ export function parseCliArgs(argv: string[]): CliArgs {
   const args: CliArgs = {
     command, operands, out: v.out ?? null, json: v.json ?? false, formats: ['pdf'], force: v.force ?? false,
     quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false, threshold: DEFAULT_THRESHOLD,
-    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false, shard: null
+    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false, shard: null,
+    alternatives: v.alternatives ?? false
   }
   if (command === 'help' || command === 'version') return args
   if (first === undefined) throw new UsageError('Expected a command: build, check, compare, merge or new')
@@ -114,6 +119,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
   if (v.force) only(cmd, '--force', ['build'])
   if (v.watch) only(cmd, '--watch', ['build'])
   if (v.json) only(cmd, '--json', ['check'])
+  if (v.alternatives) only(cmd, '--alternatives', ['build', 'check'])
   if (v.markdown) only(cmd, '--markdown', ['compare'])
   if (v.threshold !== undefined) {
     only(cmd, '--threshold', ['compare'])

@@ -91,7 +91,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
   }
   // The path as given is part of the key: the JSON output records it.
   const optionsOf = (note: string): string =>
-    JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null, file: note})
+    JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null, file: note, ...(b.run.alternatives === true ? {alternatives: true} : {})})
   const clashes = building ? outputClashes(notes, b.run) : notes.map(() => null)
   const runner = runnerFor(notes.length, b.jobs, res, building)
   const items: (BatchItem | null)[] = notes.map(() => null)
@@ -102,7 +102,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
    */
   const fromCache = async (note: string, source: Uint8Array, entry: CacheEntry): Promise<NoteOutcome | null> => {
     if (!(await imagesUnchanged(note, entry.images))) return null
-    const fresh = (await runNote(source, note, noteResources(note, res), {formats: [], strict: b.run.strict, sourceDateEpoch: b.run.sourceDateEpoch})).outcome
+    const fresh = (await runNote(source, note, noteResources(note, res), {formats: [], strict: b.run.strict, sourceDateEpoch: b.run.sourceDateEpoch, alternatives: b.run.alternatives === true})).outcome
     if (fresh.exitCode === 2 || resultDigest(fresh.stages) !== entry.result) return null
     return {...fresh, diagnostics: [], outputs: entry.outputs.map((o) => o.path)}
   }

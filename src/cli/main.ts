@@ -48,7 +48,7 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
   const notes = args.shard === null ? all : inShard(all, args.shard)
   const runOpts: RunOptions = {
     formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict,
-    sourceDateEpoch: io.env['SOURCE_DATE_EPOCH']
+    sourceDateEpoch: io.env['SOURCE_DATE_EPOCH'], alternatives: args.alternatives
   }
   if (args.watch) {
     await watchNotes(notes, res, runOpts, {out, err}, abort.signal)

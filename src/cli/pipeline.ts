@@ -63,6 +63,8 @@ export interface RunOptions {
   /** Treat warnings as errors. */
   strict: boolean
   sourceDateEpoch: string | undefined
+  /** Evaluate every stage's input-technology alternatives (`--alternatives`, DESIGN §8.8). (optional: only the stages that ask) */
+  alternatives?: boolean
   /**
    * Existing files the outputs may replace (the cache's record of this note's outputs);
    * any other existing file at an output path is refused. (optional: no check)
@@ -188,7 +190,7 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
     const place = ev.block.position?.start
     for (const n of ev.notes) {
       if (n.severity !== 'warning' && n.severity !== 'caution') continue
-      file.message(`Chain \`${ev.input.id}\`: ${n.text} [${n.rule}]`, {place, ruleId: n.rule, source: 'ampreview'})
+      file.message(`Chain \`${ev.input.id}\`: ${n.text}`, {place, ruleId: n.rule, source: 'ampreview'})
     }
     for (const r of ev.result.requirements) {
       if (r.met !== false) continue
@@ -209,7 +211,7 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
  * Run one note from its bytes: `name` is the path as given (diagnostics, JSON `file`,
  * output names); nothing is read but through `res`, nothing is written.
  */
-export async function runNote(bytes: Uint8Array, name: string, res: NoteResources, opts: Pick<RunOptions, 'formats' | 'strict' | 'sourceDateEpoch'>): Promise<NoteResult> {
+export async function runNote(bytes: Uint8Array, name: string, res: NoteResources, opts: Pick<RunOptions, 'formats' | 'strict' | 'sourceDateEpoch' | 'alternatives'>): Promise<NoteResult> {
   const sha = createHash('sha256').update(bytes).digest('hex')
   const decoded = decodeNote(bytes)
   if (!decoded.ok) return {outcome: failedOutcome(name, decoded.message, sha), files: []}
@@ -226,7 +228,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   }
 
   // 2. Evaluate: engine and rules, per stage.
-  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file)
+  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file, {alternatives: opts.alternatives === true})
   markUnmet(file, evaluations)
   markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')

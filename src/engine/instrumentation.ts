@@ -37,8 +37,17 @@ function inaOf(input: StageInput): InaParams {
   return input.ina
 }
 
-/** Output noise densities (V²/Hz) per INA_NOISE_KEYS at f. */
-function densitiesInto(input: StageInput, f: number, out: Float64Array, offset: number): void {
+/** H(f) = G/(1 + jf/fb), fb = gbw/G (DESIGN §8.2): [Re, Im]. */
+export function inaTransfer(input: StageInput, f: number): [number, number] {
+  const ina = inaOf(input)
+  const g = inaGain(ina, (input.rg as {value: number}).value)
+  const x = f / (ina.gbw / g)
+  const d = 1 + x * x
+  return [g / d, (-g * x) / d]
+}
+
+/** Output noise densities (V²/Hz) per INA_NOISE_KEYS at f (the stage's budget and the chain's view). */
+export function inaDensitiesInto(input: StageInput, f: number, out: Float64Array, offset: number): void {
   const ina = inaOf(input)
   const rg = (input.rg as {value: number}).value
   const g = inaGain(ina, rg)
@@ -106,7 +115,7 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
 
   const [fL, fH] = input.band
   const k = INA_NOISE_KEYS.length
-  const band = integrateBand(fL, fH, k, (f, out, offset) => densitiesInto(input, f, out, offset))
+  const band = integrateBand(fL, fH, k, (f, out, offset) => inaDensitiesInto(input, f, out, offset))
   const noiseContributors = INA_NOISE_KEYS.map((key, i) => ({key, outputRms: Math.sqrt(Math.max(0, band.integral[i] as number))}))
   const total = band.integral.reduce((a, b) => a + b, 0)
   const outputRms = Math.sqrt(Math.max(0, total))

@@ -9,7 +9,7 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {dcAnalysis, evaluateChain, operatingPoints, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import {dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
 import {chainMessages} from '../note/chain-messages.js'
@@ -29,7 +29,10 @@ export interface ChainEvaluation {
 
 /** The output span [low, high] of a stage over its input range (V). */
 export function outputSpanOf(input: StageInput): [number, number] {
-  const v = operatingPoints(input).map((p) => p.vout)
+  // An instrumentation stage has no netlist: G·vd + vref from its block model (DESIGN §8.2).
+  const v = input.topology === 'instrumentation' && input.ina !== null && input.rg !== null
+    ? input.input.map((vd) => inaGain(input.ina!, input.rg!.value) * vd + input.vref)
+    : operatingPoints(input).map((p) => p.vout)
   return [Math.min(...v), Math.max(...v)]
 }
 
@@ -84,6 +87,16 @@ export interface EvaluatedStage {
   result: StageResult
 }
 
+/**
+ * A stage's DC residuals under the chain's calibration when the stage states another one: the
+ * DC budget of its own netlist, or the block model for an instrumentation stage (no netlist).
+ */
+function calibratedAs(input: StageInput, calibration: ChainInput['calibration']): readonly {key: string; output: number}[] | null {
+  const recal = {...input, calibration}
+  const dc = input.topology === 'instrumentation' ? evaluateInstrumentation(recal).dc : dcAnalysis(recal).budget
+  return dc.calibrated?.contributors ?? null
+}
+
 /** Evaluate every planned chain whose stages were all evaluated. */
 export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile): ChainEvaluation[] {
   const out: ChainEvaluation[] = []
@@ -95,7 +108,7 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
         const own = s.result.dc.calibrated
         const calibrated = input.calibration === 'none' ? null
           : own !== null && own.calibration === input.calibration ? own.contributors
-            : dcAnalysis({...s.input, calibration: input.calibration}).budget.calibrated?.contributors ?? null
+            : calibratedAs(s.input, input.calibration)
         return {
           id: s.input.id, gain: s.result.gain, contributors: s.result.dc.contributors, calibrated,
           outputSpan: s.result.swing.outputSpan, inputSpan: s.input.input, bandwidth: s.result.stability.bandwidth,

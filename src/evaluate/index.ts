@@ -9,6 +9,9 @@ import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
 import type {RuleNote} from '../rules/types.js'
 import {chainedInput, chainPlan, evaluateChains, type ChainEvaluation} from './chains.js'
+import {evaluateAlternatives, type StageAlternatives} from './alternatives.js'
+
+export {candidatesOf, compareScores, dominantOf, scoreOf, withCandidate, type AlternativeCandidate, type AlternativeEvaluation, type AlternativeScore, type StageAlternatives} from './alternatives.js'
 
 export {chainPlan, chainedInput, evaluateChains, outputSpanOf, type ChainEvaluation, type ChainPlan, type EvaluatedStage} from './chains.js'
 import {applyWaivers, roleOf, waiversOf} from './waivers.js'
@@ -23,6 +26,14 @@ export interface StageEvaluation {
   notes: RuleNote[]
   /** `baseline` stages are shown but count toward neither the verdict nor the exit code. */
   role: StageRole
+  /** The stage with every candidate amplifier (DESIGN §8.8); null when not asked for. */
+  alternatives: StageAlternatives | null
+}
+
+/** How the note is evaluated, beyond what it says itself. */
+export interface EvaluateOptions {
+  /** Evaluate the alternatives of every stage, whatever its block says (`--alternatives`). (default: false) */
+  alternatives?: boolean
 }
 
 /**
@@ -31,12 +42,12 @@ export interface StageEvaluation {
  * the one before (DESIGN §8.6, ./chains.ts); a stage that leaves its input to a chain that
  * could not be read is not evaluated (the chain's errors say why).
  */
-export function evaluateNote(parsed: ParsedNote, file: VFile): StageEvaluation[] {
-  return evaluateNoteWithChains(parsed, file).stages
+export function evaluateNote(parsed: ParsedNote, file: VFile, options: EvaluateOptions = {}): StageEvaluation[] {
+  return evaluateNoteWithChains(parsed, file, options).stages
 }
 
 /** Evaluate the note's stages, then its chains from those evaluations. */
-export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
+export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options: EvaluateOptions = {}): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
   const plan = chainPlan(parsed)
   const byId = new Map(parsed.stages.filter((b) => b.input !== null).map((b) => [b.id, b] as const))
   const done = new Map<StageBlockNode, StageEvaluation>()
@@ -50,7 +61,7 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages
   for (const block of order) {
     if (block.input === null) continue
     if (block.inputFromChain === true && !plan.previous.has(block.id)) continue
-    const ev = evaluateOne(block, chainedInput(block, block.input, plan, spans, file), parsed, file)
+    const ev = evaluateOne(block, chainedInput(block, block.input, plan, spans, file), parsed, file, options)
     if (ev === null) continue
     done.set(block, ev)
     spans.set(block.id, [ev.result.swing.outputSpan[0], ev.result.swing.outputSpan[1]])
@@ -63,12 +74,14 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile): {stages
   return {stages, chains}
 }
 
-function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNote, file: VFile): StageEvaluation | null {
+function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNote, file: VFile, options: EvaluateOptions): StageEvaluation | null {
   const waivers = waiversOf(block, file)
   try {
     const result = evaluateStage(input)
     const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
-    return {block, input, result, notes, role: roleOf(block)}
+    const alternatives = block.alternatives === true || options.alternatives === true
+      ? evaluateAlternatives(input, result, [...parsed.opamps, ...(parsed.inas ?? [])], file, block.position?.start) : null
+    return {block, input, result, notes, role: roleOf(block), alternatives}
   } catch (error) {
     const m = file.message(
       `Could not evaluate stage \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,

@@ -94,6 +94,7 @@ export const BLOCK_KINDS = {
       const {id, entries, ...rest} = nodeFields(b)
       const node: StageBlockNode = {type: 'stageBlock', id, entries, input, defaulted: built.defaulted, ...rest}
       if (built.inputFromChain) node.inputFromChain = true
+      if (built.alternatives) node.alternatives = true
       if (b.firstOfId && id !== '') (b.chains.stagesAbove as Map<string, StageBlockNode>).set(id, node)
       return node
     }

@@ -56,6 +56,8 @@ export type StageKind =
   | {kind: 'role'}
   /** A map of rule id → the author's reason for accepting that rule's note (the ids are checked in src/evaluate). */
   | {kind: 'accept'}
+  /** `true` or `false` (DESIGN §8.8's `alternatives`). */
+  | {kind: 'flag'}
 
 export interface StageKeySpec {
   readonly read: StageKind
@@ -102,7 +104,9 @@ export const STAGE_KEYS = {
   calibration: {read: {kind: 'calibration'}, use: ALL_O},
   require: {read: {kind: 'require'}, use: ALL_O},
   role: {read: {kind: 'role'}, use: ALL_O},
-  accept: {read: {kind: 'accept'}, use: ALL_O}
+  accept: {read: {kind: 'accept'}, use: ALL_O},
+  /** Re-evaluate the stage with every archetype of its kind and every amplifier block of the note (DESIGN §8.8). */
+  alternatives: {read: {kind: 'flag'}, use: ALL_O}
 } as const satisfies Record<string, StageKeySpec>
 
 export type StageKey = keyof typeof STAGE_KEYS

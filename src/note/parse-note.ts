@@ -97,7 +97,8 @@ export function parseNote(file: VFile): ParsedNote {
   const blocks = file.data.blocks ?? {}
   const stages = (blocks.stage ?? []).filter((n): n is StageBlockNode => n.type === 'stageBlock')
   const opamps = (blocks.opamp ?? []).filter((n): n is OpampBlockNode => n.type === 'opampBlock')
+  const inas = (blocks.ina ?? []).filter((n): n is OpampBlockNode => n.type === 'opampBlock')
   const adcs = (blocks.adc ?? []).filter((n): n is AdcBlockNode => n.type === 'adcBlock')
   const chains = (blocks.chain ?? []).filter((n): n is ChainBlockNode => n.type === 'chainBlock')
-  return {meta, tree, stages, opamps, adcs, chains}
+  return {meta, tree, stages, opamps, adcs, chains, inas}
 }

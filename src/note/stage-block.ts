@@ -52,6 +52,8 @@ export interface BuiltStage {
   defaulted: DefaultedValue[]
   /** True when `input` was left out for the chain to supply (the input's range is a placeholder). */
   inputFromChain: boolean
+  /** True when the block asks for its input-technology alternatives (`alternatives: true`, DESIGN §8.8). */
+  alternatives: boolean
 }
 
 const RESISTOR_KEYS: readonly ResistorKey[] = ['rf', 'rg', 'rs', 'rcomp', 'rp', 'rref', 'r1', 'r2', 'r3', 'riso']
@@ -151,7 +153,7 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
   const inputFromChain = read.input === null && !read.given.has('input') && ctx.inputOptional === true
   const input: [number, number] | null = read.input ?? (inputFromChain ? [0, 0] : null)
   if (ctx.report.errors > errorsBefore || topology === null || opamp === null || input === null || supply === null) {
-    return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id), inputFromChain}
+    return {input: null, defaulted: topology === null ? [] : defaultsOf(read, topology, ctx.id), inputFromChain, alternatives: read.alternatives === true}
   }
   const q = read.quantities
   const stage: StageInput = {
@@ -196,5 +198,5 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     calibration: read.calibration ?? 'none',
     require: read.require
   }
-  return {input: stage, defaulted: defaultsOf(read, topology, ctx.id), inputFromChain}
+  return {input: stage, defaulted: defaultsOf(read, topology, ctx.id), inputFromChain, alternatives: read.alternatives === true}
 }

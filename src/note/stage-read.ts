@@ -46,11 +46,15 @@ export interface StageRead {
   temperature: [number, number] | null
   band: [number, number] | null
   require: Partial<Record<RequirementKey, number>>
+  /** `alternatives:` as written (DESIGN §8.8); null when not given or not readable. */
+  alternatives: boolean | null
   /** Every key written (valid or not), with its field: for missing-key and cross-key checks. */
   given: Map<string, Field>
 }
 
 const STAGE_KEY_NAMES = Object.keys(STAGE_KEYS)
+/** The words a flag key takes: YAML's `yes`, `on` and `1` are refused, so that a flag reads one way only. */
+const FLAG_WORDS = ['true', 'false'] as const
 
 const requirementDim = (unit: string, key: RequirementKey, topology: Topology | null): Dimension =>
   unit === 'deg' ? 'angle' : unit === 'Hz' ? 'frequency' : key === 'input-error' && topology === 'transimpedance' ? 'current' : 'voltage'
@@ -159,7 +163,7 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
   const read: StageRead = {
     topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
     capacitors: {}, inputCm: null,
-    input: null, supply: null, temperature: null, band: null, require: {}, given: new Map()
+    input: null, supply: null, temperature: null, band: null, require: {}, alternatives: null, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
   const topo = read.given.get('topology')
@@ -269,6 +273,11 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       case 'accept':
         readAccept(field, report)
         break
+      case 'flag': {
+        const word = choiceOf(field, FLAG_WORDS, report)
+        if (word !== null) read.alternatives = word === 'true'
+        break
+      }
     }
   }
   return read

@@ -70,6 +70,8 @@ export interface StageBlockNode {
   defaulted: DefaultedValue[]
   /** True when the block gives no `input`: a chain supplies it (DESIGN §8.6; `input` is then a placeholder). */
   inputFromChain?: true
+  /** True when the block says `alternatives: true`: evaluate it again with every candidate amplifier (DESIGN §8.8). */
+  alternatives?: true
   position?: Position
 }
 
@@ -95,6 +97,8 @@ export interface ParsedNote {
   adcs?: import('./chain-types.js').AdcBlockNode[]
   /** Chain blocks (DESIGN §8.6), in document order. */
   chains?: import('./chain-types.js').ChainBlockNode[]
+  /** `ina` blocks (DESIGN §8.2), in document order (their node carries `ina`, never `opamp`). */
+  inas?: OpampBlockNode[]
 }
 
 declare module 'mdast' {

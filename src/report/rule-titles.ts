@@ -9,6 +9,7 @@ export const RULE_TITLES: Record<NoteRuleId, string> = {
   'chain-range-underused': 'Converter range under-used',
   'chain-later-stage-noise': 'A later stage dominates the chain noise',
   'chain-converter-noise': 'Converter noise dominates',
+  'chain-riso-divider': 'Isolation resistor into the next stage’s input',
   'hazardous-voltage': 'Hazardous voltage or mains',
   'patient-connected': 'Patient-connected equipment',
   'battery-stored-energy': 'Battery stored energy',

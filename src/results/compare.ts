@@ -6,7 +6,7 @@
 import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
 import {formatQuantity, formatSlew} from '../units/format.js'
 import {gainUnit, inputUnit, requirementUnit} from './labels.js'
-import type {JsonStage} from './json.js'
+import type {JsonAlternative, JsonStage} from './json.js'
 import type {JsonChain} from './chain-json.js'
 import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 
@@ -16,6 +16,8 @@ type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> &
   dc: Pick<JsonStage['dc'], 'contributors' | 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'rssInput'>
   noise: Pick<JsonStage['noise'], 'outputRms' | 'outputPeakToPeak' | 'inputRms' | 'contributors'>
   stability: JsonStage['stability']
+  /** Absent in results written before alternatives existed (DESIGN §8.8). */
+  alternatives?: Pick<JsonAlternative, 'candidate' | 'worstCaseOutput' | 'outputRms' | 'phaseMargin'>[] | null
 }
 
 /** The parts of a run (`JsonRun`, declared once in ./json.ts) that a comparison reads. */
@@ -98,6 +100,12 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   for (const r of s.requirements) {
     if (r.kind !== 'limit') m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: typeof r.value === 'number' ? r.value : null})
     else if (typeof r.value === 'number') m.set(`limit.${r.key}`, {unit: r.key === 'slew' ? 'V/s' : r.key === 'output-current' ? 'A' : 'V', v: r.value})
+  }
+  // Alternatives are figures, not verdicts: their changes are listed, never counted as a regression.
+  for (const a of s.alternatives ?? []) {
+    m.set(`alternatives.${a.candidate}.worstCaseOutput`, {unit: 'V', v: a.worstCaseOutput})
+    m.set(`alternatives.${a.candidate}.outputRms`, {unit: 'V', v: a.outputRms})
+    m.set(`alternatives.${a.candidate}.phaseMargin`, {unit: '°', v: a.phaseMargin})
   }
   return m
 }

@@ -8,6 +8,8 @@ import type {StageEvaluation} from '../evaluate/index.js'
 import type {JsonChain} from './chain-json.js'
 
 export {jsonChain, type JsonChain} from './chain-json.js'
+import {jsonAlternatives, type JsonAlternative} from './alternatives-json.js'
+export type {JsonAlternative} from './alternatives-json.js'
 import type {Topology} from '../engine/types.js'
 import type {StageRole} from '../note/types.js'
 import type {NoteRuleId} from '../rules/index.js'
@@ -55,6 +57,8 @@ export interface JsonStage {
   notes: {rule: NoteRuleId; severity: string; text: string; accepted: string | null}[]
   /** `design`, or `baseline` (shown, not counted toward the verdict or the exit code). */
   role: StageRole
+  /** The stage with each candidate amplifier (DESIGN §8.8); null when not asked for. */
+  alternatives: JsonAlternative[] | null
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -105,7 +109,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     filter: r.filter === null ? null : {f0: finite(r.filter.f0), q: finite(r.filter.q), passbandGain: r.filter.passbandGain},
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
-    role: ev.role
+    role: ev.role,
+    alternatives: ev.alternatives === null ? null : jsonAlternatives(ev.alternatives)
   }
 }
 

@@ -2,7 +2,7 @@
  * People's names for the engine's keys, as printed in tables, charts and the cover.
  * Closed maps over the engine's key unions, so a new key without a label fails to compile.
  */
-import type {DcKey, LimitKey, NoiseKey, RequirementKey, Topology} from '../engine/types.js'
+import type {DcKey, InputType, LimitKey, NoiseKey, RequirementKey, Topology} from '../engine/types.js'
 
 export const DC_LABELS: Record<DcKey, string> = {
   vos: 'Offset voltage',
@@ -69,6 +69,15 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
   'lowpass-sallen-key': 'Sallen-Key low-pass filter',
   'lowpass-mfb': 'Multiple-feedback low-pass filter',
   instrumentation: 'Instrumentation amplifier'
+}
+
+/** Input technologies (DESIGN §3.2), as the trade writes them. */
+export const INPUT_TYPE_LABELS: Record<InputType, string> = {
+  bipolar: 'bipolar',
+  'bipolar-cancelled': 'bias-cancelled bipolar',
+  jfet: 'JFET',
+  cmos: 'CMOS',
+  'zero-drift': 'zero-drift'
 }
 
 /** Unit of the stage's input quantity: A for transimpedance, V otherwise. */

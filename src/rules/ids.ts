@@ -30,7 +30,7 @@ export type RuleId = (typeof RULE_IDS)[number]
 export const isRuleId = (s: string): s is RuleId => (RULE_IDS as readonly string[]).includes(s)
 
 /** Ids of the chain rules (DESIGN §8.6), run on a chain rather than a stage. */
-export const CHAIN_RULE_IDS = ['chain-aliasing', 'chain-range-underused', 'chain-later-stage-noise', 'chain-converter-noise'] as const
+export const CHAIN_RULE_IDS = ['chain-aliasing', 'chain-range-underused', 'chain-later-stage-noise', 'chain-converter-noise', 'chain-riso-divider'] as const
 export type ChainRuleId = (typeof CHAIN_RULE_IDS)[number]
 
 /** The id a note carries: a stage rule's or a chain rule's. */

@@ -16,8 +16,8 @@
  *       `check` — time per MB.
  *
  * Everything is written under one temporary folder, removed at the end; sample-designs/ is
- * only read. Usage: `node test/bench/bench.mjs [--quick]` (--quick: fewer repetitions, no
- * 1,000-stage note).
+ * only read. Usage: `node test/bench/bench.mjs [--quick] [--chain]` (--quick: fewer repetitions, no
+ * 1,000-stage note; --chain: only the chain rows of (b), for a quick look).
  */
 import {spawn} from 'node:child_process'
 import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync} from 'node:fs'
@@ -29,6 +29,7 @@ const ROOT = resolve(import.meta.dirname, '..', '..')
 const CLI = join(ROOT, 'dist', 'bin', 'index.js')
 const SAMPLES = join(ROOT, 'sample-designs')
 const QUICK = process.argv.includes('--quick')
+const CHAIN_ONLY = process.argv.includes('--chain')
 const REPEAT = QUICK ? 3 : 5
 const TMP = mkdtempSync(join(tmpdir(), 'ampreview-bench-'))
 const started = performance.now()
@@ -143,11 +144,97 @@ date: 2026-11-30
 
 ${Array.from({length: stages}, (_v, i) => `## Stage ${i + 1}\n\n${STAGE_BLOCKS[i % 4](i)}\n`).join('\n')}`
 
+/** Print the table of every row so far (and remove the temporary folder). */
+function printTable() {
+  rmSync(TMP, {recursive: true, force: true})
+  const cpu = (() => {
+    try {
+      return /^model name\s*:\s*(.*)$/m.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? 'unknown'
+    } catch {
+      return 'unknown'
+    }
+  })()
+  const header = {section: '', measure: 'measure', value: 'value', target: 'target', verdict: 'verdict'}
+  const cols = ['section', 'measure', 'value', 'target', 'verdict']
+  const widths = cols.map((c) => Math.max(...[header, ...rows].map((r) => String(r[c]).length)))
+  const line = (r) => cols.map((c, i) => String(r[c]).padEnd(widths[i])).join('  ').trimEnd()
+  console.log(`ampreview bench — ${availableParallelism()} cores, ${cpu}, node ${process.version}${QUICK ? ', --quick' : ''}${CHAIN_ONLY ? ', --chain' : ''}`)
+  console.log(line(header))
+  console.log(widths.map((w) => '-'.repeat(w)).join('  '))
+  for (const r of rows) console.log(line(r))
+  console.log(`(bench took ${((performance.now() - started) / 1000).toFixed(0)} s)`)
+}
+
+/**
+ * (b2) Measurement chains of four stages into a converter (DESIGN §8.6), in this process (one
+ * core): the cascade alone (each stage evaluated once beforehand), and the whole chain with
+ * its four stage evaluations — for four op-amp stages, and for instrumentation → inverting
+ * with cf → Sallen–Key → multiple feedback.
+ */
+async function chainBench() {
+  progress('chain evaluations')
+  const {ARCHETYPES, INA_ARCHETYPES, inaAsOpamp, evaluateStage, evaluateChain, stageSpectrum, ADC_ARCHETYPES} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
+  const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
+  const cap = (value, tolerance = 0.05) => ({value, tolerance})
+  const base = {
+    id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
+    rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
+    supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
+    idarkMax: null, idarkDoubling: 10, signalFrequency: null, rload: null, calibration: 'none',
+    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null, riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
+    require: {}
+  }
+  const ina = INA_ARCHETYPES['precision-ina']
+  const chains = {
+    'op-amp stages': [
+      {...base, id: 's1'},
+      {...base, id: 's2', topology: 'inverting', rf: res(10e3), rg: res(10e3), rs: null, cf: 100e-9, input: [-1, 1]},
+      {...base, id: 's3', rf: res(1e3), rg: res(1e3), rs: null, input: [-1, 1]},
+      {...base, id: 's4', topology: 'follower', rf: null, rg: null, rs: null, input: [-2, 2]}
+    ],
+    'instrumentation → inverting → Sallen–Key → MFB': [
+      {...base, id: 't1', topology: 'instrumentation', ina, opamp: inaAsOpamp(ina), rf: null, rg: res(499, 0.001, 10e-6), rs: res(175, 0, 0), inputCm: [2.5, 2.5]},
+      {...base, id: 't2', topology: 'inverting', rf: res(10e3), rg: res(10e3), rs: null, cf: 10e-9, input: [-1, 1]},
+      {...base, id: 't3', topology: 'lowpass-sallen-key', rf: null, rg: null, rs: null, r1: res(10e3), r2: res(10e3), c1: cap(220e-9), c2: cap(100e-9), input: [-1, 1]},
+      {...base, id: 't4', topology: 'lowpass-mfb', opamp: ARCHETYPES['precision-cmos'], rf: null, rg: null, rs: null,
+        r1: res(10e3), r2: res(20e3), r3: res(10e3), c1: cap(10e-9), c2: cap(470e-9), input: [-1, 1], supply: [-5, 5]}
+    ]
+  }
+  const viewsOf = (evaluated) => evaluated.map(({input, result}) => ({
+    id: input.id, gain: result.gain, contributors: result.dc.contributors, calibrated: null, outputSpan: result.swing.outputSpan,
+    inputSpan: input.input, bandwidth: result.stability.bandwidth, spectrum: stageSpectrum(input)
+  }))
+  const CHAINS = QUICK ? 200 : 1000
+  for (const [name, stages] of Object.entries(chains)) {
+    const chainInput = {id: 'bench-chain', title: 'bench', stages: stages.map((s) => s.id), adc: ADC_ARCHETYPES['delta-sigma-24'],
+      temperature: [0, 50], band: [0.1, 10], calibration: 'none', require: {'noise-free-bits': 16}}
+    const wholeChain = () => evaluateChain(chainInput, viewsOf(stages.map((input) => ({input, result: evaluateStage(input)}))))
+    const evaluatedOnce = stages.map((input) => ({input, result: evaluateStage(input)}))
+    for (let i = 0; i < 50; i++) wholeChain()
+    let t0 = performance.now()
+    for (let i = 0; i < CHAINS; i++) evaluateChain(chainInput, viewsOf(evaluatedOnce))
+    const cascadeMs = (performance.now() - t0) / CHAINS
+    t0 = performance.now()
+    for (let i = 0; i < CHAINS; i++) wholeChain()
+    const chainMs = (performance.now() - t0) / CHAINS
+    row('b', `chain of 4 ${name} + converter, cascade only (${CHAINS} runs)`, `${cascadeMs.toFixed(3)} ms`, '—')
+    row('b', `chain of 4 ${name} + converter, with its 4 stage evaluations (${CHAINS} runs)`, `${chainMs.toFixed(3)} ms`, '< 2 ms', chainMs < 2)
+  }
+}
+
+
 // ---------------------------------------------------------------------------------------
 // (a) Floor, cold build, cold check
 
 const rows = []
 const row = (section, measure, value, target, ok) => rows.push({section, measure, value, target: target ?? '', verdict: ok === undefined ? '' : ok ? 'pass' : 'FAIL'})
+
+// `--chain`: only the chain rows, for a quick look on a busy machine.
+if (CHAIN_ONLY) {
+  await chainBench()
+  printTable()
+  process.exit(0)
+}
 
 // Rounds side by side: in each round the floor, the build, `node -e 0` and the check run
 // one after the other, so that load from other work falls on both sides of each ratio.
@@ -280,37 +367,7 @@ const overall = allEvals / allSeconds
 for (const [name, rate] of Object.entries(rates)) row('b', `evaluateStage, ${name} (${EVALS} runs)`, `${rate.toFixed(0)} /s`, '≥ 2000 /s', rate >= 2000)
 row('b', 'evaluateStage, all topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
 
-// ---------------------------------------------------------------------------------------
-// (b2) A measurement chain of four stages into a converter (DESIGN §8.6), in this process:
-// the cascade alone (each stage evaluated once beforehand), and the whole chain with its
-// four stage evaluations.
-
-progress('chain evaluations')
-const {evaluateChain, stageSpectrum, ADC_ARCHETYPES} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
-const chainStages = [
-  {...base, id: 's1'},
-  {...inputs.inverting, id: 's2', rf: res(10e3), rg: res(10e3), cf: 100e-9, input: [-1, 1], band: [0.1, 10]},
-  {...base, id: 's3', rf: res(1e3), rg: res(1e3), rs: null, input: [-1, 1]},
-  {...base, id: 's4', topology: 'follower', rf: null, rg: null, rs: null, input: [-2, 2]}
-]
-const chainInput = {id: 'bench-chain', title: 'bench', stages: chainStages.map((s) => s.id), adc: ADC_ARCHETYPES['delta-sigma-24'],
-  temperature: [0, 50], band: [0.1, 10], calibration: 'none', require: {'noise-free-bits': 16}}
-const viewsOf = (evaluated) => evaluated.map(({input, result}) => ({
-  id: input.id, gain: result.gain, contributors: result.dc.contributors, calibrated: null, outputSpan: result.swing.outputSpan,
-  inputSpan: input.input, bandwidth: result.stability.bandwidth, spectrum: stageSpectrum(input)
-}))
-const wholeChain = () => evaluateChain(chainInput, viewsOf(chainStages.map((input) => ({input, result: evaluateStage(input)}))))
-const evaluatedOnce = chainStages.map((input) => ({input, result: evaluateStage(input)}))
-const CHAINS = QUICK ? 200 : 1000
-for (let i = 0; i < 50; i++) wholeChain()
-let t0 = performance.now()
-for (let i = 0; i < CHAINS; i++) evaluateChain(chainInput, viewsOf(evaluatedOnce))
-const cascadeMs = (performance.now() - t0) / CHAINS
-t0 = performance.now()
-for (let i = 0; i < CHAINS; i++) wholeChain()
-const chainMs = (performance.now() - t0) / CHAINS
-row('b', `chain of 4 stages + converter, cascade only (${CHAINS} runs)`, `${cascadeMs.toFixed(3)} ms`, '—')
-row('b', `chain of 4 stages + converter, with its 4 stage evaluations (${CHAINS} runs)`, `${chainMs.toFixed(3)} ms`, '< 2 ms', chainMs < 2)
+await chainBench()
 
 // ---------------------------------------------------------------------------------------
 // (c) Large notes
@@ -422,20 +479,4 @@ for (const [what, name, text, command] of hostile) {
 // ---------------------------------------------------------------------------------------
 // The table
 
-rmSync(TMP, {recursive: true, force: true})
-const cpu = (() => {
-  try {
-    return /^model name\s*:\s*(.*)$/m.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? 'unknown'
-  } catch {
-    return 'unknown'
-  }
-})()
-const header = {section: '', measure: 'measure', value: 'value', target: 'target', verdict: 'verdict'}
-const cols = ['section', 'measure', 'value', 'target', 'verdict']
-const widths = cols.map((c) => Math.max(...[header, ...rows].map((r) => String(r[c]).length)))
-const line = (r) => cols.map((c, i) => String(r[c]).padEnd(widths[i])).join('  ').trimEnd()
-console.log(`ampreview bench — ${availableParallelism()} cores, ${cpu}, node ${process.version}${QUICK ? ', --quick' : ''}`)
-console.log(line(header))
-console.log(widths.map((w) => '-'.repeat(w)).join('  '))
-for (const r of rows) console.log(line(r))
-console.log(`(bench took ${((performance.now() - started) / 1000).toFixed(0)} s)`)
+printTable()

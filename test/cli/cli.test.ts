@@ -85,7 +85,8 @@ describe('ampreview CLI', () => {
     expect(out.files).toHaveLength(1)
     expect(out.files[0]!.sourceSha256).toMatch(/^[0-9a-f]{64}$/)
     expect(Object.keys(out.files[0]!.stages[0]!)).toEqual(
-      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role'])
+      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives'])
+    expect(out.files[0]!.stages[0]!['alternatives']).toBeNull()
   })
 
   it.each([

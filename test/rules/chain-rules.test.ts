@@ -53,3 +53,42 @@ describe('chain-aliasing', () => {
     expect(rulesOf(md)).not.toContain('chain-aliasing')
   })
 })
+
+describe('chain-riso-divider', () => {
+  const invStage = (id: string, rg: string, extra = ''): string =>
+    fence(`stage ${id}`, `topology: inverting\nopamp: precision-bipolar\nrf: 10k\nrg: ${rg}\nsupply: ±15 V\nband: 0.1 .. 10 Hz${extra}`)
+  const mfbStage = fence('stage m', 'topology: lowpass-mfb\nopamp: precision-bipolar\nr1: 4.99k\nr2: 10k\nr3: 10k\nc1: 10n\nc2: 100n\nsupply: ±15 V\nband: 0.1 .. 10 Hz')
+  const skStage = fence('stage s', 'topology: lowpass-sallen-key\nopamp: precision-bipolar\nr1: 10k\nr2: 10k\nc1: 100n\nc2: 47n\nsupply: ±15 V\nband: 0.1 .. 10 Hz')
+  const notesOf = (md: string) => evaluatedOf(md).chains[0]!.notes.filter((n) => n.rule === 'chain-riso-divider')
+
+  it('fires where a stage with riso drives an inverting stage, with riso/(riso + rg) and its LSB at full scale', () => {
+    const md = gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 100') + invStage('b', '10k') + fence('chain c', 'stages: [a, b]\nadc: sar-16')
+    const r = evaluatedOf(md)
+    const n = r.chains[0]!.notes.filter((x) => x.rule === 'chain-riso-divider')
+    expect(n).toHaveLength(1)
+    expect(n[0]!.severity).toBe('caution')
+    const divider = 100 / (100 + 10e3)
+    expect(n[0]!.text).toContain(`${(divider * 100).toPrecision(3)} %`)
+    expect(n[0]!.text).toContain('0.990 %')
+    // Carried to the chain output's full scale, in LSB of the converter (sar-16 archetype).
+    const c = r.chains[0]!.result
+    const fs = Math.max(...c.outputSpan.map(Math.abs))
+    expect(n[0]!.text).toContain(`${((divider * fs) / c.converter!.lsb).toPrecision(3)} LSB`)
+  })
+
+  it('fires into a multiple-feedback filter’s r1 (a DC gain error) and a Sallen–Key r1 (the response only)', () => {
+    const mfb = notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 49.9') + mfbStage + fence('chain c', 'stages: [a, m]'))
+    expect(mfb).toHaveLength(1)
+    expect(mfb[0]!.text).toContain(`${((49.9 / (49.9 + 4990)) * 100).toPrecision(3)} %`)
+    expect(mfb[0]!.text).toContain('gain error')
+    const sk = notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 49.9') + skStage + fence('chain c', 'stages: [a, s]'))
+    expect(sk).toHaveLength(1)
+    expect(sk[0]!.text).toContain('draws no current')
+  })
+
+  it('is silent with no riso, into a non-inverting input, and on the last stage (into the converter)', () => {
+    expect(notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V') + invStage('b', '10k') + fence('chain c', 'stages: [a, b]'))).toEqual([])
+    expect(notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 100') + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [a, b]'))).toEqual([])
+    expect(notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V') + invStage('b', '10k', '\nriso: 100') + fence('chain c', 'stages: [a, b]\nadc: sar-16'))).toEqual([])
+  })
+})

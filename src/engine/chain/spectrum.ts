@@ -4,7 +4,12 @@
  * signal transfer H(f), both from the stage's own netlist and noise sources — the same
  * solve, compiled sources and densities as the stage's noise budget (`noise/budget.ts`), so
  * any topology that is a netlist for the nodal solver chains without code of its own.
+ *
+ * An instrumentation stage has no netlist (DESIGN §8.2): its view is the block model of
+ * `../instrumentation.ts` — the same output densities as its own noise budget (en-in, en-out,
+ * in+, in-, r:rs, r:rg, each already through |H|²) and H = G/(1 + jf/(gbw/G)).
  */
+import {INA_NOISE_KEYS, inaDensitiesInto, inaGain, inaTransfer} from '../instrumentation.js'
 import {createWorkspace, solveClosed} from '../nodal.js'
 import {noiseSources} from '../noise/sources.js'
 import {compileSources, outputPsdInto} from '../noise/transfer.js'
@@ -14,6 +19,7 @@ import type {StageSpectrum} from './types.js'
 
 /** The spectral view of a stage (one workspace, reused for every frequency). */
 export function stageSpectrum(input: StageInput): StageSpectrum {
+  if (input.topology === 'instrumentation') return instrumentationSpectrum(input)
   const ws = createWorkspace(stageNetlist(input))
   const compiled = compileSources(ws, noiseSources(input, ws.net))
   const k = compiled.sources.length
@@ -33,6 +39,27 @@ export function stageSpectrum(input: StageInput): StageSpectrum {
       out[offset + 1] = signalAt < 0 ? sum : Math.max(0, sum - scratch[signalAt])
       out[offset + 2] = ws.hre
       out[offset + 3] = ws.him
+    }
+  }
+}
+
+/** The spectral view of an instrumentation stage, from the block model (see module header). */
+export function instrumentationSpectrum(input: StageInput): StageSpectrum {
+  if (input.ina === null || input.rg === null) throw new RangeError(`Unexpected instrumentation stage \`${input.id}\` without \`ina\` or \`rg\`, expected both`)
+  const k = INA_NOISE_KEYS.length
+  const scratch = new Float64Array(k)
+  return {
+    dcGain: inaGain(input.ina, input.rg.value),
+    signalNoise: false,
+    at(f, out, offset) {
+      inaDensitiesInto(input, f, scratch, 0)
+      let sum = 0
+      for (let i = 0; i < k; i++) sum += scratch[i]
+      const [re, im] = inaTransfer(input, f)
+      out[offset] = sum
+      out[offset + 1] = sum
+      out[offset + 2] = re
+      out[offset + 3] = im
     }
   }
 }

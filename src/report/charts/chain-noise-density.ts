@@ -6,15 +6,36 @@
  */
 import type {TopLevelSpec} from 'vega-lite'
 import type {ChainCurves} from '../../engine/chain/types.js'
-import {NOISE_KEYS} from '../../engine/types.js'
+import type {NoiseKey} from '../../engine/types.js'
 import {CHART_CONFIG, CHART_HEIGHT, CHART_WIDTH, CONTRIBUTOR_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} from './theme.js'
 import {SI_AXIS_FORMAT, decadeDomain, extent, logFrequencyX, logTicks, plottablePoints, type Point} from './scales.js'
 import {TOTAL_LABEL} from './noise-density.js'
 
 const LINE = {type: 'line', clip: true, strokeCap: 'butt', strokeJoin: 'round'} as const
 
-/** Stage k's line style: the contributor styles in order, round again after ten. */
-export const stageStyle = (k: number): LineStyle => NOISE_STYLES[NOISE_KEYS[k % NOISE_KEYS.length]!]
+/**
+ * The contributor styles a chain's stages take, in order: each a colour of its own (the
+ * contributor table repeats colours between keys that never share a stage, such as en and en-in).
+ */
+const STAGE_STYLE_KEYS: readonly NoiseKey[] = ['en', 'in+', 'r:rf', 'en-out', 'r:rs', 'in-', 'r:rcomp', 'r:rshunt', 'r:rload', 'shot-signal']
+
+/** Stage k's line style: a colour and dash of its own, round again after ten. */
+export const stageStyle = (k: number): LineStyle => NOISE_STYLES[STAGE_STYLE_KEYS[k % STAGE_STYLE_KEYS.length]!]
+
+/** The 2 % of the stage charts: a stage line closer than this to the total lies under it. */
+const COINCIDE_RATIO = 1.02
+
+/** Stages whose part is the total within 2 % across the band (their line lies under the total's). */
+export function stagesUnderTotal(curves: ChainCurves, stages: readonly string[]): string[] {
+  return stages.filter((_, k) => {
+    const a = curves.stageDensity[k] ?? []
+    return a.length > 0 && a.length === curves.total.length &&
+      a.every((x, i) => {
+        const y = curves.total[i]!
+        return x > 0 && y > 0 && Math.max(x / y, y / x) <= COINCIDE_RATIO
+      })
+  })
+}
 
 /**
  * @param curves

@@ -3,7 +3,7 @@
  * labelled, the wires and junctions whose conditions hold. Parts the stage lacks are not
  * drawn; a series part's place is then taken by the layout's `unless` wire.
  */
-import {OPAMP_PINS, placeSymbol, transformPoint} from './symbols.js'
+import {INAMP_PINS, OPAMP_PINS, placeSymbol, transformPoint} from './symbols.js'
 import type {Condition, Drawing, DrawnPart, Layout, PartKey, Placement, Point, Primitive} from './types.js'
 
 /** Label text of a present part: the first line (its key) is set bold. */
@@ -54,12 +54,13 @@ function labelLines(lines: readonly string[], place: Placement, box: Box): Primi
   })
 }
 
-/** The op-amp's name where the layout puts it, the supply rails at its supply leads. */
-function opampLabels(lines: readonly string[], at: Point, name: Point, supply: PartLabel | undefined): Primitive[] {
+/** The amplifier's name where the layout puts it, the supply rails at its supply leads. */
+function amplifierLabels(symbol: 'opamp' | 'inamp', lines: readonly string[], at: Point, name: Point, supply: PartLabel | undefined): Primitive[] {
   const out: Primitive[] = lines.map((s, i) => text(name[0], name[1] + i * LINE_PITCH, s, 'start', i === 0))
   const [vpos, vneg] = supply?.lines ?? []
-  const p = transformPoint(OPAMP_PINS.vpos, at, 0)
-  const m = transformPoint(OPAMP_PINS.vneg, at, 0)
+  const pins = symbol === 'opamp' ? OPAMP_PINS : INAMP_PINS
+  const p = transformPoint(pins.vpos, at, 0)
+  const m = transformPoint(pins.vneg, at, 0)
   if (vpos !== undefined) out.push(text(p[0] - GAP, p[1], vpos, 'end', false))
   if (vneg !== undefined) out.push(text(m[0] - GAP, m[1], vneg, 'end', false))
   return out
@@ -144,17 +145,22 @@ export function drawLayout(layout: Layout, labels: ReadonlyMap<PartKey, PartLabe
   for (const place of layout.parts) {
     const label = place.with === undefined ? labels.get(place.key) : labels.has(place.with) ? {lines: []} : undefined
     if (label === undefined || (place.unless !== undefined && present(place.unless))) continue
+    if (place.when !== undefined && !present(place.when)) continue
+    if (place.whenAll !== undefined && !place.whenAll.every((k) => labels.has(k))) continue
     const primitives = placeSymbol(place.symbol, place.at, place.rotate ?? 0, place.plusOnTop ?? false)
-    // The op-amp's inputs and output sit on its outline, not on a lead: each is one wire end.
-    const pins = place.symbol === 'opamp' ? [OPAMP_PINS.upper, OPAMP_PINS.lower, OPAMP_PINS.out].map((p) => transformPoint(p, place.at, 0)) : []
+    // The amplifier's inputs, output and gain pins sit on its outline, not on a lead: each is one wire end.
+    const outline = place.symbol === 'opamp' ? [OPAMP_PINS.upper, OPAMP_PINS.lower, OPAMP_PINS.out]
+      : place.symbol === 'inamp' ? [INAMP_PINS.upper, INAMP_PINS.lower, INAMP_PINS.rgTop, INAMP_PINS.rgBottom, INAMP_PINS.out] : []
+    const pins = outline.map((p) => transformPoint(p, place.at, 0))
     parts.push({key: place.key, symbol: place.symbol, primitives, pins})
-    if (place.symbol === 'opamp') texts.push(...opampLabels(label.lines, place.at, layout.opampLabel, labels.get('supply')))
+    if (place.symbol === 'opamp' || place.symbol === 'inamp') texts.push(...amplifierLabels(place.symbol, label.lines, place.at, layout.opampLabel, labels.get('supply')))
     else if (place.symbol !== 'ground' && label.lines.length > 0) texts.push(...labelLines(label.lines, place, boxOf(primitives.filter((p) => p.kind !== 'text'))))
   }
   const wiring: Primitive[] = []
   for (const w of layout.wires) {
     if (!present(w.when)) continue
     if (w.unless !== undefined && present(w.unless)) continue
+    if (w.whenAll !== undefined && !w.whenAll.every((k) => labels.has(k))) continue
     wiring.push({kind: 'line', points: w.points})
   }
   wiring.push(...junctions(parts, wiring))

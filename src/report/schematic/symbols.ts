@@ -1,7 +1,8 @@
 /**
  * The symbol set of our schematics, after IEC 60617 (shapes from memory of the standard's
  * graphical symbols for diagrams): rectangle resistor, two-plate capacitor, triangle
- * amplifier, circle sources (a line along the conductors for a voltage source, across
+ * amplifier (the instrumentation amplifier a taller triangle with its gain-resistor pins and
+ * reference lead), circle sources (a line along the conductors for a voltage source, across
  * them for a current source), a three-bar ground and an open-circle terminal.
  *
  * Each symbol is drawn in local coordinates with its first pin at the origin; two-terminal
@@ -16,6 +17,14 @@ export const PART_LENGTH = 40
 
 /** Op-amp pins relative to its origin (the upper input). */
 export const OPAMP_PINS = {upper: [0, 0], lower: [0, 30], out: [60, 15], vpos: [20, -20], vneg: [20, 50]} as const
+
+/**
+ * Instrumentation-amplifier pins relative to its origin (the − input): the gain-resistor pins
+ * between the inputs on the left edge, the reference lead down from the lower edge.
+ */
+export const INAMP_PINS = {
+  upper: [0, 0], lower: [0, 80], rgTop: [0, 20], rgBottom: [0, 60], out: [100, 40], vpos: [40, -25], vneg: [40, 105], ref: [70, 105]
+} as const
 
 /** Size of the text inside symbols, pt. */
 const MARK_SIZE = 8
@@ -52,6 +61,13 @@ export function symbolPrimitives(symbol: SymbolName, plusOnTop = false): Primiti
         mark(7, 0, upper), mark(7, 30, lower)
       ]
     }
+    case 'inamp':
+      // Edges: upper y = −20 + 0.6x, lower y = 100 − 0.6x.
+      return [
+        {kind: 'polygon', points: [[0, -20], [0, 100], [100, 40]], fill: false},
+        line([40, 4], INAMP_PINS.vpos), line([40, 76], INAMP_PINS.vneg), line([70, 58], INAMP_PINS.ref),
+        mark(7, 0, '−'), mark(7, 80, '+'), mark(60, 48, 'ref')
+      ]
   }
 }
 

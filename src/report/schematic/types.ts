@@ -21,7 +21,7 @@ export type Primitive =
 
 /** The symbols of our set (IEC 60617 shapes; see `symbols.ts`). */
 export const SYMBOL_NAMES = [
-  'resistor', 'capacitor', 'opamp', 'voltage-source', 'current-source', 'ground', 'terminal'
+  'resistor', 'capacitor', 'opamp', 'inamp', 'voltage-source', 'current-source', 'ground', 'terminal'
 ] as const
 export type SymbolName = (typeof SYMBOL_NAMES)[number]
 
@@ -60,6 +60,10 @@ export interface Placement {
   with?: PartKey
   /** Drawn only while none of these parts is present (the ground that replaces an absent reference). */
   unless?: Condition
+  /** Drawn only while one of these parts is present (the output terminal placed after a load). */
+  when?: Condition
+  /** Drawn only while every one of these parts is present (rload moved out past cload). */
+  whenAll?: readonly PartKey[]
 }
 
 
@@ -72,6 +76,8 @@ export interface Wire {
   points: readonly Point[]
   when?: Condition
   unless?: Condition
+  /** Drawn only if every one of these parts is present. */
+  whenAll?: readonly PartKey[]
 }
 
 /**
@@ -81,7 +87,7 @@ export interface Wire {
 export interface Layout {
   width: number
   height: number
-  /** Where the op-amp's name starts (its first line, left-aligned; further lines below). */
+  /** Where the amplifier's name starts (its first line, left-aligned; further lines below). */
   opampLabel: Point
   parts: readonly Placement[]
   wires: readonly Wire[]

@@ -20,7 +20,9 @@ const CONVERTER_LABELS: Record<string, string> = {
 const label = (source: string, key: string, converter: string | null): string =>
   source === converter ? CONVERTER_LABELS[key] ?? key : (DC_LABELS as Record<string, string>)[key] ?? key
 
-const lsbText = (v: number | null): string => (v === null ? '—' : `${v.toFixed(v < 10 ? 2 : v < 100 ? 1 : 0)} LSB`)
+/** A count of LSB: the number alone in the tables' "In LSB" columns, with the unit elsewhere. */
+const lsbNumber = (v: number | null): string => (v === null ? '—' : v.toFixed(v < 10 ? 2 : v < 100 ? 1 : 0))
+const lsbText = (v: number | null): string => (v === null ? '—' : `${lsbNumber(v)} LSB`)
 
 export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows: {key: string; output: number}[]; contributors: Table; zeros: BlockContent[]} {
   const r = ev.result
@@ -38,7 +40,7 @@ export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows
   let at = 0
   const row = (name: string | ReturnType<typeof strong>, v: number, share: string) => {
     const i = at++
-    return [[name], atConverter[i] as string, atInput[i] as string, lsbText(lsb === null ? null : v / lsb), share]
+    return [[name], atConverter[i] as string, atInput[i] as string, lsbNumber(lsb === null ? null : v / lsb), share]
   }
   const rows = sourceRows.map((s) => row(s.key, s.output, total > 0 ? pct(s.output / total) : '—'))
   rows.push(row(strong('Worst case (sum)'), total, '100.0 %'), row(strong('RSS'), r.dc.rssOutput, '—'))
@@ -56,7 +58,7 @@ export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows
   const contributorRows = nonzero.map((c, i) => [
     c.source, [label(c.source, c.key, converter), ' (', code(c.key), ')'], outCol[i] as string,
     ...(calibrated === null ? [] : [calCol[i] as string]),
-    lsbText(lsb === null ? null : c.output / lsb), total > 0 ? pct(c.output / total) : '—'
+    lsbNumber(lsb === null ? null : c.output / lsb), total > 0 ? pct(c.output / total) : '—'
   ])
   const contributors = table(['Source', 'Contributor', 'At converter input', ...(calibrated === null ? [] : ['After calibration']), 'In LSB', 'Share'],
     contributorRows, ['left', 'left', 'right', ...(calibrated === null ? [] : ['right' as const]), 'right', 'right'])

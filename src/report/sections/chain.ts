@@ -11,7 +11,7 @@ import type {ChainEvaluation} from '../../evaluate/chains.js'
 import type {StageEvaluation} from '../../evaluate/index.js'
 import type {AdcBlockNode, ChainBlockNode} from '../../note/chain-types.js'
 import {TOPOLOGY_LABELS} from '../../results/labels.js'
-import {chainDiagramSpec, chainNoiseDensitySpec, cumulativeRmsSpec, dcBarsSpec} from '../charts/index.js'
+import {chainDiagramSpec, chainNoiseDensitySpec, cumulativeRmsSpec, dcBarsSpec, stagesUnderTotal} from '../charts/index.js'
 import {nextTable, type ReportContext} from '../context.js'
 import {pct, q, verdictText} from '../format.js'
 import {callout, caption, code, heading, paragraph, strong, table} from '../mdast.js'
@@ -77,6 +77,10 @@ function requirementBlocks(ev: ChainEvaluation): BlockContent[] {
 }
 
 /** The section of an adc block: its values as written and as used. */
+/** The caption's clause for stage lines that lie under the total's (within 2 %). */
+const underTotal = (ids: readonly string[]): string =>
+  ids.length === 0 ? '' : `; ${ids.map((id) => `stage ${id}`).join(' and ')} ${ids.length === 1 ? 'carries' : 'carry'} nearly all of it (within 2 % of the total), so ${ids.length === 1 ? 'its line lies' : 'their lines lie'} under the total's`
+
 export function adcSection(ctx: ReportContext, node: AdcBlockNode): BlockContent[] {
   return [heading(3, 'Converter ', code(node.id)), caption(nextTable(ctx, `Converter ${node.id}, as written`)), entriesTable(node.entries, node.defaulted)]
 }
@@ -116,7 +120,8 @@ export function chainSection(ctx: ReportContext, ev: ChainEvaluation, stages: Re
       `over ${q(r.band[0], 'Hz')} … ${q(r.band[1], 'Hz')} (brick-wall, after any digital filtering)` +
       (c === null ? '.' : `; at the converter σ = √(σchain² + noise² + LSB²/12).`)),
     caption(nextTable(ctx, `Noise of chain ${ev.input.id} by stage`)), chainNoiseTable(ev),
-    chainFigure(ctx, chainNoiseDensitySpec(r.curves, r.stages), `Noise density of chain ${ev.input.id} at the converter input: each stage’s part and the total`),
+    chainFigure(ctx, chainNoiseDensitySpec(r.curves, r.stages), `Noise density of chain ${ev.input.id} at the converter input: each stage’s part and the total` +
+      underTotal(stagesUnderTotal(r.curves, r.stages))),
     chainFigure(ctx, cumulativeRmsSpec({noiseFrequency: r.curves.frequency, cumulativeRms: r.curves.cumulativeRms}, {axisTitle: 'Cumulative noise at the converter input, rms'}),
       `Cumulative noise of chain ${ev.input.id} from the band’s lower edge (analog chain only)`))
 

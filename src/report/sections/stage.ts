@@ -16,15 +16,15 @@ import {dcFigure, loopFigure, noiseFigures, responseFigure} from './figures.js'
 import {AS_WRITTEN, archetypeNotice, entriesTable, inaValuesTable} from './parameters.js'
 import {INA_ARCHETYPE_DISCLAIMER} from '../../engine/ina-archetypes.js'
 import {requirementBlocks} from './requirements.js'
+import {alternativesBlocks} from './alternatives.js'
 import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
 import type {StageInput} from '../../engine/types.js'
 import {stageSchematic} from '../schematic/stage.js'
 
-/** The stage's schematic, first in its section; a topology without a layout says so. */
+/** The stage's schematic, first in its section. */
 function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
   const drawing = stageSchematic(input)
-  if (drawing === null) return paragraph(`No schematic is drawn for the ${input.topology} topology yet; the parameters table lists its parts.`)
   return {type: 'schematic', number: ++ctx.figure, drawing,
     caption: `Schematic of stage ${input.id}: every part with its key and nominal value (tolerances in the parameters table)`}
 }
@@ -91,7 +91,9 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   const op = input.opamp
   const out: BlockContent[] = [
     heading(2, `Stage ${input.id} — ${input.title}`),
-    paragraph(`${TOPOLOGY_LABELS[input.topology]} on ${input.ina ? 'instrumentation amplifier' : 'op-amp'} `, code(op.name), op.archetype ? ' (archetype).' : '.')
+    input.ina
+      ? paragraph('Integrated instrumentation amplifier ', code(op.name), op.archetype ? ' (archetype).' : '.')
+      : paragraph(`${TOPOLOGY_LABELS[input.topology]} on op-amp `, code(op.name), op.archetype ? ' (archetype).' : '.')
   ]
   out.push(schematicBlock(ctx, input))
   if (input.ina) {
@@ -142,6 +144,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
   }
 
   out.push(heading(3, 'Requirements'), ...requirementBlocks(ev))
+  out.push(...alternativesBlocks(ctx, ev))
   out.push(heading(3, 'Practice and safety notes'), ...noteBlocks(ev.notes, shared, input.id, ctx.coverNotes))
   return out
 }

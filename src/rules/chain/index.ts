@@ -6,6 +6,7 @@ import chainAliasing from './chain-aliasing.js'
 import chainConverterNoise from './chain-converter-noise.js'
 import chainLaterStageNoise from './chain-later-stage-noise.js'
 import chainRangeUnderused from './chain-range-underused.js'
+import chainRisoDivider from './chain-riso-divider.js'
 import type {RuleNote} from '../types.js'
 import type {ChainRule, ChainRuleContext} from './rule.js'
 
@@ -19,7 +20,8 @@ export const CHAIN_RULES: {readonly [Id in ChainRuleId]: ChainRule<Id>} = {
   'chain-aliasing': chainAliasing,
   'chain-range-underused': chainRangeUnderused,
   'chain-later-stage-noise': chainLaterStageNoise,
-  'chain-converter-noise': chainConverterNoise
+  'chain-converter-noise': chainConverterNoise,
+  'chain-riso-divider': chainRisoDivider
 }
 
 /** Run every chain rule, in `CHAIN_RULE_IDS` order, stamping each note with its rule id. */

@@ -41,7 +41,7 @@ describe('src/report/charts', () => {
     expect(Object.keys(charts).sort()).toEqual([
       'CHART_CONFIG', 'CHART_FONT_FAMILY', 'CHART_WIDTH', 'NOISE_STYLES', 'NO_CROSSOVER_TEXT', 'TOTAL_LABEL', 'TOTAL_STYLE',
       'chainDiagramSpec', 'chainNoiseDensitySpec', 'cumulativeRmsSpec', 'dcBarsSpec', 'faceOfWeight', 'hasGlyphs', 'loopGainSpec',
-      'measureText', 'noiseDensitySpec', 'responseSpec', 'stageStyle'
+      'measureText', 'noiseDensitySpec', 'responseSpec', 'stageStyle', 'stagesUnderTotal'
     ])
   })
 })

@@ -1,7 +1,8 @@
 /**
  * Inverting stage, − input on top: source → rs → rg → − pin, cstray to ground; rf (∥ cf,
  * above it) from the output back to the − pin over the op-amp; + pin down through rcomp
- * (∥ ccomp) to the reference, or to ground when vref is 0 V.
+ * (∥ ccomp) to the reference, or to ground when vref is 0 V, with cstray-plus; the load
+ * side (riso, cload, rload) right of the output node.
  */
 import type {Layout} from '../types.js'
 import {feedbackAbove, referenceBelow} from './shared.js'

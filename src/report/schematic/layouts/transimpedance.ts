@@ -1,7 +1,8 @@
 /**
  * Transimpedance stage, − input on top: the source current (into the − pin) with rshunt,
  * csource and cstray from the − pin to ground; rf (∥ cf) over the op-amp; + pin down through
- * rcomp (∥ ccomp) to the reference, or to ground when vref is 0 V.
+ * rcomp (∥ ccomp) to the reference, or to ground when vref is 0 V, with cstray-plus; the
+ * load side (riso, cload, rload) right of the output node.
  */
 import type {Layout} from '../types.js'
 import {feedbackAbove, referenceBelow} from './shared.js'
