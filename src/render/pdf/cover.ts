@@ -28,7 +28,7 @@ export function isoDate(date: Date): string {
 /** A cover heading: outline level `depth`, set in the h3 size (the cover keeps to one page). */
 function heading(ctx: RenderContext, text: string, depth: Heading['depth']): void {
   const saved = ctx.theme
-  ctx.theme = {...saved, fontSizes: {...saved.fontSizes, h2: saved.fontSizes.h3}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore * 0.45}}
+  ctx.theme = {...saved, fontSizes: {...saved.fontSizes, h2: saved.fontSizes.h3}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore * 0.3}}
   try {
     ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
   } finally {
@@ -160,7 +160,7 @@ function drawCoverPage(ctx: RenderContext, report: ReportDocument, date: Date): 
     // Compact rows: the small size and tight padding, the verdict one word (a baseline
     // stage says so in its stage cell and in the lines below), so that a row is one line.
     const saved = ctx.theme
-    ctx.theme = {...saved, fontSizes: {...saved.fontSizes, table: saved.fontSizes.small}, spacing: {...saved.spacing, cellPadding: Math.min(saved.spacing.cellPadding, 1.5)}}
+    ctx.theme = {...saved, fontSizes: {...saved.fontSizes, table: saved.fontSizes.small}, spacing: {...saved.spacing, cellPadding: Math.min(saved.spacing.cellPadding, 1.2)}}
     try {
       drawTable(ctx, {
         header: ['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'].map((text) => ({text})),
