@@ -21,6 +21,7 @@ describe('keepTogether()', () => {
     expect(keepTogether('rule bias-over-temperature-missing, key require.output-error, 5 µV p-p on 2026-11-30'))
       .toBe('rule bias\u2011over\u2011temperature\u2011missing, key require.output\u2011error, 5\u00A0µV p\u2011p on 2026\u201111\u201130')
     expect(keepTogether('in- and −5 V, (-51 %)')).toBe('in- and −5\u00A0V, (-51\u00A0%)')
+    expect(keepTogether('✓ met, ✗ NOT MET, – skipped, 8 – 10')).toBe('✓\u00A0met, ✗\u00A0NOT\u00A0MET, –\u00A0skipped, 8 – 10')
   })
 
   it('uses a glyph every DejaVu face carries', () => {

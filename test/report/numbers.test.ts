@@ -11,9 +11,11 @@ import {column} from '../../src/report/format.js'
 import {formatSlew} from '../../src/units/format.js'
 import {RULE_IDS} from '../../src/rules/index.js'
 import {readPdf} from '../render/helpers.js'
-import {pdfOf, reportOf, sample} from './helpers.js'
+import {pdfOf, reportOf, ROOT, sample} from './helpers.js'
+import {readdirSync} from 'node:fs'
+import {join} from 'node:path'
 
-const SAMPLES = ['reference-buffer.md', 'load-cell-bridge.md', 'weigh-scale-chain.md', 'photodiode-receiver.md', 'current-shunt-monitor.md']
+const SAMPLES = readdirSync(join(ROOT, 'sample-designs')).filter((f) => f.endsWith('.md')).sort()
 
 describe('formatSlew()', () => {
   it.each([
@@ -128,6 +130,8 @@ describe('no line break inside a unit, an id, a key or p-p', () => {
       const [a, b] = [drawn[i]!, drawn[i + 1]!]
       // A line that ends inside a word at a hyphen ("bias-over-", "p-") would continue with a lowercase letter.
       if (/[a-z0-9]-$/.test(a)) expect(`${a} | ${b}`).not.toMatch(/-\s\|\s[a-z]/)
+      // A verdict's mark never stands alone on its line ("–" above "skipped").
+      expect(a).not.toMatch(/^[✓✗–]$/)
       // A number never ends a line whose next starts with its unit.
       if (/\d$/.test(a)) expect(b).not.toMatch(/^[fpnµμmkMG]?(V|A|Hz|F|Ω|dB|%|ppm)\b/)
     }

@@ -117,8 +117,11 @@ const UNIT_AFTER_NUMBER = /(\d) (?=(?:[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB
  * test/render/keep-together.test.ts with fontkit). A reader copying the text gets a space.
  */
 export function keepTogether(text: string): string {
-  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0').replace(INNER_HYPHEN, NO_BREAK_HYPHEN)
+  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0').replace(INNER_HYPHEN, NO_BREAK_HYPHEN).replace(VERDICT_MARK, '$1\u00A0')
 }
+
+/** A verdict's mark and word stay on one line ("✓ met", "✗ NOT MET", "– skipped"). */
+const VERDICT_MARK = /([✓✗]|–(?= (?:skipped|not evaluated))|NOT(?= MET)) /g
 
 /**
  * A hyphen with a letter or digit on each side: inside a rule id (`phase-margin-low`), a key
