@@ -18,8 +18,15 @@ const isNum = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(
 const isNumOrNull = (v: unknown): boolean => v === null || isNum(v)
 
 function checkStage(s: Json): void {
-  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives'])
+  expect(Object.keys(s)).toEqual(['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives', 'yield'])
   expect(['design', 'baseline']).toContain(s['role'])
+  // DESIGN §8.7: null when off, else the yield object with its results, percentiles and variance shares.
+  const y = s['yield'] as Json | null
+  if (y !== null) {
+    expect(Object.keys(y)).toEqual(['trials', 'seed', 'distribution', 'unavailable', 'results', 'basis', 'worstCase', 'errorPercentiles', 'maxError', 'variance', 'varianceAt', 'varianceRows'])
+    for (const r of y['results'] as Json[]) expect(isNum(r['yield']) && (r['interval'] as number[]).every(isNum)).toBe(true)
+    if (y['unavailable'] === null) expect(Object.values(y['errorPercentiles'] as Json).every(isNum)).toBe(true)
+  }
   expect(typeof s['id']).toBe('string')
   expect(TOPOLOGIES as readonly unknown[]).toContain(s['topology'])
   expect(isNum(s['gain']) && isNum(s['noiseGain'])).toBe(true)

@@ -27,6 +27,8 @@ export interface CliArgs {
   threshold: number
   topology: Topology
   strict: boolean
+  /** `--yield`: the Monte Carlo of DESIGN §8.7 on every stage (100k trials unless the stage says). */
+  yield: boolean
   debug: boolean
   /** `--shard i/n`: only the notes of shard i of n (build, check). */
   shard: Shard | null
@@ -65,6 +67,7 @@ Options:
   --topology T   new: the stage topology of the starting note (default noninverting)
   --quiet        print only diagnostics
   --strict       treat warnings as errors
+  --yield        build, check: Monte Carlo yield on every stage (100k trials unless a stage says)
   --debug        print stack traces of internal errors
 
 Exit codes: 0 all requirements met; 1 a requirement not met (compare: a verdict went from
@@ -91,7 +94,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
       options: {
         out: {type: 'string'}, format: {type: 'string'}, jobs: {type: 'string'}, topology: {type: 'string'},
         json: {type: 'boolean'}, force: {type: 'boolean'}, quiet: {type: 'boolean', short: 'q'}, watch: {type: 'boolean'},
-        markdown: {type: 'boolean'}, threshold: {type: 'string'}, strict: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
+        markdown: {type: 'boolean'}, threshold: {type: 'string'}, strict: {type: 'boolean'}, yield: {type: 'boolean'}, debug: {type: 'boolean'}, shard: {type: 'string'},
         alternatives: {type: 'boolean'},
         help: {type: 'boolean', short: 'h'}, version: {type: 'boolean', short: 'v'}
       }
@@ -105,7 +108,7 @@ export function parseCliArgs(argv: string[]): CliArgs {
   const args: CliArgs = {
     command, operands, out: v.out ?? null, json: v.json ?? false, formats: ['pdf'], force: v.force ?? false,
     quiet: v.quiet ?? false, watch: v.watch ?? false, jobs: null, markdown: v.markdown ?? false, threshold: DEFAULT_THRESHOLD,
-    topology: 'noninverting', strict: v.strict ?? false, debug: v.debug ?? false, shard: null,
+    topology: 'noninverting', strict: v.strict ?? false, yield: v.yield ?? false, debug: v.debug ?? false, shard: null,
     alternatives: v.alternatives ?? false
   }
   if (command === 'help' || command === 'version') return args

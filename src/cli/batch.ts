@@ -91,7 +91,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
   }
   // The path as given is part of the key: the JSON output records it.
   const optionsOf = (note: string): string =>
-    JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null, file: note, ...(b.run.alternatives === true ? {alternatives: true} : {})})
+    JSON.stringify({formats: b.run.formats, strict: b.run.strict, epoch: b.run.sourceDateEpoch ?? null, file: note, ...(b.run.alternatives === true ? {alternatives: true} : {}), ...(b.run.yield === true ? {yield: true} : {})})
   const clashes = building ? outputClashes(notes, b.run) : notes.map(() => null)
   const runner = runnerFor(notes.length, b.jobs, res, building)
   const items: (BatchItem | null)[] = notes.map(() => null)
@@ -102,7 +102,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
    */
   const fromCache = async (note: string, source: Uint8Array, entry: CacheEntry): Promise<NoteOutcome | null> => {
     if (!(await imagesUnchanged(note, entry.images))) return null
-    const fresh = (await runNote(source, note, noteResources(note, res), {formats: [], strict: b.run.strict, sourceDateEpoch: b.run.sourceDateEpoch, alternatives: b.run.alternatives === true})).outcome
+    const fresh = (await runNote(source, note, noteResources(note, res), {formats: [], strict: b.run.strict, sourceDateEpoch: b.run.sourceDateEpoch, alternatives: b.run.alternatives === true, yield: b.run.yield === true})).outcome
     if (fresh.exitCode === 2 || resultDigest(fresh.stages) !== entry.result) return null
     return {...fresh, diagnostics: [], outputs: entry.outputs.map((o) => o.path)}
   }
@@ -112,7 +112,7 @@ export async function runBatch(notes: string[], res: Resources, b: BatchOptions)
       const t0 = performance.now()
       let refusal = clashes[i] ?? null
       const source = building && refusal === null ? await readFile(note).then((x) => new Uint8Array(x), () => null) : null
-      const key = source === null ? null : buildKey({source, template: b.templateHash, version: res.version, options: optionsOf(note)})
+      const key = source === null ? null : buildKey({source, template: b.templateHash, version: `${res.version} ${res.buildId}`, options: optionsOf(note)})
       const cache = building && refusal === null ? await cacheFor(note) : null
       const hit = key !== null && cache !== null && !b.force ? await cache.hit(resolve(note), key) : null
       const cached = hit !== null && source !== null ? await fromCache(note, source, hit) : null

@@ -3,7 +3,8 @@
  * SOURCE_DATE_EPOCH (seconds), else a fixed epoch — never the clock, so the same note gives
  * the same bytes.
  */
-export const FIXED_EPOCH = new Date(Date.UTC(2000, 0, 1))
+/** 2000-01-01T00:00Z, ms; each call gets a Date of its own (a shared Date could be changed by its user). */
+const FIXED_EPOCH_MS = Date.UTC(2000, 0, 1)
 
 export function reportDate(noteDate: string | null, sourceDateEpoch: string | undefined): Date {
   const m = noteDate === null ? null : /^(\d{4})-(\d{2})-(\d{2})/.exec(noteDate)
@@ -15,5 +16,5 @@ export function reportDate(noteDate: string | null, sourceDateEpoch: string | un
     const d = new Date(Number(sourceDateEpoch.trim()) * 1000)
     if (!Number.isNaN(d.getTime())) return d
   }
-  return FIXED_EPOCH
+  return new Date(FIXED_EPOCH_MS)
 }

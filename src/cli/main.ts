@@ -14,7 +14,7 @@ import {inShard} from './shard.js'
 import {expandNotes} from './inputs.js'
 import {noteJson, type Resources, type RunOptions} from './pipeline.js'
 import {Progress, useColor} from './progress.js'
-import {lazyFonts, templatesHash, toolVersion} from './resources.js'
+import {buildId, lazyFaces, lazyFonts, templatesHash, toolVersion} from './resources.js'
 import {scaffoldNote} from './scaffold.js'
 import {summaryTable} from './summary.js'
 import {watchNotes} from './watch.js'
@@ -39,7 +39,8 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
     out(`${await scaffoldNote(args.operands[0]!, args.topology)}\n`)
     return 0
   }
-  const res: Resources = {fonts: lazyFonts(), version, templates: new Map()}
+  const fonts = lazyFonts()
+  const res: Resources = {fonts, faces: lazyFaces(fonts), version, buildId: await buildId(), templates: new Map()}
   if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out, args.threshold)
 
   if (args.command === 'merge') return mergeCommand(args.operands, out)
@@ -47,7 +48,7 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
   const all = await expandNotes(args.operands)
   const notes = args.shard === null ? all : inShard(all, args.shard)
   const runOpts: RunOptions = {
-    formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict,
+    formats: args.command === 'build' ? args.formats : [], outDir: args.out, strict: args.strict, yield: args.yield,
     sourceDateEpoch: io.env['SOURCE_DATE_EPOCH'], alternatives: args.alternatives
   }
   if (args.watch) {

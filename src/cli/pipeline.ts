@@ -23,7 +23,7 @@ import {evaluateNoteWithChains, type ChainEvaluation, type StageEvaluation} from
 import {jsonChain, jsonStage, noteJson, toJson, type JsonChain, type JsonStage} from '../results/json.js'
 import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js'
-import type {FontSet} from '../render/pdf/index.js'
+import type {FontSet, LoadedFonts} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
 import {recordOf, type OutputRecord} from './cache.js'
@@ -41,7 +41,11 @@ export {MAX_NOTE_BYTES} from '../note/index.js'
 export interface Resources {
   /** The fonts, loaded once on first use (only builds need them). */
   fonts: () => Promise<FontSet>
+  /** The same fonts parsed for the PDF renderer, once a run (`lazyFaces`): shaping is shared by its notes. */
+  faces: () => Promise<LoadedFonts>
   version: string
+  /** The bundle's own hash (`buildId`), for the build cache's key only; never printed. */
+  buildId: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
 }
@@ -49,6 +53,7 @@ export interface Resources {
 /** What one note may read besides its own bytes: everything `runNote` gets from outside. */
 export interface NoteResources {
   fonts: () => Promise<FontSet>
+  faces: () => Promise<LoadedFonts>
   version: string
   template: (name: string) => Promise<Template>
   /** The images the note's tree names (messages for refused ones go on `file`). */
@@ -62,6 +67,8 @@ export interface RunOptions {
   outDir: string | null
   /** Treat warnings as errors. */
   strict: boolean
+  /** `--yield`: the Monte Carlo on every stage without its own `yield` (DESIGN §8.7). (optional: off) */
+  yield?: boolean
   sourceDateEpoch: string | undefined
   /** Evaluate every stage's input-technology alternatives (`--alternatives`, DESIGN §8.8). (optional: only the stages that ask) */
   alternatives?: boolean
@@ -125,6 +132,7 @@ export {noteJson}
 export function noteResources(path: string, res: Resources): NoteResources {
   return {
     fonts: res.fonts,
+    faces: res.faces,
     version: res.version,
     template: async (name) => {
       const known = res.templates.get(name)
@@ -211,7 +219,7 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
  * Run one note from its bytes: `name` is the path as given (diagnostics, JSON `file`,
  * output names); nothing is read but through `res`, nothing is written.
  */
-export async function runNote(bytes: Uint8Array, name: string, res: NoteResources, opts: Pick<RunOptions, 'formats' | 'strict' | 'sourceDateEpoch' | 'alternatives'>): Promise<NoteResult> {
+export async function runNote(bytes: Uint8Array, name: string, res: NoteResources, opts: Pick<RunOptions, 'formats' | 'strict' | 'sourceDateEpoch' | 'alternatives' | 'yield'>): Promise<NoteResult> {
   const sha = createHash('sha256').update(bytes).digest('hex')
   const decoded = decodeNote(bytes)
   if (!decoded.ok) return {outcome: failedOutcome(name, decoded.message, sha), files: []}
@@ -228,7 +236,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   }
 
   // 2. Evaluate: engine and rules, per stage.
-  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file, {alternatives: opts.alternatives === true})
+  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file, {alternatives: opts.alternatives === true, yield: opts.yield === true})
   markUnmet(file, evaluations)
   markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')
@@ -273,7 +281,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   let renderWarnings: string[] = []
   if (wantPdf) {
     const rendered = await renderPdf(report.document, {
-      theme: template.theme, fonts, images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
+      theme: template.theme, fonts, faces: await res.faces(), images, figures, date: reportDate(parsed.meta.date, opts.sourceDateEpoch)
     })
     renderWarnings = rendered.warnings
     files.push({name: outputName(name, 'pdf'), data: rendered.pdf})

@@ -12,7 +12,7 @@ import type {Root} from 'mdast'
 import {unified} from 'unified'
 import remarkParse from 'remark-parse'
 import remarkGfm from 'remark-gfm'
-import type {FontSet, Theme} from '../render/pdf/index.js'
+import type {FontSet, LoadedFonts, Theme} from '../render/pdf/index.js'
 import {parseTheme} from '../render/pdf/theme.js'
 
 /** The package root: two levels above this file, in src/ and in dist/ alike. */
@@ -21,6 +21,15 @@ export const PACKAGE_ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', 
 export async function toolVersion(): Promise<string> {
   const pkg = JSON.parse(await readFile(join(PACKAGE_ROOT, 'package.json'), 'utf8')) as {version: string}
   return pkg.version
+}
+
+/**
+ * The identity of the code that runs: `npm run build` writes the SHA-256 of the bundle to
+ * dist/bin/build-id.txt. The build cache keys on it beside the version, so a changed build
+ * of the same version never calls an earlier PDF up to date. Empty when not bundled.
+ */
+export async function buildId(): Promise<string> {
+  return readFile(join(PACKAGE_ROOT, 'dist', 'bin', 'build-id.txt'), 'utf8').then((s) => s.trim(), () => '')
 }
 
 const FONT_FILES: Record<keyof FontSet, string> = {
@@ -36,6 +45,16 @@ const FONT_FILES: Record<keyof FontSet, string> = {
 export function lazyFonts(): () => Promise<FontSet> {
   let fonts: Promise<FontSet> | null = null
   return () => (fonts ??= loadFonts())
+}
+
+/**
+ * The fonts of `fonts` parsed for the PDF renderer, on the first call (fontkit loads only
+ * then, so `check` never does), the same parsed faces afterwards: one run's documents share
+ * the parsing and the shaping of each distinct string.
+ */
+export function lazyFaces(fonts: () => Promise<FontSet>): () => Promise<LoadedFonts> {
+  let faces: Promise<LoadedFonts> | null = null
+  return () => (faces ??= Promise.all([fonts(), import('../render/pdf/fonts.js')]).then(([set, m]) => m.loadFonts(set)))
 }
 
 export async function loadFonts(): Promise<FontSet> {
@@ -73,6 +92,31 @@ export interface Template {
   readonly closing: Root
 }
 
+const parseMarkdown = (md: string): Root => unified().use(remarkParse).use(remarkGfm).runSync(unified().use(remarkParse).use(remarkGfm).parse(md)) as Root
+
+/** Template names are folder names under templates/: letters, digits and dashes only. */
+export const isTemplateName = (name: string): boolean => /^[a-z0-9][a-z0-9-]*$/.test(name)
+
+export type Json = null | boolean | number | string | Json[] | {[k: string]: Json}
+const isMap = (v: Json | undefined): v is {[k: string]: Json} => typeof v === 'object' && v !== null && !Array.isArray(v)
+
+/** `over` laid onto `base`, maps merged key by key, anything else replaced. */
+function overlay(base: Json, over: Json): Json {
+  if (!isMap(base) || !isMap(over)) return over
+  const out: {[k: string]: Json} = {...base}
+  for (const [k, v] of Object.entries(over)) out[k] = k in base ? overlay(base[k]!, v) : v
+  return out
+}
+
+type TextName = 'method' | 'signoff' | 'closing'
+
+/** A template's raw sources: its theme JSON (overlays applied), its text files and its options. */
+interface TemplateSources {
+  themeJson: Json
+  texts: Record<TextName, string> & {'method-short'?: string}
+  options: TemplateOptions
+}
+
 /** The options a template's JSON gives, checked: unknown keys and values are errors. */
 export function templateOptionsOf(name: string, file: string, json: Json | undefined, base: TemplateOptions): TemplateOptions {
   if (json === undefined) return base
@@ -94,29 +138,38 @@ function sourcesOf(method: Root): Root['children'] {
   return at < 0 ? [] : method.children.slice(at)
 }
 
-const parseMarkdown = (md: string): Root => unified().use(remarkParse).use(remarkGfm).runSync(unified().use(remarkParse).use(remarkGfm).parse(md)) as Root
-
-/** Template names are folder names under templates/: letters, digits and dashes only. */
-export const isTemplateName = (name: string): boolean => /^[a-z0-9][a-z0-9-]*$/.test(name)
-
-export type Json = null | boolean | number | string | Json[] | {[k: string]: Json}
-const isMap = (v: Json | undefined): v is {[k: string]: Json} => typeof v === 'object' && v !== null && !Array.isArray(v)
-
-/** `over` laid onto `base`, maps merged key by key, anything else replaced. */
-function overlay(base: Json, over: Json): Json {
-  if (!isMap(base) || !isMap(over)) return over
-  const out: {[k: string]: Json} = {...base}
-  for (const [k, v] of Object.entries(over)) out[k] = k in base ? overlay(base[k]!, v) : v
-  return out
-}
-
 /**
  * A template is a folder of templates/ holding `theme.json`, `method.md`, `signoff.md` and
  * `closing.md` — or a `template.json` `{"extends": "standard", "theme": {…}}` that takes
  * another template and changes some of its theme values (e.g. `templates/letter/`), any of
  * the three text files it holds replacing the base's.
  */
-export async function loadTemplate(name: string, seen: readonly string[] = []): Promise<Template> {
+export async function loadTemplate(name: string): Promise<Template> {
+  const {themeJson, texts, options} = await readTemplateSources(name, [])
+  // The fragments are parsed on first use: `check` reads the template (a missing or broken
+  // one is an error there too) but never the parsed fragments, which only a report needs.
+  let method: Root | null = null
+  let closing: Root | null = null
+  const methodTree = (): Root => {
+    const full = parseMarkdown(texts.method)
+    if (options.appendix === 'full') return full
+    // One page of method, then the full method's sources, said once in method.md.
+    const brief = parseMarkdown(texts['method-short'] ?? '')
+    return {...brief, children: [...brief.children, ...sourcesOf(full)]}
+  }
+  return {
+    name, theme: parseTheme(themeJson), options,
+    get method(): Root { return (method ??= methodTree()) },
+    get closing(): Root { return (closing ??= parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)) }
+  }
+}
+
+/**
+ * The sources of template `name`, its bases read first (`seen`: the templates extending it,
+ * to refuse a loop). Nothing is kept between calls: the caller (the run's `Resources`) keeps
+ * the templates it has loaded.
+ */
+async function readTemplateSources(name: string, seen: readonly string[]): Promise<TemplateSources> {
   if (!isTemplateName(name)) throw new Error(`Unexpected template name \`${name}\`, expected a folder name of templates/ such as \`standard\``)
   if (seen.includes(name)) throw new Error(`Template \`${name}\` extends itself (${[...seen, name].join(' → ')})`)
   const dir = join(PACKAGE_ROOT, 'templates', name)
@@ -136,7 +189,7 @@ export async function loadTemplate(name: string, seen: readonly string[] = []): 
     const spec = parseJson('template.json', derived)
     const parent = isMap(spec) && typeof spec['extends'] === 'string' ? spec['extends'] : null
     if (parent === null) throw new Error(`Template \`${name}\`: template.json needs "extends": the name of another template`)
-    base = await loadTemplateSources(parent, [...seen, name])
+    base = await readTemplateSources(parent, [...seen, name])
     themeJson = overlay(base.themeJson, isMap(spec) && spec['theme'] !== undefined ? spec['theme'] : {})
     options = templateOptionsOf(name, 'template.json', isMap(spec) ? spec['options'] : undefined, base.options)
   } else {
@@ -157,37 +210,7 @@ export async function loadTemplate(name: string, seen: readonly string[] = []): 
   const short = (await tryRead('method-short.md')) ?? base?.texts['method-short'] ?? null
   if (short !== null) texts['method-short'] = short
   else if (options.appendix === 'short') throw new Error(`Template \`${name}\` asks for appendix: short but has no method-short.md (looked in ${dir})`)
-  templateSources.set(name, {themeJson, texts, options})
-  // The fragments are parsed on first use: `check` reads the template (a missing or broken
-  // one is an error there too) but never the parsed fragments, which only a report needs.
-  let method: Root | null = null
-  let closing: Root | null = null
-  const methodTree = (): Root => {
-    const full = parseMarkdown(texts.method)
-    if (options.appendix === 'full') return full
-    // One page of method, then the full method's sources, said once in method.md.
-    const brief = parseMarkdown(texts['method-short'] ?? '')
-    return {...brief, children: [...brief.children, ...sourcesOf(full)]}
-  }
-  return {
-    name, theme: parseTheme(themeJson), options,
-    get method(): Root { return (method ??= methodTree()) },
-    get closing(): Root { return (closing ??= parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)) }
-  }
-}
-
-interface TemplateSources {
-  themeJson: Json
-  texts: Record<'method' | 'signoff' | 'closing', string> & {'method-short'?: string}
-  options: TemplateOptions
-}
-
-/** Raw sources of templates already read, for templates that extend them. */
-const templateSources = new Map<string, TemplateSources>()
-
-async function loadTemplateSources(name: string, seen: readonly string[]): Promise<TemplateSources> {
-  if (!templateSources.has(name)) await loadTemplate(name, seen)
-  return templateSources.get(name)!
+  return {themeJson, texts, options}
 }
 
 /** Hash of every file under templates/ (names and bytes, sorted): part of each build's cache key. */

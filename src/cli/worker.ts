@@ -4,7 +4,7 @@
  */
 import {parentPort} from 'node:worker_threads'
 import {failedOutcome, processNote, type NoteOutcome, type Resources, type RunOptions} from './pipeline.js'
-import {lazyFonts, toolVersion} from './resources.js'
+import {buildId, lazyFaces, lazyFonts, toolVersion} from './resources.js'
 
 export interface WorkerRequest {
   id: number
@@ -19,7 +19,8 @@ export interface WorkerReply {
 
 const port = parentPort
 if (port === null) throw new Error('worker.ts runs only as a worker thread')
-const resources: Promise<Resources> = toolVersion().then((version) => ({fonts: lazyFonts(), version, templates: new Map()}))
+const fonts = lazyFonts()
+const resources: Promise<Resources> = Promise.all([toolVersion(), buildId()]).then(([version, id]) => ({fonts, faces: lazyFaces(fonts), version, buildId: id, templates: new Map()}))
 
 port.on('message', (req: WorkerRequest) => {
   void resources

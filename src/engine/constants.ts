@@ -31,3 +31,6 @@ export const MAX_SUGGESTED_CF = 1e-6
 
 /** Default dark-current doubling interval, K (common practice: a silicon photodiode's dark current roughly doubles every 8–10 K). */
 export const DEFAULT_IDARK_DOUBLING = 10
+
+/** Trials of a Monte Carlo that asks for none: a yield requirement alone, or the CLI's `--yield` (DESIGN §8.7). */
+export const DEFAULT_YIELD_TRIALS = 100_000

@@ -16,6 +16,7 @@ import {stabilityAnalysis} from './stability.js'
 import {checkLimits, swingOf} from './limits.js'
 import {topologyTerms} from './topology/index.js'
 import type {StageInput, StageResult} from './types.js'
+import {runYield, yieldOptionsOf} from './yield/run.js'
 
 /**
  * Reject inputs the engine cannot evaluate (the note layer reports these with positions;
@@ -54,17 +55,21 @@ export function evaluateStage(input: StageInput): StageResult {
   const loop = stabilityAnalysis(input)
   const figures = {dc: dc.budget, noise: noise.budget, stability: loop.stability}
   const limits = checkLimits(input)
+  const gain = signalGain(input)
+  const options = yieldOptionsOf(input)
+  const yieldResult = options === null ? null : runYield(input, options, dc.budget, gain)
   return {
     id: input.id,
     topology: input.topology,
     opamp: input.opamp.name,
-    gain: signalGain(input),
+    gain,
     noiseGain: terms.noiseGain,
     ...figures,
     filter: filterFigures(input),
-    requirements: [...checkRequirements(input, figures), ...limits],
+    requirements: [...checkRequirements(input, {...figures, yield: yieldResult}), ...limits],
     curves: {...noise.curves, ...loop.curves},
     swing: swingOf(input, limits),
-    bias: dc.bias
+    bias: dc.bias,
+    yield: yieldResult
   }
 }

@@ -54,3 +54,7 @@ export {setResistance} from './nodal.js'
 export {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, INA_ARCHETYPE_DISCLAIMER, inaAsOpamp, isInaArchetypeName} from './ina-archetypes.js'
 export {evaluateInstrumentation, inaGain, INA_DC_KEYS, INA_NOISE_KEYS} from './instrumentation.js'
 export * from './chain/index.js'
+export {
+  runYield, yieldOptionsOf, trialBlock, yieldModel, closedFormOf, wilsonInterval, inverseNormal, truncatedNormal, uniformAt,
+  type YieldModel, type ClosedForm
+} from './yield/index.js'

@@ -19,6 +19,7 @@ import {checkLimitsAt, swingOf} from './limits.js'
 import {integrateBand} from './noise/integrate.js'
 import {noiseKelvin} from './noise/sources.js'
 import {checkRequirements} from './requirements.js'
+import {runYield, yieldOptionsOf} from './yield/run.js'
 import {inaAsOpamp} from './ina-archetypes.js'
 import {NOISE_KEYS, type DcKey, type InaParams, type NoiseKey, type StageInput, type StageResult} from './types.js'
 
@@ -149,6 +150,9 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
     return {vout, vpin: vout, vplus: cm + v / 2, vminus: cm - v / 2, iout: input.rload === null ? 0 : vout / input.rload}
   })
   const limits = checkLimitsAt(input, points)
+  // No closed form for this topology: a requested Monte Carlo reports itself unavailable.
+  const options = yieldOptionsOf(input)
+  const yieldResult = options === null ? null : runYield(input, options, dc, g)
   return {
     id: input.id,
     topology: input.topology,
@@ -157,7 +161,7 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
     noiseGain: g,
     ...figures,
     filter: null,
-    requirements: [...checkRequirements(input, figures), ...limits],
+    requirements: [...checkRequirements(input, {...figures, yield: yieldResult}), ...limits],
     curves: {
       noiseFrequency: Array.from(band.frequency), noiseDensity, noiseTotal, noiseTotalZeroSignal: noiseTotal,
       cumulativeRms: Array.from(band.cumulative, (c) => Math.sqrt(Math.max(0, c))),
@@ -166,6 +170,7 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
       closedLoopPhase: frequency.map((f) => (-Math.atan(f / fb) * 180) / Math.PI)
     },
     swing: swingOf(input, limits),
-    bias
+    bias,
+    yield: yieldResult
   }
 }

@@ -5,7 +5,7 @@
  */
 import {REQUIREMENT_KEYS, type RequireResult, type RequirementKey, type StageInput, type StageResult} from './types.js'
 
-type Figures = Pick<StageResult, 'dc' | 'noise' | 'stability'>
+type Figures = Pick<StageResult, 'dc' | 'noise' | 'stability'> & {yield?: StageResult['yield']}
 
 const FIGURE: Record<RequirementKey, (r: Figures) => number | null> = {
   'output-error': (r) => r.dc.worstCaseOutput,
@@ -17,7 +17,12 @@ const FIGURE: Record<RequirementKey, (r: Figures) => number | null> = {
   bandwidth: (r) => r.stability.bandwidth,
   // Without a calibration the residual is the whole error (our reading of DESIGN §4.6).
   'output-error-calibrated': (r) => r.dc.calibrated?.worstCaseOutput ?? r.dc.worstCaseOutput,
-  'input-error-calibrated': (r) => r.dc.calibrated?.worstCaseInput ?? r.dc.worstCaseInput
+  'input-error-calibrated': (r) => r.dc.calibrated?.worstCaseInput ?? r.dc.worstCaseInput,
+  // The lowest yield of the stage's DC requirements (DESIGN §8.7); none computed: null.
+  yield: (r) => {
+    const rows = r.yield?.results ?? []
+    return rows.length === 0 ? null : Math.min(...rows.map((x) => x.yield))
+  }
 }
 
 /** Verdicts for every key the stage requires, in the order of REQUIREMENT_KEYS. */

@@ -28,7 +28,9 @@ export const REQUIREMENT_KEYS = {
   bandwidth: {unit: 'Hz', sense: 'min'},
   /** Worst-case DC error after calibration (DESIGN §4.6); the full worst case without one. */
   'output-error-calibrated': {unit: 'V', sense: 'max'},
-  'input-error-calibrated': {unit: 'V', sense: 'max'}
+  'input-error-calibrated': {unit: 'V', sense: 'max'},
+  /** Monte Carlo yield of each DC requirement of the stage, minimum (fraction; DESIGN §8.7). */
+  yield: {unit: '%', sense: 'min'}
 } as const
 export type RequirementKey = keyof typeof REQUIREMENT_KEYS
 
@@ -236,8 +238,69 @@ export interface StageInput {
   rload: number | null
   /** Room-temperature calibration (DESIGN §4.6, default none). */
   calibration: Calibration
-  /** Requirement limits, SI (V, Hz, degrees). */
+  /** Requirement limits, SI (V, Hz, degrees; yield a fraction). */
   require: Partial<Record<RequirementKey, number>>
+  /** Monte Carlo over the DC budget (DESIGN §8.7); absent or null = off. */
+  yield?: YieldOptions | null
+}
+
+/** Distributions of the resistor draws (DESIGN §8.7): uniform within ± the limit, or normal σ = limit/3 truncated there. */
+export const YIELD_DISTRIBUTIONS = ['uniform', 'normal'] as const
+export type YieldDistribution = (typeof YIELD_DISTRIBUTIONS)[number]
+export const isYieldDistribution = (s: string): s is YieldDistribution => (YIELD_DISTRIBUTIONS as readonly string[]).includes(s)
+
+/** A stage's `yield:` map (DESIGN §8.7). */
+export interface YieldOptions {
+  /** Number of trials (≥ 1). */
+  trials: number
+  /** Seed, an integer 0 … 2^32 − 1. */
+  seed: number
+  /** Resistor value and tempco draws; the op-amp's maxima are always truncated normals. */
+  distribution: YieldDistribution
+}
+
+/** The DC requirements a yield is given for (DESIGN §8.7). */
+export const YIELD_KEYS = ['output-error', 'input-error', 'output-error-calibrated', 'input-error-calibrated'] as const
+export type YieldKey = (typeof YIELD_KEYS)[number]
+
+/** The yield of one DC requirement. */
+export interface YieldRequirement {
+  key: YieldKey
+  /** The requirement's limit, SI. */
+  limit: number
+  /** Trials meeting the limit. */
+  passed: number
+  /** passed / trials. */
+  yield: number
+  /** 95 % Wilson score interval of the yield. */
+  interval: [number, number]
+}
+
+/** The Monte Carlo result of a stage (DESIGN §8.7). */
+export interface YieldResult {
+  trials: number
+  seed: number
+  distribution: YieldDistribution
+  /** Why no yield was computed (a topology without a closed form); null when it was. */
+  unavailable: string | null
+  /** One row per DC requirement the stage gives, in the order of YIELD_KEYS. */
+  results: YieldRequirement[]
+  /** The error the percentiles, histogram and variance shares describe: the calibrated residual when the stage has a calibration. */
+  basis: 'output' | 'output-calibrated'
+  /** The worst-case bound of that error (the budget's sum of magnitudes), V. */
+  worstCase: number
+  /** Nearest-rank percentiles of that error, V; null when unavailable. */
+  errorPercentiles: {p50: number; p99: number; p999: number} | null
+  /** Largest error of any trial, V. */
+  maxError: number
+  /** Each random variable's share of the error variance (Jansen total effects normalised to sum 1), largest first. */
+  variance: {variable: string; share: number}[]
+  /** Where the variance shares were taken: the input end (and common mode) and temperature of largest variance. */
+  varianceAt: {input: number; inputCm: number | null; temperature: number} | null
+  /** Base rows of the variance estimate. */
+  varianceRows: number
+  /** Report-only: equal bins over [0, top] of the error. */
+  histogram: {top: number; counts: number[]}
 }
 
 /** DC contributor keys (DESIGN §4.2). */
@@ -456,4 +519,6 @@ export interface StageResult {
   swing: SwingCheck
   /** Report-only. */
   bias: BiasUsed
+  /** Monte Carlo over the DC budget (DESIGN §8.7); null when off. */
+  yield: YieldResult | null
 }

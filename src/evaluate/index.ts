@@ -3,7 +3,7 @@
  * Pure: a block the engine cannot evaluate becomes a fatal message on the file.
  */
 import type {VFile} from 'vfile'
-import {evaluateStage} from '../engine/index.js'
+import {DEFAULT_YIELD_TRIALS, evaluateStage} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
@@ -34,6 +34,8 @@ export interface StageEvaluation {
 export interface EvaluateOptions {
   /** Evaluate the alternatives of every stage, whatever its block says (`--alternatives`). (default: false) */
   alternatives?: boolean
+  /** The Monte Carlo (DESIGN §8.7) on every stage without a `yield` of its own, at the default trials and seed (`--yield`). (default: false) */
+  yield?: boolean
 }
 
 /**
@@ -45,6 +47,10 @@ export interface EvaluateOptions {
 export function evaluateNote(parsed: ParsedNote, file: VFile, options: EvaluateOptions = {}): StageEvaluation[] {
   return evaluateNoteWithChains(parsed, file, options).stages
 }
+
+/** The stage with the default Monte Carlo when `options.yield` asks for it and the stage has none. */
+const withYieldOption = (input: StageInput, options: EvaluateOptions): StageInput =>
+  options.yield === true && !input.yield ? {...input, yield: {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'}} : input
 
 /** Evaluate the note's stages, then its chains from those evaluations. */
 export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options: EvaluateOptions = {}): {stages: StageEvaluation[]; chains: ChainEvaluation[]} {
@@ -61,7 +67,7 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options:
   for (const block of order) {
     if (block.input === null) continue
     if (block.inputFromChain === true && !plan.previous.has(block.id)) continue
-    const ev = evaluateOne(block, chainedInput(block, block.input, plan, spans, file), parsed, file, options)
+    const ev = evaluateOne(block, withYieldOption(chainedInput(block, block.input, plan, spans, file), options), parsed, file, options)
     if (ev === null) continue
     done.set(block, ev)
     spans.set(block.id, [ev.result.swing.outputSpan[0], ev.result.swing.outputSpan[1]])

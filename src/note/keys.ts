@@ -54,6 +54,8 @@ export type StageKind =
   | {kind: 'require'}
   /** `design` (default) or `baseline`: a stage kept for comparison, shown but not counted. */
   | {kind: 'role'}
+  /** `{ trials, seed, distribution }` of the Monte Carlo (DESIGN §8.7). */
+  | {kind: 'yield'}
   /** A map of rule id → the author's reason for accepting that rule's note (the ids are checked in src/evaluate). */
   | {kind: 'accept'}
   /** `true` or `false` (DESIGN §8.8's `alternatives`). */
@@ -106,7 +108,8 @@ export const STAGE_KEYS = {
   role: {read: {kind: 'role'}, use: ALL_O},
   accept: {read: {kind: 'accept'}, use: ALL_O},
   /** Re-evaluate the stage with every archetype of its kind and every amplifier block of the note (DESIGN §8.8). */
-  alternatives: {read: {kind: 'flag'}, use: ALL_O}
+  alternatives: {read: {kind: 'flag'}, use: ALL_O},
+  yield: {read: {kind: 'yield'}, use: ALL_O}
 } as const satisfies Record<string, StageKeySpec>
 
 export type StageKey = keyof typeof STAGE_KEYS

@@ -98,6 +98,16 @@ export const noteMessages = {
     `Unexpected role ${q(value)}, expected ${q('design')} or ${q('baseline')}${hint(suggestion)}`,
   acceptNotMap: () => 'Unexpected value for `accept`, expected a map of rule ids to the reason each is accepted (`bandwidth-margin: "reason"` on the lines below, indented)',
   acceptNoReason: (rule: string) => `Expected a reason after ${q(rule)} in \`accept\`: say why the note is accepted, so that the reviewer can judge it`,
+  yieldNotMap: (value: string) =>
+    `Unexpected ${value === '' ? 'value' : q(value)} for \`yield\`, expected a map such as \`{ trials: 100k, seed: 1, distribution: uniform }\` (each key optional), or \`on\` for the defaults`,
+  yieldTrials: (value: string, max: number) =>
+    `Unexpected ${q(value)} for \`yield.trials\`, expected a whole number of trials from 1 to ${max.toLocaleString('en-US')} (\`100k\`, \`1M\`, \`20000\`)`,
+  yieldRequirement: (value: string) => `Unexpected ${q(value)} for \`require.yield\`, expected a minimum yield above 0 % and at most 100 % (\`99.7 %\`)`,
+  yieldWithoutDcRequirement: () =>
+    'Unexpected `yield` without a DC error requirement, expected it beside `output-error`, `input-error` or their `-calibrated` forms (the yield is the share of trials meeting them)',
+  yieldSeed: (value: string) => `Unexpected ${q(value)} for \`yield.seed\`, expected a whole number from 0 to 4294967295`,
+  yieldUnknownKey: (key: string, suggestion: string | null, known: readonly string[]) =>
+    `Unexpected key ${q(key)} in \`yield\`, expected ${suggestion === null ? `one of ${known.map(q).join(', ')}` : `${q(suggestion)}`}`,
   requireNotMap: () => 'Unexpected value for `require`, expected a map of requirements (`noise-rms: 30 uV` on the lines below, indented)',
 
   unknownOpamp: (name: string, stage: string, suggestion: string | null, archetypes: readonly string[] = []) =>

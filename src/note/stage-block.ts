@@ -196,7 +196,8 @@ export function buildStage(fields: readonly Field[], ctx: StageContext): BuiltSt
     signalFrequency: q['signal-frequency'] ?? null,
     rload: read.rload,
     calibration: read.calibration ?? 'none',
-    require: read.require
+    require: read.require,
+    ...(read.yield === null ? {} : {yield: read.yield})
   }
   return {input: stage, defaulted: defaultsOf(read, topology, ctx.id), inputFromChain, alternatives: read.alternatives === true}
 }

@@ -4,7 +4,8 @@
  * look at several keys, defaults and the assembly of `StageInput` are in `stage-block.ts`.
  */
 import type {Point} from 'unist'
-import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, type Calibration, type RequirementKey, type Topology} from '../engine/types.js'
+import {CALIBRATIONS, REQUIREMENT_KEYS, TOPOLOGIES, YIELD_KEYS, type Calibration, type RequirementKey, type Topology, type YieldOptions} from '../engine/types.js'
+import {readYield} from './yield-read.js'
 import type {Dimension} from '../units/index.js'
 import type {Field} from './block-yaml.js'
 import type {Reporter} from './diagnostics.js'
@@ -46,6 +47,8 @@ export interface StageRead {
   temperature: [number, number] | null
   band: [number, number] | null
   require: Partial<Record<RequirementKey, number>>
+  /** The Monte Carlo options (DESIGN §8.7); null = off. */
+  yield: YieldOptions | null
   /** `alternatives:` as written (DESIGN §8.8); null when not given or not readable. */
   alternatives: boolean | null
   /** Every key written (valid or not), with its field: for missing-key and cross-key checks. */
@@ -57,7 +60,7 @@ const STAGE_KEY_NAMES = Object.keys(STAGE_KEYS)
 const FLAG_WORDS = ['true', 'false'] as const
 
 const requirementDim = (unit: string, key: RequirementKey, topology: Topology | null): Dimension =>
-  unit === 'deg' ? 'angle' : unit === 'Hz' ? 'frequency' : key === 'input-error' && topology === 'transimpedance' ? 'current' : 'voltage'
+  unit === '%' ? 'fraction' : unit === 'deg' ? 'angle' : unit === 'Hz' ? 'frequency' : key === 'input-error' && topology === 'transimpedance' ? 'current' : 'voltage'
 
 function readRequire(field: Field, read: StageRead, report: Reporter): void {
   const v = field.value
@@ -80,7 +83,17 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
       report.error(noteMessages.negative(sub.key, q.s.text.trim(), 'a limit'), q.s.at(0), 'bad-value')
       continue
     }
+    if (key === 'yield' && !(q.value > 0 && q.value <= 1)) {
+      report.error(noteMessages.yieldRequirement(q.s.text.trim()), q.s.at(0), 'bad-value')
+      continue
+    }
     read.require[key] = q.value
+  }
+  // A yield is counted against the stage's DC error requirements (DESIGN §8.7): without one it has nothing to count.
+  const yieldField = v.fields.find((f) => f.key === 'require.yield')
+  if (read.require.yield !== undefined && yieldField !== undefined && !YIELD_KEYS.some((k) => read.require[k] !== undefined)) {
+    report.error(noteMessages.yieldWithoutDcRequirement(), yieldField.keyAt, 'bad-value')
+    delete read.require.yield
   }
 }
 
@@ -163,7 +176,7 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
   const read: StageRead = {
     topology: null, title: null, opamp: null, ina: null, resistors: {}, quantities: {}, rshunt: null, rload: null, supplySingle: false, calibration: null,
     capacitors: {}, inputCm: null,
-    input: null, supply: null, temperature: null, band: null, require: {}, alternatives: null, given: new Map()
+    input: null, supply: null, temperature: null, band: null, require: {}, yield: null, alternatives: null, given: new Map()
   }
   for (const f of fields) read.given.set(f.key, f)
   const topo = read.given.get('topology')
@@ -272,6 +285,9 @@ export function readStage(fields: readonly Field[], where: string, report: Repor
       }
       case 'accept':
         readAccept(field, report)
+        break
+      case 'yield':
+        read.yield = readYield(field, report)
         break
       case 'flag': {
         const word = choiceOf(field, FLAG_WORDS, report)

@@ -27,6 +27,7 @@ export const RULE_TITLES: Record<NoteRuleId, string> = {
   'fet-bias-hot-end': 'FET bias current at the hot end',
   'bias-over-temperature-missing': 'Bias current over temperature not entered',
   'temperature-not-entered': 'Temperature range not entered',
+  'yield-unavailable': 'Monte Carlo yield not available',
   'resistor-noise-dominant': 'Resistor noise dominant',
   'low-value-resistor': 'Low-value resistor',
   'e-series-values': 'Resistor values off the E series'

@@ -44,6 +44,8 @@ export const requirementValue = (r: RequirementResult, which: 'value' | 'limit',
   if (r.kind === 'require') {
     const v = r[which]
     const unit = requirementUnit(r.key, t)
+    // A yield is a fraction, printed as a percentage (DESIGN §8.7).
+    if (unit === '%') return v === null ? '—' : `${(v * 100).toFixed(v > 0.999 && v < 1 ? 3 : 2)} %`
     return unit === '°' ? deg(v) : q(v, unit)
   }
   const unit = LIMIT_UNIT[r.key]
@@ -101,6 +103,7 @@ export function margin(r: RequirementResult, t: Topology): string {
   const rel = share !== null && share > 1 && ratio !== null && Number.isFinite(ratio) && ratio < 1e6
     ? ` (${formatNumber(ratio, {digits: 2})} ×)`
     : relative(m, r.limit)
+  if (unit === '%') return `${m >= 0 ? '' : '−'}${(Math.abs(m) * 100).toFixed(2)} percentage points`
   return (unit === '°' ? deg(m) : q(m, unit)) + rel
 }
 

@@ -16,6 +16,8 @@ type StageJson = Pick<JsonStage, 'id' | 'gain' | 'noiseGain' | 'requirements'> &
   dc: Pick<JsonStage['dc'], 'contributors' | 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'rssInput'>
   noise: Pick<JsonStage['noise'], 'outputRms' | 'outputPeakToPeak' | 'inputRms' | 'contributors'>
   stability: JsonStage['stability']
+  /** Absent in result files written before the Monte Carlo (DESIGN §8.7). */
+  yield?: JsonStage['yield']
   /** Absent in results written before alternatives existed (DESIGN §8.8). */
   alternatives?: Pick<JsonAlternative, 'candidate' | 'worstCaseOutput' | 'outputRms' | 'phaseMargin'>[] | null
 }
@@ -97,6 +99,15 @@ function values(s: StageJson): Map<string, {unit: string; v: number | null}> {
   m.set('stability.bandwidth', {unit: 'Hz', v: s.stability.bandwidth})
   m.set('stability.peaking', {unit: 'dB', v: s.stability.peaking})
   m.set('stability.suggestedCf', {unit: 'F', v: s.stability.suggestedCf})
+  // The Monte Carlo (DESIGN §8.7): each requirement's yield, the percentiles of the error.
+  const y = s.yield ?? null
+  if (y !== null && y !== undefined) {
+    for (const r of y.results) {
+      m.set(`yield.${r.key}`, {unit: '%', v: r.yield})
+      m.set(`yield.${r.key}.low`, {unit: '%', v: r.interval[0]})
+    }
+    if (y.errorPercentiles !== null) for (const k of ['p50', 'p99', 'p999'] as const) m.set(`yield.error.${k}`, {unit: 'V', v: y.errorPercentiles[k]})
+  }
   for (const r of s.requirements) {
     if (r.kind !== 'limit') m.set(`require.${r.key}`, {unit: requirementUnit(r.key as RequirementKey, t) ?? 'V', v: typeof r.value === 'number' ? r.value : null})
     else if (typeof r.value === 'number') m.set(`limit.${r.key}`, {unit: r.key === 'slew' ? 'V/s' : r.key === 'output-current' ? 'A' : 'V', v: r.value})
@@ -179,13 +190,15 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson, opts: CompareOptio
 }
 
 const show = (v: number | null, unit: string): string =>
-  v === null ? 'none' : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB`
+  v === null ? 'none' : unit === '%' ? `${(v * 100).toFixed(3)} %` : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB`
     : unit === 'LSB' || unit === 'bits' ? `${v.toFixed(2)} ${unit}` : unit === '' ? v.toFixed(4) : unit === 'V/s' ? formatSlew(v, {digits: 4}) : formatQuantity(v, unit, {digits: 4})
 
 const delta = (c: ValueChange): string => {
   if (c.old === null || c.new === null) return ''
   const d = c.new - c.old
   const sign = d >= 0 ? '+' : '−'
+  // A yield moves in percentage points; a relative change of a percentage would read twice.
+  if (c.unit === '%') return `${sign}${(Math.abs(d) * 100).toFixed(3)} percentage points`
   const rel = c.old !== 0 ? ` (${sign}${Math.abs((d / c.old) * 100).toFixed(2)} %)` : ''
   return `${sign}${show(Math.abs(d), c.unit)}${rel}`
 }

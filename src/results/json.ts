@@ -3,7 +3,7 @@
  * contract's order, report-only fields dropped. Numbers are plain SI; a value that does
  * not exist is null (never NaN or Infinity).
  */
-import type {RequirementResult} from '../engine/types.js'
+import type {RequirementResult, YieldKey, YieldResult} from '../engine/types.js'
 import type {StageEvaluation} from '../evaluate/index.js'
 import type {JsonChain} from './chain-json.js'
 
@@ -59,6 +59,48 @@ export interface JsonStage {
   role: StageRole
   /** The stage with each candidate amplifier (DESIGN §8.8); null when not asked for. */
   alternatives: JsonAlternative[] | null
+  /** The Monte Carlo over the DC budget (DESIGN §8.7); null when off. */
+  yield: JsonYield | null
+}
+
+/**
+ * DESIGN §8.7's `yield` object, with what a reader needs to judge it: the distribution of the
+ * resistor draws, `unavailable` (why there is no yield, else null), each result's limit and
+ * count, which error the percentiles describe (`basis`) and its worst-case bound, and where
+ * the variance shares were taken.
+ */
+export interface JsonYield {
+  trials: number
+  seed: number
+  distribution: YieldResult['distribution']
+  unavailable: string | null
+  results: {key: YieldKey; limit: number; passed: number; yield: number; interval: [number, number]}[]
+  basis: YieldResult['basis']
+  worstCase: number
+  errorPercentiles: {p50: number; p99: number; p999: number} | null
+  maxError: number
+  variance: {variable: string; share: number}[]
+  varianceAt: YieldResult['varianceAt']
+  varianceRows: number
+}
+
+/** The JSON of a stage's Monte Carlo (the histogram is report-only). */
+export function jsonYield(y: YieldResult | null): JsonYield | null {
+  if (y === null) return null
+  return {
+    trials: y.trials,
+    seed: y.seed,
+    distribution: y.distribution,
+    unavailable: y.unavailable,
+    results: y.results.map((r) => ({key: r.key, limit: r.limit, passed: r.passed, yield: r.yield, interval: [r.interval[0], r.interval[1]]})),
+    basis: y.basis,
+    worstCase: y.worstCase,
+    errorPercentiles: y.errorPercentiles === null ? null : {p50: y.errorPercentiles.p50, p99: y.errorPercentiles.p99, p999: y.errorPercentiles.p999},
+    maxError: y.maxError,
+    variance: y.variance.map((v) => ({variable: v.variable, share: v.share})),
+    varianceAt: y.varianceAt === null ? null : {...y.varianceAt},
+    varianceRows: y.varianceRows
+  }
 }
 
 /** Replace any non-finite number by null, so the JSON never carries NaN or Infinity. */
@@ -110,7 +152,8 @@ export function jsonStage(ev: StageEvaluation): JsonStage {
     requirements: r.requirements.map(jsonRequirement),
     notes: ev.notes.map((n) => ({rule: n.rule, severity: n.severity, text: n.text, accepted: n.accepted ?? null})),
     role: ev.role,
-    alternatives: ev.alternatives === null ? null : jsonAlternatives(ev.alternatives)
+    alternatives: ev.alternatives === null ? null : jsonAlternatives(ev.alternatives),
+    yield: jsonYield(r.yield)
   }
 }
 

@@ -50,7 +50,8 @@ export const REQUIREMENT_LABELS: Record<RequirementKey, string> = {
   'phase-margin': 'Phase margin (minimum)',
   bandwidth: 'Closed-loop bandwidth (minimum)',
   'output-error-calibrated': 'DC error at output after calibration, worst case',
-  'input-error-calibrated': 'DC error referred to input after calibration, worst case'
+  'input-error-calibrated': 'DC error referred to input after calibration, worst case',
+  yield: 'Yield of the DC requirements, Monte Carlo (minimum)'
 }
 
 export const LIMIT_LABELS: Record<LimitKey, string> = {
@@ -91,6 +92,8 @@ export const requirementUnit = (key: RequirementKey, t: Topology): string => {
   switch (key) {
     case 'phase-margin':
       return '°'
+    case 'yield':
+      return '%'
     case 'bandwidth':
       return 'Hz'
     case 'input-error':
@@ -103,4 +106,24 @@ export const requirementUnit = (key: RequirementKey, t: Topology): string => {
     case 'noise-pp':
       return 'V'
   }
+}
+
+/** Names of the Monte Carlo's random variables (DESIGN §8.7), as in the variance-share chart. */
+const YIELD_VARIABLE_LABELS: Record<string, string> = {
+  vos: 'Offset voltage (vos)',
+  'vos-drift': 'Offset drift (vos-drift)',
+  ib: 'Bias current (ib)',
+  ios: 'Offset current (ios)',
+  idark: 'Dark current (idark)',
+  cmrr: 'Common-mode rejection (1/CMRR)',
+  psrr: 'Supply rejection (1/PSRR)',
+  supply: 'Supply deviation'
+}
+
+/** The label of a Monte Carlo variable: `rf:tolerance` → "rf tolerance". */
+export const yieldVariableLabel = (name: string): string => {
+  const known = YIELD_VARIABLE_LABELS[name]
+  if (known !== undefined) return known
+  const [part, what] = name.split(':')
+  return what === undefined ? name : `${part} ${what}`
 }

@@ -22,6 +22,7 @@ export const RULE_IDS = [
   'fet-bias-hot-end',
   'bias-over-temperature-missing',
   'temperature-not-entered',
+  'yield-unavailable',
   'resistor-noise-dominant',
   'low-value-resistor',
   'e-series-values'

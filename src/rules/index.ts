@@ -26,6 +26,7 @@ import phaseMarginLow from './phase-margin-low.js'
 import resistorNoiseDominant from './resistor-noise-dominant.js'
 import temperatureNotEntered from './temperature-not-entered.js'
 import transimpedanceFeedbackCap from './transimpedance-feedback-cap.js'
+import yieldUnavailable from './yield-unavailable.js'
 import {RULE_IDS, type RuleId} from './ids.js'
 import type {Rule, RuleContext} from './rule.js'
 import type {RuleNote} from './types.js'
@@ -53,6 +54,7 @@ export const RULES: {readonly [Id in RuleId]: Rule<Id>} = {
   'fet-bias-hot-end': fetBiasHotEnd,
   'bias-over-temperature-missing': biasOverTemperatureMissing,
   'temperature-not-entered': temperatureNotEntered,
+  'yield-unavailable': yieldUnavailable,
   'resistor-noise-dominant': resistorNoiseDominant,
   'low-value-resistor': lowValueResistor,
   'e-series-values': eSeriesValues

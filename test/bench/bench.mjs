@@ -7,7 +7,8 @@
  *       a cold `check`; each ratio with its target and pass/FAIL; and a module-load trace of
  *       `check` (it must load no pdfkit, fontkit or vega and read no font);
  *   (b) stage evaluations per second, in this process, on sample-like inputs, and a chain
- *       of four stages into a converter (target: under 2 ms on one core);
+ *       of four stages into a converter (target: under 2 ms on one core); the Monte Carlo's
+ *       trials per second on one core and on all cores, and what a 100k run adds;
  *   (c) notes of 50, 200 and 1,000 stages built with --format json (the 50-stage one also
  *       as PDF): time and growth per stage;
  *   (d) a no-op rebuild of 100 cached notes;
@@ -21,7 +22,7 @@
  */
 import {spawn} from 'node:child_process'
 import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync} from 'node:fs'
-import {availableParallelism, tmpdir} from 'node:os'
+import {availableParallelism, loadavg, tmpdir} from 'node:os'
 import {join, resolve} from 'node:path'
 import {pathToFileURL} from 'node:url'
 
@@ -33,6 +34,7 @@ const CHAIN_ONLY = process.argv.includes('--chain')
 const REPEAT = QUICK ? 3 : 5
 const TMP = mkdtempSync(join(tmpdir(), 'ampreview-bench-'))
 const started = performance.now()
+const loadAtStart = loadavg()[0]?.toFixed(1) ?? '?'
 
 // ---------------------------------------------------------------------------------------
 // Helpers
@@ -154,11 +156,11 @@ function printTable() {
       return 'unknown'
     }
   })()
-  const header = {section: '', measure: 'measure', value: 'value', target: 'target', verdict: 'verdict'}
-  const cols = ['section', 'measure', 'value', 'target', 'verdict']
+  const header = {section: '', measure: 'measure', value: 'value', target: 'target', verdict: 'verdict', load: 'load'}
+  const cols = ['section', 'measure', 'value', 'target', 'verdict', 'load']
   const widths = cols.map((c) => Math.max(...[header, ...rows].map((r) => String(r[c]).length)))
   const line = (r) => cols.map((c, i) => String(r[c]).padEnd(widths[i])).join('  ').trimEnd()
-  console.log(`ampreview bench — ${availableParallelism()} cores, ${cpu}, node ${process.version}${QUICK ? ', --quick' : ''}${CHAIN_ONLY ? ', --chain' : ''}`)
+  console.log(`ampreview bench — ${availableParallelism()} cores, ${cpu}, node ${process.version}${QUICK ? ', --quick' : ''}${CHAIN_ONLY ? ', --chain' : ''}; load: one-minute load average when each figure was taken (${loadAtStart} at the start)`)
   console.log(line(header))
   console.log(widths.map((w) => '-'.repeat(w)).join('  '))
   for (const r of rows) console.log(line(r))
@@ -227,7 +229,10 @@ async function chainBench() {
 // (a) Floor, cold build, cold check
 
 const rows = []
-const row = (section, measure, value, target, ok) => rows.push({section, measure, value, target: target ?? '', verdict: ok === undefined ? '' : ok ? 'pass' : 'FAIL'})
+// Each figure with the one-minute load average when it was taken: the machine may be shared.
+const load = () => loadavg()[0]?.toFixed(1) ?? '?'
+const row = (section, measure, value, target, ok, loadText = load()) =>
+  rows.push({section, measure, value, target: target ?? '', verdict: ok === undefined ? '' : ok ? 'pass' : 'FAIL', load: loadText})
 
 // `--chain`: only the chain rows, for a quick look on a busy machine.
 if (CHAIN_ONLY) {
@@ -267,8 +272,10 @@ await Promise.all(pages.map((n, d) => new Promise((done) => {
 })))
 `)
 const times = {floor: [], build: [], node: [], check: []}
+const roundLoads = []
 for (let i = 0; i < REPEAT; i++) {
   progress(`side-by-side round ${i + 1} of ${REPEAT}: floor, build, node -e 0, check`)
+  roundLoads.push(loadavg()[0] ?? 0)
   times.floor.push((await runNode([floorScript])).seconds)
   times.build.push((await cli(['build', SAMPLES, '--force', '--out', outSamples, '--quiet'])).seconds)
   times.node.push((await runNode(['-e', '0'])).seconds)
@@ -283,12 +290,13 @@ const ratio = (a, b) => median(times[a].map((t, i) => t / times[b][i]))
 const buildRatio = ratio('build', 'floor')
 const checkRatio = ratio('check', 'node')
 
-row('a', `floor: node + pdfkit, ${pages.join('+')} pages, 6 DejaVu faces`, `${floor.toFixed(2)} s`)
-row('a', `build sample-designs (${samplePdfs.length} notes, cold, --force)`, `${buildMedian.toFixed(2)} s`)
-row('a', 'RATIO build / floor (median of per-round ratios)', `${buildRatio.toFixed(2)} ×`, '≤ 2 ×', buildRatio <= 2)
-row('a', 'node -e 0', `${nodeMedian.toFixed(3)} s`)
-row('a', 'check sample-designs (cold)', `${checkMedian.toFixed(3)} s`)
-row('a', 'RATIO check / node -e 0 (median of per-round ratios)', `${checkRatio.toFixed(2)} ×`, '≤ 2 ×', checkRatio <= 2)
+const roundsLoad = `${Math.min(...roundLoads).toFixed(1)}–${Math.max(...roundLoads).toFixed(1)}`
+row('a', `floor: node + pdfkit, ${pages.join('+')} pages, 6 DejaVu faces`, `${floor.toFixed(2)} s`, undefined, undefined, roundsLoad)
+row('a', `build sample-designs (${samplePdfs.length} notes, cold, --force)`, `${buildMedian.toFixed(2)} s`, undefined, undefined, roundsLoad)
+row('a', 'RATIO build / floor (median of per-round ratios)', `${buildRatio.toFixed(2)} ×`, '≤ 2 ×', buildRatio <= 2, roundsLoad)
+row('a', 'node -e 0', `${nodeMedian.toFixed(3)} s`, undefined, undefined, roundsLoad)
+row('a', 'check sample-designs (cold)', `${checkMedian.toFixed(3)} s`, undefined, undefined, roundsLoad)
+row('a', 'RATIO check / node -e 0 (median of per-round ratios)', `${checkRatio.toFixed(2)} ×`, '≤ 2 ×', checkRatio <= 2, roundsLoad)
 
 // What `check` loads: module-load trace mapped to packages with esbuild's metafile.
 {
@@ -368,6 +376,17 @@ for (const [name, rate] of Object.entries(rates)) row('b', `evaluateStage, ${nam
 row('b', 'evaluateStage, all topologies', `${overall.toFixed(0)} /s`, '≥ 2000 /s', overall >= 2000)
 
 await chainBench()
+
+// ---------------------------------------------------------------------------------------
+// (b3) Monte Carlo yield over the DC budget (DESIGN §8.7), in this process: the trial loop
+// on one core (target ≥ 5 M trials/s), the same on every core (worker threads, each a
+// disjoint range of trials — trial i depends only on (seed, i), so the joined errors must
+// equal the one-thread run byte for byte), and what a 100k-trial default adds to a stage's
+// evaluation (the whole run: trials, sort, histogram, variance shares; target < 0.1 s).
+
+progress('Monte Carlo yield')
+const {yieldBench} = await import('./yield-bench.mjs')
+await yieldBench({root: ROOT, quick: QUICK, stage: base, row})
 
 // ---------------------------------------------------------------------------------------
 // (c) Large notes

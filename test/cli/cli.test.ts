@@ -85,7 +85,7 @@ describe('ampreview CLI', () => {
     expect(out.files).toHaveLength(1)
     expect(out.files[0]!.sourceSha256).toMatch(/^[0-9a-f]{64}$/)
     expect(Object.keys(out.files[0]!.stages[0]!)).toEqual(
-      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives'])
+      ['id', 'topology', 'opamp', 'gain', 'noiseGain', 'dc', 'noise', 'stability', 'filter', 'requirements', 'notes', 'role', 'alternatives', 'yield'])
     expect(out.files[0]!.stages[0]!['alternatives']).toBeNull()
   })
 

@@ -10,7 +10,7 @@ import {parseNote} from '../../src/note/index.js'
 import {evaluateNote} from '../../src/evaluate/index.js'
 import {buildReport, type ReportOutput} from '../../src/report/build.js'
 import {processNote, type NoteOutcome, type Resources} from '../../src/cli/pipeline.js'
-import {lazyFonts, loadFonts, loadTemplate} from '../../src/cli/resources.js'
+import {lazyFaces, lazyFonts, loadFonts, loadTemplate} from '../../src/cli/resources.js'
 import {compileFigures, type CompiledFigures} from '../../src/render/chart/compile.js'
 
 export const ROOT = resolve(import.meta.dirname, '..', '..')
@@ -38,7 +38,8 @@ export async function compiledReportOf(path: string): Promise<ReportOutput & {fi
 
 /** Build a note to PDF in a fresh temporary folder; returns the outcome and the PDF bytes. */
 export async function pdfOf(path: string): Promise<{outcome: NoteOutcome; pdf: Uint8Array}> {
-  const res: Resources = {fonts: lazyFonts(), version: '0.0.0-test', templates: new Map()}
+  const fonts = lazyFonts()
+  const res: Resources = {fonts, faces: lazyFaces(fonts), version: '0.0.0-test', buildId: '', templates: new Map()}
   const outDir = mkdtempSync(join(tmpdir(), 'ampreview-report-'))
   const outcome = await processNote(path, res, {formats: ['pdf'], outDir, strict: false, sourceDateEpoch: undefined})
   const pdfPath = outcome.outputs.find((o) => o.endsWith('.pdf'))

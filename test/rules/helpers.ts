@@ -64,6 +64,7 @@ export function stageResult(parts: ResultParts = {}, input: StageInput = stageIn
       inputRms: rms / Math.abs(gain), contributors: noiseContributors
     },
     filter: null,
+    yield: null,
     stability: {phaseMargin: 60, crossover: 90e3, bandwidth: 90e3, peaking: 0, suggestedCf: null, ...parts.stability},
     requirements: parts.requirements ?? [],
     curves: {

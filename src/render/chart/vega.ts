@@ -17,9 +17,10 @@
  * measures to truncate text at a `limit`, and the chart config sets no limits (see
  * `charts/theme.ts`), so no text is cut.
  *
- * vega keeps its text metric and random source in module state, so renders are run one at a
- * time through a queue and the previous metric is put back afterwards. Placing the SVG in the
- * PDF (px → pt, font mapping) is left to `src/render`.
+ * vega keeps its text metric and random source in module state: a render installs ours only
+ * for the synchronous part of its run (see `renderNow`) and puts the previous ones back
+ * before its first await, so renders may run at once and no state of ours outlives a call.
+ * Placing the SVG in the PDF (px → pt, font mapping) is left to `src/render`.
  */
 import * as vega from 'vega'
 import * as vl from 'vega-lite'
@@ -52,6 +53,8 @@ interface TextItem {
 /** vega runtime exports that vega-typings does not declare. */
 interface VegaRuntime {
   textMetrics: {width: (item: TextItem, text: unknown) => number}
+  /** vega-statistics' current random source (a live binding). */
+  random: () => number
   setRandom: (random: () => number) => void
   randomLCG: (seed: number) => () => number
 }
@@ -139,6 +142,9 @@ function renumberDefIds(svg: string): string {
   })
 }
 
+/** The view's dataflow clock: one more for every pulse it runs (vega-dataflow `stamp()`, public but not in vega-typings). */
+const pulseStamp = (view: vega.View): number => (view as unknown as {stamp: () => number}).stamp()
+
 /** Seed of vega's random source; any constant works, it only has to be fixed. */
 const RANDOM_SEED = 1
 
@@ -146,32 +152,47 @@ async function renderNow(spec: TopLevelSpec, fonts: ChartFonts): Promise<ChartSv
   const warnings: string[] = []
   const errors: string[] = []
   const vgSpec = vl.compile(spec, {logger: collectingLogger(warnings, errors)}).spec
+  // vega's text metric and random source are vega's module state. They are ours only for
+  // this synchronous section: the view is built and its dataflow run; vega measures text
+  // (and would draw random numbers) while its operators run, which happens before
+  // `runAsync` returns its promise for a spec with inline data. Both are put back before the
+  // first await, so renders running at once cannot see each other's metric, and nothing of
+  // ours outlives the call.
   const previousWidth = runtime.textMetrics.width
+  const previousRandom = runtime.random
+  let view: vega.View
+  let running: Promise<unknown>
+  let stamp: number
   runtime.textMetrics.width = textWidth(fonts)
   runtime.setRandom(runtime.randomLCG(RANDOM_SEED))
-  const view = new vega.View(vega.parse(vgSpec), {
-    renderer: 'none',
-    loader: refusingLoader,
-    logger: collectingLogger(warnings, errors),
-    logLevel: vega.Warn
-  })
   try {
-    await view.runAsync()
+    view = new vega.View(vega.parse(vgSpec), {
+      renderer: 'none',
+      loader: refusingLoader,
+      logger: collectingLogger(warnings, errors),
+      logLevel: vega.Warn
+    })
+    running = view.runAsync()
+    stamp = pulseStamp(view)
+  } finally {
+    runtime.textMetrics.width = previousWidth
+    runtime.setRandom(previousRandom)
+  }
+  try {
+    await running
+    const failures = (): string[] => [...errors, ...warnings.filter((w) => w.startsWith('Loading failed') || w.startsWith('Data ingestion failed'))]
+    if (failures().length > 0) throw new Error(`Chart rendering failed: ${failures().join('; ')}`)
+    // A pulse after the synchronous section would have laid text out with vega's estimate:
+    // refuse the chart rather than draw it wrong (none of our specs does this).
+    if (pulseStamp(view) !== stamp) throw new Error('Chart rendering failed: vega ran this chart asynchronously, outside the DejaVu text metric')
     vega.resetSVGDefIds()
     const svg = renumberDefIds(await view.toSVG())
-    const failed = warnings.filter((w) => w.startsWith('Loading failed') || w.startsWith('Data ingestion failed'))
-    if (errors.length > 0 || failed.length > 0) {
-      throw new Error(`Chart rendering failed: ${[...errors, ...failed].join('; ')}`)
-    }
+    if (failures().length > 0) throw new Error(`Chart rendering failed: ${failures().join('; ')}`)
     return {svg, width: svgSize(svg, 'width'), height: svgSize(svg, 'height'), warnings}
   } finally {
     view.finalize()
-    runtime.textMetrics.width = previousWidth
   }
 }
-
-/** Renders queue here, because vega's text metric and random source are module state. */
-let queue: Promise<unknown> = Promise.resolve()
 
 /**
  * Render a vega-lite spec to SVG text.
@@ -184,7 +205,5 @@ let queue: Promise<unknown> = Promise.resolve()
  *   The SVG, its size in px, and every warning logged. Rejects on a vega error or a refused load.
  */
 export function renderChartSvg(spec: TopLevelSpec, fonts: ChartFonts): Promise<ChartSvg> {
-  const result = queue.then(() => renderNow(spec, fonts))
-  queue = result.catch(() => undefined)
-  return result
+  return renderNow(spec, fonts)
 }

@@ -17,7 +17,7 @@ import {drawHeading, renderBlocks} from './blocks.js'
 import {compileFigures, type CompiledFigures} from '../chart/compile.js'
 import {newPage, resolvePageRefs, type RenderContext} from './context.js'
 import {drawCover} from './cover.js'
-import {loadFonts, registerFonts, type FontSet} from './fonts.js'
+import {loadFonts, registerFonts, type FontSet, type LoadedFonts} from './fonts.js'
 import {collectDefinitions, drawFootnotes} from './footnotes.js'
 import {drawFurniture} from './furniture.js'
 import {createGlyphChecker} from './glyphs.js'
@@ -34,6 +34,11 @@ export interface RenderOptions {
   date: Date
   /** The document's figures already compiled (src/render/chart); compiled here when absent. */
   figures?: CompiledFigures
+  /**
+   * `fonts` already parsed (`loadFonts`), to share between the documents of a run: each face
+   * is parsed once and each distinct string shaped once. Parsed here when absent.
+   */
+  faces?: LoadedFonts
 }
 
 export interface RenderOutput {
@@ -65,7 +70,7 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
   // 0. Charts: compiled from their specs, unless the caller did.
   const figures = opts.figures ?? await compileFigures(report, {regular: opts.fonts.regular, bold: opts.fonts.bold})
   // 1. Document and fonts.
-  const fonts = await loadFonts(opts.fonts)
+  const fonts = opts.faces ?? await loadFonts(opts.fonts)
   const doc = createPdf({
     autoFirstPage: false,
     bufferPages: true,
@@ -94,6 +99,7 @@ export async function renderPdf(report: ReportDocument, opts: RenderOptions): Pr
     outline: {stack: []},
     frame: {x: theme.margins.left, width: doc.page.width - theme.margins.left - theme.margins.right},
     listDepth: 0,
+    heights: new Map(),
     tight: false,
     anchors: new Map(),
     pageRefs: [],

@@ -1,6 +1,7 @@
 /**
- * Fonts: the six DejaVu faces arrive as bytes (`FontSet`), are parsed once per render with
- * fontkit and registered under our own names. The standard 14 PDF fonts are never used:
+ * Fonts: the six DejaVu faces arrive as bytes (`FontSet`), are parsed with fontkit (once per
+ * render, or once per run when the caller passes them parsed) and registered under our own
+ * names. The standard 14 PDF fonts are never used:
  * they are not embedded and cover WinAnsi only.
  */
 import type {PdfDoc} from './pdfkit.js'
@@ -55,7 +56,55 @@ function isGlyphFont(value: unknown): value is GlyphFont {
     typeof (value as {hasGlyphForCodePoint?: unknown}).hasGlyphForCodePoint === 'function'
 }
 
-/** Parses the six faces with fontkit (the same module instance pdfkit uses). */
+/** The part of a fontkit glyph run pdfkit reads (and scales in place, see `memoizeLayout`). */
+interface GlyphRun {
+  glyphs: unknown[]
+  positions: object[]
+}
+
+interface LayoutFont {
+  layout(text: string, features?: unknown, ...rest: unknown[]): GlyphRun
+}
+
+const hasLayout = (font: GlyphFont): font is GlyphFont & LayoutFont =>
+  typeof (font as Partial<LayoutFont>).layout === 'function'
+
+/** A copy of a glyph run that shares its glyphs but not its positions. */
+function copyRun(run: GlyphRun): GlyphRun {
+  const copy = Object.assign(Object.create(Object.getPrototypeOf(run) as object) as GlyphRun, run)
+  copy.glyphs = run.glyphs.slice()
+  copy.positions = run.positions.map((p) => Object.assign(Object.create(Object.getPrototypeOf(p) as object) as object, p))
+  return copy
+}
+
+/**
+ * The font with its shaping memoized: `layout(text, features)` (what pdfkit calls for every
+ * word it measures or draws) shapes each distinct string once and hands out copies, since
+ * pdfkit scales the positions of the run it gets in place. Shaping is a pure function of the
+ * font and its arguments, so the memo changes the time only, never a glyph or a position.
+ * The memo lives as long as the font object: one render, or a run when the caller passes
+ * the parsed faces to several renders (`RenderOptions.faces`).
+ */
+function memoizeLayout(font: GlyphFont & LayoutFont): GlyphFont {
+  const memo = new Map<string, GlyphRun>()
+  const layout = (text: string, features?: unknown, ...rest: unknown[]): GlyphRun => {
+    // Script, language or direction given: not what pdfkit asks for; shaped as asked, not kept.
+    if (rest.length > 0) return font.layout(text, features, ...rest)
+    const key = features === undefined ? `\u0000${text}` : `${JSON.stringify(features)}\u0000${text}`
+    let run = memo.get(key)
+    if (run === undefined) {
+      run = font.layout(text, features)
+      memo.set(key, run)
+    }
+    return copyRun(run)
+  }
+  return new Proxy(font, {get: (target, property) => (property === 'layout' ? layout : Reflect.get(target, property, target) as unknown)})
+}
+
+/**
+ * Parses the six faces with fontkit (the same module instance pdfkit uses), each with its
+ * shaping memoized (`memoizeLayout`).
+ */
 export async function loadFonts(fonts: FontSet): Promise<LoadedFonts> {
   // fontkit ships no type declarations; a non-literal specifier keeps the import untyped
   // here, and the shape is checked below.
@@ -66,8 +115,8 @@ export async function loadFonts(fonts: FontSet): Promise<LoadedFonts> {
   const out = {} as LoadedFonts
   for (const key of FONT_KEYS) {
     const font = create(fonts[key])
-    if (!isGlyphFont(font)) throw new Error(`Font \`${key}\` could not be read as TrueType`)
-    out[key] = font
+    if (!isGlyphFont(font) || !hasLayout(font)) throw new Error(`Font \`${key}\` could not be read as TrueType`)
+    out[key] = memoizeLayout(font)
   }
   return out
 }

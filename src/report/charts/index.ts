@@ -11,3 +11,5 @@ export {CHART_CONFIG, CHART_WIDTH, NOISE_STYLES, TOTAL_STYLE, type LineStyle} fr
 export {responseSpec} from './response.js'
 export {chainNoiseDensitySpec, stagesUnderTotal, stageStyle} from './chain-noise-density.js'
 export {chainDiagramSpec, type ChainDiagramInput, type DiagramBox} from './chain-diagram.js'
+export {yieldHistogramSpec, type YieldHistogramInput} from './yield-histogram.js'
+export {varianceSharesSpec} from './variance-shares.js'

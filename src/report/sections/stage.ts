@@ -21,6 +21,7 @@ import {noteBlocks} from './notes.js'
 import type {RuleNote} from '../../rules/types.js'
 import type {StageInput} from '../../engine/types.js'
 import {stageSchematic} from '../schematic/stage.js'
+import {yieldBlocks} from './yield.js'
 
 /** The stage's schematic, first in its section. */
 function schematicBlock(ctx: ReportContext, input: StageInput): BlockContent {
@@ -117,6 +118,7 @@ export function stageSection(ctx: ReportContext, ev: StageEvaluation, shared: re
       '(the largest ideal output over the input range, reference term included).'),
     ...biasBlocks(ev),
     caption(nextTable(ctx, `DC error budget of stage ${input.id}`)), dcTable(result, input), ...networkCmrrBlocks(ev), dcFigure(ctx, ev))
+  out.push(...yieldBlocks(ctx, ev))
 
   out.push(heading(3, 'Noise budget'),
     paragraph(`Over ${q(result.noise.band[0], 'Hz')} … ${q(result.noise.band[1], 'Hz')} (brick-wall) at ${q(result.noise.temperature - 273.15, '°C')}; ` +

@@ -9,6 +9,8 @@ const SPECS: [string, () => TopLevelSpec][] = [
   ['noise density', () => charts.noiseDensitySpec(stageCurves(), {labels: {}}).spec],
   ['cumulative rms', () => charts.cumulativeRmsSpec(stageCurves())],
   ['loop gain', () => charts.loopGainSpec(stageCurves(), stability())],
+  ['yield histogram', () => charts.yieldHistogramSpec({top: 2e-3, counts: [5, 40, 30, 10, 4, 1, 0, 0], limits: [{label: 'output-error', value: 1.5e-3}], worstCase: 1.9e-3})],
+  ['variance shares', () => charts.varianceSharesSpec([{label: 'Offset voltage (vos)', share: 0.7}, {label: 'rf tolerance', share: 0.3}])],
   ['loop gain without crossover', () => charts.loopGainSpec(stageCurves(), {...stability(), crossover: null, phaseMargin: null})]
 ]
 
@@ -41,7 +43,7 @@ describe('src/report/charts', () => {
     expect(Object.keys(charts).sort()).toEqual([
       'CHART_CONFIG', 'CHART_FONT_FAMILY', 'CHART_WIDTH', 'NOISE_STYLES', 'NO_CROSSOVER_TEXT', 'TOTAL_LABEL', 'TOTAL_STYLE',
       'chainDiagramSpec', 'chainNoiseDensitySpec', 'cumulativeRmsSpec', 'dcBarsSpec', 'faceOfWeight', 'hasGlyphs', 'loopGainSpec',
-      'measureText', 'noiseDensitySpec', 'responseSpec', 'stageStyle', 'stagesUnderTotal'
+      'measureText', 'noiseDensitySpec', 'responseSpec', 'stageStyle', 'stagesUnderTotal', 'varianceSharesSpec', 'yieldHistogramSpec'
     ])
   })
 })

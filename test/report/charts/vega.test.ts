@@ -1,5 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import type {TopLevelSpec} from 'vega-lite'
+import * as vega from 'vega'
 import {renderChartSvg} from '../../../src/render/chart/vega.js'
 import {CHART_CONFIG} from '../../../src/report/charts/theme.js'
 import {measureText} from '../../../src/report/charts/fonts.js'
@@ -44,6 +45,25 @@ describe('renderChartSvg()', () => {
     const two = (await renderChartSvg(textSpec('iiii'), FONTS)).svg
     const both = await Promise.all([renderChartSvg(textSpec('WWWW'), FONTS), renderChartSvg(textSpec('iiii'), FONTS)])
     expect(both.map((c) => c.svg)).toEqual([one, two])
+  })
+
+  it("puts vega's own text metric and random source back, even while a render is still running", async () => {
+    const runtime = vega as unknown as {textMetrics: {width: unknown}; random: unknown}
+    const metric = runtime.textMetrics.width
+    const random = runtime.random
+    let done = false
+    const pending = renderChartSvg(textSpec('WWWW'), FONTS).finally(() => { done = true })
+    // Between any two steps of the render, nothing of it is installed.
+    let ticks = 0
+    while (!done) {
+      expect(runtime.textMetrics.width).toBe(metric)
+      expect(runtime.random).toBe(random)
+      await (ticks++ % 2 === 0 ? Promise.resolve() : new Promise((r) => setImmediate(r)))
+    }
+    expect((await pending).warnings).toEqual([])
+    expect(ticks).toBeGreaterThan(1)
+    expect(runtime.textMetrics.width).toBe(metric)
+    expect(runtime.random).toBe(random)
   })
 
   it('lays text out with the DejaVu advance widths, not a per-character estimate', async () => {

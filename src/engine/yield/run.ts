@@ -1,0 +1,331 @@
+/**
+ * The Monte Carlo run over a stage's DC budget (DESIGN §8.7): draw every trial's variables
+ * from the counter-based generator, evaluate the signed error sums of `model.ts` at every
+ * input end and temperature, keep the largest magnitude (with and without the calibration),
+ * then the requirement yields with their Wilson intervals, the percentiles, the histogram
+ * and the variance shares.
+ *
+ * Trial i uses only uniformOf(trialKey(seed, i), slot): the draws, and so every figure, are
+ * the same however the trials are split. The loop runs over typed arrays, the closed form of
+ * `closed-form.ts` evaluated 1 + T·(1 + P) times a trial for T temperatures and P input ends.
+ */
+import type {DcBudget, StageInput, YieldKey, YieldOptions, YieldRequirement, YieldResult} from '../types.js'
+import {YIELD_KEYS} from '../types.js'
+import {DEFAULT_YIELD_TRIALS} from '../constants.js'
+import {seedKey, trialKey, uniformOf} from './counter-rng.js'
+import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
+import {truncatedNormal} from './normal.js'
+import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
+
+
+/**
+ * The Monte Carlo options of a stage: its `yield` map, else the defaults when it requires a
+ * yield (a yield requirement needs the run), else null (off).
+ */
+export function yieldOptionsOf(input: StageInput): YieldOptions | null {
+  if (input.yield) return input.yield
+  return input.require.yield !== undefined ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null
+}
+
+/** Base rows of the variance-share estimate (each costs one evaluation per variable). */
+export const VARIANCE_ROWS = 8192
+/** Bins of the report's histogram. */
+export const HISTOGRAM_BINS = 48
+/** Offset of the second, independent sample of Jansen's design in the generator's variable index. */
+const STREAM_B = 64
+
+/** Fill `vals` (SLOT_COUNT long) with one trial's draws; inactive slots stay 0. */
+export function drawTrial(model: YieldModel, key: number, vals: Float64Array, stream = 0): void {
+  // One loop per kind (the variables are grouped by kind in the model), no branch per draw.
+  const slots = model.varSlot
+  const scales = model.varScale
+  // Indexed, not destructured: array destructuring runs the iterator protocol every trial.
+  const symmetricEnd = model.kindEnds[0]
+  const normalEnd = model.kindEnds[1]
+  for (let k = 0; k < symmetricEnd; k++) {
+    const slot = slots[k]
+    vals[slot] = scales[k] * (2 * uniformOf(key, slot + stream) - 1)
+  }
+  for (let k = symmetricEnd; k < normalEnd; k++) {
+    const slot = slots[k]
+    vals[slot] = truncatedNormal(uniformOf(key, slot + stream), scales[k])
+  }
+  for (let k = normalEnd; k < slots.length; k++) {
+    const slot = slots[k]
+    vals[slot] = scales[k] * uniformOf(key, slot + stream)
+  }
+}
+
+/** Scratch arrays of one evaluator. */
+interface Scratch {
+  maxCal: number
+  rTol: Float64Array
+  rT: Float64Array
+  rIb: Float64Array
+  tol: Float64Array
+}
+
+const scratchOf = (m: YieldModel): Scratch => ({
+  maxCal: 0,
+  rTol: Float64Array.from(m.nominal),
+  rT: Float64Array.from(m.nominal),
+  rIb: Float64Array.from(m.nominal),
+  tol: new Float64Array(m.points.length)
+})
+
+/**
+ * One trial's signed errors: `out[ti·P + p]` the full error and `outCal[ti·P + p]` the
+ * calibrated residual (equal to the full error without a calibration) at temperature ti and
+ * input end p. The terms are those of `model.ts`.
+ */
+export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): void {
+  trialMax(m, vals, s, out, outCal)
+}
+
+/** `trialErrors`, returning the largest |full error| and leaving the largest |calibrated residual| in `s.maxCal`. */
+function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array): number {
+  const f = m.form
+  const pts = m.points
+  const P = pts.length
+  const mov = m.moving
+  const nom = m.nominal
+  const {rTol, rT, rIb, tol} = s
+  for (let j = 0; j < mov.length; j++) {
+    const i = mov[j]
+    rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
+  }
+  for (let p = 0; p < P; p++) {
+    const q = pts[p]
+    tol[p] = f(rTol, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+  }
+  const vos = vals[SLOT.vos]
+  const ib = vals[SLOT.ib]
+  const iosOut = vals[SLOT.ios] * m.kIos
+  const idarkOut = vals[SLOT.idark] * m.kIdark
+  const cmrr = vals[SLOT.cmrr]
+  const psrrOut = m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  let e = 0
+  let ec = 0
+  for (let ti = 0; ti < m.temperatures.length; ti++) {
+    const dt = m.temperatures[ti] - 25
+    for (let j = 0; j < mov.length; j++) {
+      const i = mov[j]
+      const c = vals[tcSlot(i)] * dt
+      rT[i] = nom[i] * (1 + c)
+      rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+    }
+    // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
+    const ibOut = ib === 0 ? 0 : ib * f(dt === 0 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
+    const drift = m.kVos * vals[SLOT.vosDrift] * dt + psrrOut
+    const full = drift + ibOut + iosOut + idarkOut + m.kVos * vos
+    const cal = drift + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual
+    for (let p = 0; p < P; p++) {
+      const q = pts[p]
+      const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+      const gainTerms = m.kVos * q.cmDeviation * cmrr + q.aol + tol[p]
+      const a = full + tc + gainTerms
+      const b = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : a
+      out[ti * P + p] = a
+      outCal[ti * P + p] = b
+      const aa = Math.abs(a)
+      const bb = Math.abs(b)
+      if (aa > e) e = aa
+      if (bb > ec) ec = bb
+    }
+  }
+  s.maxCal = ec
+  return e
+}
+
+/**
+ * The signed error at one temperature ti and input end p only (the variance shares'
+ * evaluations): the same terms as `trialErrors`, full or calibrated.
+ */
+export function pointError(m: YieldModel, vals: Float64Array, s: Scratch, p: number, ti: number, calibrated: boolean): number {
+  const f = m.form
+  const q = m.points[p]
+  const mov = m.moving
+  const nom = m.nominal
+  const {rTol, rT, rIb} = s
+  const dt = m.temperatures[ti] - 25
+  for (let j = 0; j < mov.length; j++) {
+    const i = mov[j]
+    const c = vals[tcSlot(i)] * dt
+    rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
+    rT[i] = nom[i] * (1 + c)
+    rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+  }
+  const ib = vals[SLOT.ib]
+  const ibOut = ib === 0 ? 0 : ib * f(rIb, 0, 0, 0, 0, 1, 1)
+  const iosOut = vals[SLOT.ios] * m.kIos
+  const idarkOut = vals[SLOT.idark] * m.kIdark
+  const common = m.kVos * vals[SLOT.vosDrift] * dt + m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+  const gainTerms = m.kVos * q.cmDeviation * vals[SLOT.cmrr] + q.aol + (f(rTol, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal)
+  if (calibrated && m.calibrated) {
+    return common + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual + tc + (m.gainCalibrated ? 0 : gainTerms)
+  }
+  return common + ibOut + iosOut + idarkOut + m.kVos * vals[SLOT.vos] + tc + gainTerms
+}
+
+/** Sums of the signed error at every point over the first `rows` trials (to find the point of largest variance). */
+export interface PointSums {
+  rows: number
+  calibrated: boolean
+  sum: Float64Array
+  sum2: Float64Array
+}
+
+/** The raw errors of trials [from, to): full and calibrated, max |signed sum| over the points. */
+export function trialBlock(m: YieldModel, seed: number, from: number, to: number, err: Float64Array, errCal: Float64Array, sums?: PointSums): void {
+  const sk = seedKey(seed)
+  const vals = new Float64Array(SLOT_COUNT)
+  const s = scratchOf(m)
+  const n = m.points.length * m.temperatures.length
+  const out = new Float64Array(n)
+  const outCal = new Float64Array(n)
+  for (let t = from; t < to; t++) {
+    drawTrial(m, trialKey(sk, t), vals, 0)
+    err[t - from] = trialMax(m, vals, s, out, outCal)
+    errCal[t - from] = s.maxCal
+    if (sums !== undefined && t < sums.rows) {
+      const pick = sums.calibrated ? outCal : out
+      for (let k = 0; k < n; k++) {
+        sums.sum[k] += pick[k]
+        sums.sum2[k] += pick[k] * pick[k]
+      }
+    }
+  }
+}
+
+/** The figure a requirement is judged on, from the trial's full and calibrated output errors. */
+const ERROR_OF: Record<YieldKey, 'full' | 'cal'> = {
+  'output-error': 'full',
+  'input-error': 'full',
+  'output-error-calibrated': 'cal',
+  'input-error-calibrated': 'cal'
+}
+
+/** An unavailable result (no closed form for the topology). */
+function unavailableResult(input: StageInput, options: YieldOptions, reason: string, dc: DcBudget): YieldResult {
+  return {
+    ...options,
+    unavailable: reason,
+    results: [],
+    basis: input.calibration === 'none' ? 'output' : 'output-calibrated',
+    worstCase: dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput,
+    errorPercentiles: null,
+    maxError: 0,
+    variance: [],
+    varianceAt: null,
+    varianceRows: 0,
+    histogram: {top: 0, counts: []}
+  }
+}
+
+/**
+ * The Monte Carlo of one stage (DESIGN §8.7).
+ * @param dc
+ *   The stage's budget (the worst-case bound shown beside the distribution).
+ * @param gain
+ *   The signed signal gain G (input-referred = output ÷ |G|).
+ */
+export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number): YieldResult {
+  const model = yieldModel(input, options.distribution)
+  if (model === null) {
+    return unavailableResult(input, options, `the ${input.topology} topology has no closed-form DC solution for the Monte Carlo`, dc)
+  }
+  const n = options.trials
+  const err = new Float64Array(n)
+  const errCal = new Float64Array(n)
+  const calibrated = input.calibration !== 'none'
+  const P = model.points.length * model.temperatures.length
+  const rows = Math.min(n, VARIANCE_ROWS)
+  const sums: PointSums = {rows, calibrated, sum: new Float64Array(P), sum2: new Float64Array(P)}
+  // The first `rows` trials (in order, so any later split keeps these sums) also locate the point of largest variance.
+  trialBlock(model, options.seed, 0, n, err, errCal, sums)
+  const g = Math.abs(gain)
+  const results: YieldRequirement[] = []
+  for (const key of YIELD_KEYS) {
+    const limit = input.require[key]
+    if (limit === undefined) continue
+    const e = ERROR_OF[key] === 'full' ? err : errCal
+    const bound = key.startsWith('input') ? limit * g : limit
+    let passed = 0
+    for (let i = 0; i < n; i++) if (e[i] <= bound) passed++
+    results.push({key, limit, passed, yield: passed / n, interval: wilsonInterval(passed, n)})
+  }
+  const basisErr = calibrated ? errCal : err
+  const worstCase = calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput
+  const sorted = Float64Array.from(basisErr).sort()
+  const maxError = n > 0 ? sorted[n - 1] : 0
+  const limits = results.filter((r) => ERROR_OF[r.key] === (calibrated ? 'cal' : 'full')).map((r) => (r.key.startsWith('input') ? r.limit * g : r.limit))
+  const top = Math.max(maxError, worstCase, ...limits) * 1.02
+  const shares = varianceShares(model, options.seed, sums)
+  return {
+    ...options,
+    unavailable: null,
+    results,
+    basis: calibrated ? 'output-calibrated' : 'output',
+    worstCase,
+    errorPercentiles: {p50: percentileSorted(sorted, 0.5), p99: percentileSorted(sorted, 0.99), p999: percentileSorted(sorted, 0.999)},
+    maxError,
+    variance: shares.variance,
+    varianceAt: shares.at === null ? null : {input: shares.at.x, inputCm: input.topology === 'difference' ? shares.at.cm : null, temperature: shares.at.t},
+    varianceRows: shares.rows,
+    histogram: {top, counts: histogram(basisErr, HISTOGRAM_BINS, top)}
+  }
+}
+
+/**
+ * Variance shares (DESIGN §8.7): Jansen's total-effect index of each variable for the signed
+ * error at the input end and temperature of largest variance (from `sums`), over the first
+ * `sums.rows` trials (matrix A) and an independent second draw of the same trials (matrix B),
+ * normalised to sum 1.
+ */
+function varianceShares(m: YieldModel, seed: number, sums: PointSums): {
+  variance: {variable: string; share: number}[]
+  at: {x: number; cm: number; t: number} | null
+  rows: number
+} {
+  const rows = sums.rows
+  if (rows < 2 || m.variables.length === 0) return {variance: [], at: null, rows: 0}
+  const sk = seedKey(seed)
+  const P = m.points.length
+  let best = 0
+  let bestVar = -1
+  for (let k = 0; k < sums.sum.length; k++) {
+    const v = sums.sum2[k] / rows - (sums.sum[k] / rows) ** 2
+    if (v > bestVar) {
+      bestVar = v
+      best = k
+    }
+  }
+  const p = best % P
+  const ti = Math.floor(best / P)
+  const vals = new Float64Array(SLOT_COUNT)
+  const valsB = new Float64Array(SLOT_COUNT)
+  const s = scratchOf(m)
+  const fA = new Float64Array(rows)
+  const fAB = m.variables.map(() => new Float64Array(rows))
+  for (let j = 0; j < rows; j++) {
+    const key = trialKey(sk, j)
+    drawTrial(m, key, vals)
+    drawTrial(m, key, valsB, STREAM_B)
+    fA[j] = pointError(m, vals, s, p, ti, sums.calibrated)
+    for (let i = 0; i < m.variables.length; i++) {
+      const slot = m.variables[i].slot
+      const keep = vals[slot]
+      vals[slot] = valsB[slot]
+      fAB[i][j] = pointError(m, vals, s, p, ti, sums.calibrated)
+      vals[slot] = keep
+    }
+  }
+  const raw = jansenTotalEffects(fA, fAB)
+  const total = raw.reduce((a, b) => a + b, 0)
+  const variance = m.variables
+    .map((v, i) => ({variable: v.name, share: total > 0 ? raw[i] / total : 0}))
+    .sort((a, b) => b.share - a.share || (a.variable < b.variable ? -1 : 1))
+  const q = m.points[p]
+  return {variance, at: {x: q.x, cm: q.cm, t: m.temperatures[ti]}, rows}
+}
