@@ -46,7 +46,7 @@ export const USAGE = `Usage:
   ampreview check NOTE… [--json] [--shard I/N] [--alternatives]
   ampreview compare OLD NEW [--markdown] [--threshold P%]
   ampreview merge RESULT.json…
-  ampreview new FILE [--topology noninverting|inverting|follower|transimpedance]
+  ampreview new FILE [--topology noninverting|inverting|follower|transimpedance|difference|lowpass-sallen-key|lowpass-mfb|instrumentation]
   ampreview --help | --version
 
 NOTE is a Markdown file, a folder (every *.md inside it, sorted) or a glob ('designs/**/*.md').

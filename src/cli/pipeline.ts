@@ -271,7 +271,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   ])
   const report = buildReport({
     parsed, evaluations, chains,
-    fragments: {method: template.method, closing: template.closing},
+    fragments: {method: template.method, closing: template.closing, appendix: template.options.appendix},
     sourceSha256: sha, toolVersion: res.version, fileName: basename(name)
   })
 

@@ -72,10 +72,21 @@ export async function loadFonts(): Promise<FontSet> {
   return Object.fromEntries(entries) as unknown as FontSet
 }
 
+/** Template options (`options.json` of a template, or `"options"` in a `template.json`). */
+export interface TemplateOptions {
+  /** `full`: the whole method (method.md); `short`: one page of it (method-short.md) with the sources of method.md. */
+  appendix: 'full' | 'short'
+}
+
+export const DEFAULT_TEMPLATE_OPTIONS: TemplateOptions = {appendix: 'full'}
+
+const OPTION_VALUES: {[K in keyof TemplateOptions]: readonly TemplateOptions[K][]} = {appendix: ['full', 'short']}
+
 export interface Template {
   name: string
   theme: Theme
-  /** The method appendix, parsed (on first read). */
+  options: TemplateOptions
+  /** The method appendix as the `appendix` option asks, parsed (on first read). */
   readonly method: Root
   /** The sign-off and closing text, parsed (on first read). */
   readonly closing: Root
@@ -86,7 +97,7 @@ const parseMarkdown = (md: string): Root => unified().use(remarkParse).use(remar
 /** Template names are folder names under templates/: letters, digits and dashes only. */
 export const isTemplateName = (name: string): boolean => /^[a-z0-9][a-z0-9-]*$/.test(name)
 
-type Json = null | boolean | number | string | Json[] | {[k: string]: Json}
+export type Json = null | boolean | number | string | Json[] | {[k: string]: Json}
 const isMap = (v: Json | undefined): v is {[k: string]: Json} => typeof v === 'object' && v !== null && !Array.isArray(v)
 
 /** `over` laid onto `base`, maps merged key by key, anything else replaced. */
@@ -99,10 +110,32 @@ function overlay(base: Json, over: Json): Json {
 
 type TextName = 'method' | 'signoff' | 'closing'
 
-/** A template's raw sources: its theme JSON (overlays applied) and its three text files. */
+/** A template's raw sources: its theme JSON (overlays applied), its text files and its options. */
 interface TemplateSources {
   themeJson: Json
-  texts: Record<TextName, string>
+  texts: Record<TextName, string> & {'method-short'?: string}
+  options: TemplateOptions
+}
+
+/** The options a template's JSON gives, checked: unknown keys and values are errors. */
+export function templateOptionsOf(name: string, file: string, json: Json | undefined, base: TemplateOptions): TemplateOptions {
+  if (json === undefined) return base
+  if (!isMap(json)) throw new Error(`Template \`${name}\`: the options in ${file} must be a map such as {"appendix": "short"}`)
+  const out: TemplateOptions = {...base}
+  for (const [k, v] of Object.entries(json)) {
+    if (k !== 'appendix') throw new Error(`Template \`${name}\`: unknown option \`${k}\` in ${file}, expected \`appendix\``)
+    if (typeof v !== 'string' || !(OPTION_VALUES.appendix as readonly string[]).includes(v)) {
+      throw new Error(`Template \`${name}\`: option appendix is ${JSON.stringify(v)} in ${file}, expected "full" or "short"`)
+    }
+    out.appendix = v as TemplateOptions['appendix']
+  }
+  return out
+}
+
+/** The "Sources" section of the full method (its heading to the end), for the short appendix. */
+function sourcesOf(method: Root): Root['children'] {
+  const at = method.children.findIndex((n) => n.type === 'heading' && n.children.some((c) => c.type === 'text' && c.value.trim() === 'Sources'))
+  return at < 0 ? [] : method.children.slice(at)
 }
 
 /**
@@ -112,14 +145,21 @@ interface TemplateSources {
  * the three text files it holds replacing the base's.
  */
 export async function loadTemplate(name: string): Promise<Template> {
-  const {themeJson, texts} = await readTemplateSources(name, [])
+  const {themeJson, texts, options} = await readTemplateSources(name, [])
   // The fragments are parsed on first use: `check` reads the template (a missing or broken
   // one is an error there too) but never the parsed fragments, which only a report needs.
   let method: Root | null = null
   let closing: Root | null = null
+  const methodTree = (): Root => {
+    const full = parseMarkdown(texts.method)
+    if (options.appendix === 'full') return full
+    // One page of method, then the full method's sources, said once in method.md.
+    const brief = parseMarkdown(texts['method-short'] ?? '')
+    return {...brief, children: [...brief.children, ...sourcesOf(full)]}
+  }
   return {
-    name, theme: parseTheme(themeJson),
-    get method(): Root { return (method ??= parseMarkdown(texts.method)) },
+    name, theme: parseTheme(themeJson), options,
+    get method(): Root { return (method ??= methodTree()) },
     get closing(): Root { return (closing ??= parseMarkdown(`${texts.signoff}\n\n${texts.closing}`)) }
   }
 }
@@ -144,25 +184,33 @@ async function readTemplateSources(name: string, seen: readonly string[]): Promi
   const derived = await tryRead('template.json')
   let base: TemplateSources | null = null
   let themeJson: Json
+  let options: TemplateOptions
   if (derived !== null) {
     const spec = parseJson('template.json', derived)
     const parent = isMap(spec) && typeof spec['extends'] === 'string' ? spec['extends'] : null
     if (parent === null) throw new Error(`Template \`${name}\`: template.json needs "extends": the name of another template`)
     base = await readTemplateSources(parent, [...seen, name])
     themeJson = overlay(base.themeJson, isMap(spec) && spec['theme'] !== undefined ? spec['theme'] : {})
+    options = templateOptionsOf(name, 'template.json', isMap(spec) ? spec['options'] : undefined, base.options)
   } else {
     const text = await tryRead('theme.json')
     if (text === null) throw new Error(`Template \`${name}\` is missing theme.json (looked in ${dir})`)
     themeJson = parseJson('theme.json', text)
+    const own = await tryRead('options.json')
+    options = templateOptionsOf(name, 'options.json', own === null ? undefined : parseJson('options.json', own), DEFAULT_TEMPLATE_OPTIONS)
   }
-  const texts = {} as Record<TextName, string>
+  const texts = {} as TemplateSources['texts']
   for (const k of ['method', 'signoff', 'closing'] as const) {
     const own = await tryRead(`${k}.md`)
     const text = own ?? base?.texts[k] ?? null
     if (text === null) throw new Error(`Template \`${name}\` is missing ${k}.md (looked in ${dir})`)
     texts[k] = text
   }
-  return {themeJson, texts}
+  // The short method is needed only when the option asks for it.
+  const short = (await tryRead('method-short.md')) ?? base?.texts['method-short'] ?? null
+  if (short !== null) texts['method-short'] = short
+  else if (options.appendix === 'short') throw new Error(`Template \`${name}\` asks for appendix: short but has no method-short.md (looked in ${dir})`)
+  return {themeJson, texts, options}
 }
 
 /** Hash of every file under templates/ (names and bytes, sorted): part of each build's cache key. */

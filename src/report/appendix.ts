@@ -21,8 +21,10 @@ export interface AppendixInput {
   evaluations: StageEvaluation[]
   /** Evaluated chains (optional). */
   chains?: ChainEvaluation[]
-  /** The method fragment (templates/…/method.md), parsed. */
+  /** The method fragment (templates/…/method.md, or method-short.md with its sources), parsed. */
   method: Root
+  /** The template's `appendix` option: `short` prints one page of method, without the chain method (default `full`). */
+  form?: 'full' | 'short'
   sourceSha256: string
   toolVersion: string
   /** The note's file name as given. */
@@ -31,8 +33,9 @@ export interface AppendixInput {
 
 export function buildAppendix(a: AppendixInput): Root {
   const chains = a.chains ?? []
-  const children: RootContent[] = [heading(1, 'Appendix A — Method'), ...a.method.children]
-  if (chains.length > 0) children.push(heading(2, 'Measurement chains'), ...CHAIN_METHOD.map((t) => paragraph(t)))
+  const short = a.form === 'short'
+  const children: RootContent[] = [heading(1, short ? 'Appendix A — Method in brief' : 'Appendix A — Method'), ...a.method.children]
+  if (chains.length > 0 && !short) children.push(heading(2, 'Measurement chains'), ...CHAIN_METHOD.map((t) => paragraph(t)))
   children.push(heading(1, 'Appendix B — Assumptions and defaults'))
   if (a.evaluations.length === 0) children.push(paragraph('The note has no stage blocks.'))
   for (const ev of a.evaluations) {

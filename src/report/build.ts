@@ -26,7 +26,7 @@ export interface ReportInput {
   /** Evaluated chains (DESIGN §8.6); none when absent. */
   chains?: ChainEvaluation[]
   /** Template fragments, parsed: the method appendix and the closing text (sign-off + estimate statements). */
-  fragments: {method: Root; closing: Root}
+  fragments: {method: Root; closing: Root; appendix?: 'full' | 'short'}
   sourceSha256: string
   toolVersion: string
   fileName: string
@@ -75,6 +75,14 @@ function replaceBlocks(nodes: RootContent[], ctx: ReportContext, byBlock: Map<St
       out.push(...adcSection(ctx, node))
     } else if (node.type === 'opampBlock') {
       out.push(...opampSection(ctx, node))
+    } else if (node.type === 'paragraph' && node.children.some((c) => c.type === 'image' || c.type === 'imageReference')) {
+      // The note's own images are figures too, numbered in document order with the charts:
+      // those a paragraph holds directly, which the PDF draws as blocks of their own.
+      out.push({...node, children: node.children.map((c) => {
+        if (c.type !== 'image' && c.type !== 'imageReference') return c
+        ctx.figure += 1
+        return {...c, data: {...c.data, figure: ctx.figure}}
+      })})
     } else if (hasChildren(node)) {
       out.push({...node, children: replaceBlocks(node.children, ctx, byBlock, shared, chains)} as RootContent)
     } else {
@@ -114,7 +122,7 @@ export function buildReport(input: ReportInput): ReportOutput {
     cover: coverSummary(input.evaluations, ctx.coverNotes, chainCoverRows(chains)),
     body,
     appendix: buildAppendix({
-      evaluations: input.evaluations, chains, method: input.fragments.method,
+      evaluations: input.evaluations, chains, method: input.fragments.method, form: input.fragments.appendix ?? 'full',
       sourceSha256: input.sourceSha256, toolVersion: input.toolVersion, fileName: input.fileName
     }),
     closing: input.fragments.closing,

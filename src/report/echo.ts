@@ -5,6 +5,8 @@
  * as the micro sign. Nothing else of the text changes (RKM codes such as `4k7` stay).
  */
 import {OPAMP_KEYS, STAGE_KEYS, isStageKey} from '../note/keys.js'
+import {INA_KEYS} from '../note/ina-block.js'
+import {ADC_KEYS} from '../note/converter-keys.js'
 import {DIMENSIONS, type Dimension} from '../units/index.js'
 
 const NUMBER = String.raw`[+\-−]?\d+(?:\.\d+)?(?:[eE][+\-]?\d+)?`
@@ -17,10 +19,12 @@ const micro = (p: string, dim: Dimension | null): string => (p === 'u' || p === 
 /** The dimension a key's value is written in, when it is one quantity (or a resistor). */
 export function dimensionOfKey(key: string, block: 'stage' | 'opamp'): Dimension | null {
   if (block === 'opamp') {
-    const spec = (OPAMP_KEYS as Record<string, {dim: Dimension} | undefined>)[key]
+    // An opamp block, or an ina block (its keys are the instrumentation amplifier's).
+    const spec = (OPAMP_KEYS as Record<string, {dim: Dimension} | undefined>)[key] ?? (INA_KEYS as Record<string, {dim: Dimension} | undefined>)[key]
     return spec?.dim ?? null
   }
-  if (!isStageKey(key)) return null
+  // An adc block's keys are echoed with the stage-side reader.
+  if (!isStageKey(key)) return (ADC_KEYS as Record<string, {dim: Dimension} | undefined>)[key]?.dim ?? null
   const read = STAGE_KEYS[key].read as {kind: string; dim?: Dimension}
   if (read.kind === 'resistor' || read.kind === 'shunt') return 'resistance'
   if (read.kind === 'quantity' && read.dim !== undefined) return read.dim
@@ -33,6 +37,8 @@ export function echoValue(raw: string, dim: Dimension | null): string {
   // A space between a number and its (prefixed) unit.
   text = text.replace(new RegExp(`(\\d)(${PREFIX}?)(${UNIT_AFTER})(?![A-Za-z])`, 'g'), (_m, d: string, p: string, u: string) => `${d} ${micro(p, dim)}${u}`)
   text = text.replace(new RegExp(`(\\d) (${PREFIX})(${UNIT_AFTER})`, 'g'), (_m, d: string, p: string, u: string) => `${d} ${micro(p, dim)}${u}`)
+  // The per-microsecond of a slew rate is written with the micro sign too ("0.5 V/us" → "0.5 V/µs").
+  text = text.replace(/V\/us(?![A-Za-z])/g, 'V/µs')
   if (dim === null) return rangeUnits(text)
   const spec = DIMENSIONS[dim]
   const first = spec?.units[0]

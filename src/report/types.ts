@@ -78,6 +78,25 @@ declare module 'mdast' {
   }
 }
 
+/**
+ * A note's own image (mdast `image` or `imageReference`) numbered with the charts and
+ * schematics, in document order: its figure number in `data.figure`, captioned below with
+ * its alt text ("Figure 1 — Block diagram …").
+ */
+export interface NoteImageData {
+  figure?: number
+}
+
+/** The figure number the report gave a note's image, if any. */
+export const noteImageFigure = (node: {data?: unknown}): number | undefined =>
+  typeof node.data === 'object' && node.data !== null && typeof (node.data as NoteImageData).figure === 'number'
+    ? (node.data as NoteImageData).figure
+    : undefined
+
+/** "Figure N — alt" (or "Figure N" without alt text), as the PDF and the Markdown print it. */
+export const noteImageCaption = (figure: number, alt: string | null | undefined): string =>
+  alt === null || alt === undefined || alt.trim() === '' ? `Figure ${figure}` : `Figure ${figure} — ${alt.trim()}`
+
 /** One row of the cover's verdict table. */
 export interface CoverVerdict {
   stage: string

@@ -7,7 +7,7 @@ import {REQUIREMENT_KEYS, type RequirementResult, type Topology} from '../engine
 import type {StageEvaluation} from '../evaluate/index.js'
 import {LIMIT_LABELS, REQUIREMENT_LABELS, requirementUnit} from '../results/labels.js'
 import {deg, q} from './format.js'
-import {formatNumber} from '../units/format.js'
+import {formatFixed, formatNumber, formatRange, formatSlew} from '../units/format.js'
 import type {CoverNote, CoverSummary, CoverVerdict, Verdict} from './types.js'
 
 export const verdictOf = (r: RequirementResult): Verdict =>
@@ -32,8 +32,12 @@ export const requirementLabel = (r: RequirementResult): string =>
 
 const LIMIT_UNIT = {'output-swing': 'V', 'input-common-mode': 'V', slew: 'V/s', 'output-current': 'A'} as const
 
+/** A limit's value in its unit; a slew rate in V/µs, as engineers write it. */
+const limitQ = (v: number | null, unit: string): string => (unit === 'V/s' && v !== null ? formatSlew(v) : q(v, unit))
+
+/** A range with enough digits to tell its ends apart ("2.499 … 2.501 V"); an open end is "any". */
 const rangeText = (lo: number | null, hi: number | null, unit: string): string =>
-  `${lo === null ? 'any' : q(lo, unit)} … ${hi === null ? 'any' : q(hi, unit)}`
+  lo !== null && hi !== null ? formatRange(lo, hi, unit) : `${lo === null ? 'any' : q(lo, unit)} … ${hi === null ? 'any' : q(hi, unit)}`
 
 /** A requirement or limit value, in its own unit. */
 export const requirementValue = (r: RequirementResult, which: 'value' | 'limit', t: Topology): string => {
@@ -51,7 +55,7 @@ export const requirementValue = (r: RequirementResult, which: 'value' | 'limit',
   }
   if (r.key === 'slew' || r.key === 'output-current') {
     const v = which === 'value' ? r.value : r.limit
-    return which === 'limit' && v === null ? 'not entered' : q(v, unit)
+    return which === 'limit' && v === null ? 'not entered' : limitQ(v, unit)
   }
   return '—'
 }
@@ -69,7 +73,7 @@ export function relative(m: number, limit: number): string {
   if (limit === 0) return ''
   const p = (m / Math.abs(limit)) * 100
   if (!Number.isFinite(p)) return ''
-  return Math.abs(p) >= 1e4 ? ` (${p < 0 ? 'below −' : 'over '}10 000 %)` : ` (${p.toFixed(0)} %)`
+  return Math.abs(p) >= 1e4 ? ` (${p < 0 ? 'below −' : 'over '}10 000 %)` : ` (${formatFixed(p, {decimals: 0})} %)`
 }
 
 /** Margin to the limit, signed so that positive is good, in the requirement's unit. */
@@ -85,7 +89,7 @@ export function margin(r: RequirementResult, t: Topology): string {
       const m = r.limit - r.value
       const rel = relative(m, r.limit)
       const fpbw = r.key === 'slew' && r.fullPowerBandwidth !== null ? `; full-power bandwidth ${q(r.fullPowerBandwidth, 'Hz')}` : ''
-      return q(m, unit) + rel + fpbw
+      return limitQ(m, unit) + rel + fpbw
     }
     return '—'
   }

@@ -4,7 +4,7 @@
  * the two sides and prints the result as text or Markdown.
  */
 import {TOPOLOGIES, type RequirementKey, type Topology} from '../engine/types.js'
-import {formatQuantity} from '../units/format.js'
+import {formatQuantity, formatSlew} from '../units/format.js'
 import {gainUnit, inputUnit, requirementUnit} from './labels.js'
 import type {JsonAlternative, JsonStage} from './json.js'
 import type {JsonChain} from './chain-json.js'
@@ -191,7 +191,7 @@ export function compareRuns(oldRun: RunJson, newRun: RunJson, opts: CompareOptio
 
 const show = (v: number | null, unit: string): string =>
   v === null ? 'none' : unit === '%' ? `${(v * 100).toFixed(3)} %` : unit === '°' ? `${v.toFixed(2)}°` : unit === 'dB' ? `${v.toFixed(2)} dB`
-    : unit === 'LSB' || unit === 'bits' ? `${v.toFixed(2)} ${unit}` : unit === '' ? v.toFixed(4) : formatQuantity(v, unit, {digits: 4})
+    : unit === 'LSB' || unit === 'bits' ? `${v.toFixed(2)} ${unit}` : unit === '' ? v.toFixed(4) : unit === 'V/s' ? formatSlew(v, {digits: 4}) : formatQuantity(v, unit, {digits: 4})
 
 const delta = (c: ValueChange): string => {
   if (c.old === null || c.new === null) return ''

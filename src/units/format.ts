@@ -162,3 +162,18 @@ export function formatRange(low: number, high: number, unit: string, opts: Forma
 export function formatTemperatureRange(low: number, high: number, opts: FixedOptions = {}): string {
   return `${formatFixed(low, opts)} … ${formatTemperature(high, opts)}`
 }
+
+/**
+ * A slew rate, V/s, in V/µs as datasheets and engineers write it: `formatSlew(2e6)` is
+ * `2 V/µs`, `formatSlew(5e5)` is `0.5 V/µs`. Below 0.01 V/µs the prefix goes on the volt
+ * (`formatSlew(62.8e-3)` is `62.8 nV/µs`), never a string of zeros. The JSON stays in V/s.
+ */
+export function formatSlew(voltsPerSecond: number, opts: FormatOptions = {}): string {
+  const s = special(voltsPerSecond, 'V/µs')
+  if (s !== null) return s
+  const perMicro = voltsPerSecond * 1e-6
+  if (perMicro === 0) return join('0', 'V/µs')
+  if (outOfRange(voltsPerSecond)) return `${join(formatScientific(perMicro, opts), 'V/µs')} ${OUT_OF_RANGE_FLAG}`
+  if (Math.abs(perMicro) >= 0.01) return join(formatNumber(perMicro, opts), 'V/µs')
+  return `${formatQuantity(perMicro, 'V', opts)}/µs`
+}

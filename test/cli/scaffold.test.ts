@@ -3,6 +3,7 @@ import {readdirSync, readFileSync, symlinkSync} from 'node:fs'
 import {join} from 'node:path'
 import {TOPOLOGIES} from '../../src/engine/types.js'
 import {runCli, tempNotes} from './helpers.js'
+import {USAGE} from '../../src/cli/args.js'
 
 describe('new', () => {
   it.each(TOPOLOGIES)('writes a %s note that checks without errors and meets its own requirements', (topology) => {
@@ -46,5 +47,13 @@ describe('new', () => {
     symlinkSync(join(dir, 'elsewhere.md'), join(dir, 'n.md'))
     expect(runCli(['new', join(dir, 'n.md')]).status).toBe(2)
     expect(readdirSync(dir)).toEqual(['n.md'])
+  })
+})
+
+describe('new in the usage text and the README', () => {
+  it('lists every topology `new` can write', () => {
+    const list = `--topology ${TOPOLOGIES.join('|')}`
+    expect(USAGE).toContain(list)
+    expect(readFileSync(join(import.meta.dirname, '..', '..', 'README.md'), 'utf8')).toContain(list)
   })
 })

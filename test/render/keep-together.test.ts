@@ -14,6 +14,14 @@ describe('keepTogether()', () => {
   it('joins a number and its unit with U+00A0, and leaves other spaces alone', () => {
     expect(keepTogether('worst case 12.4 mV at 25 °C, 3 dB, 66.7 ° and 5 kΩ')).toBe('worst case 12.4\u00A0mV at 25\u00A0°C, 3\u00A0dB, 66.7\u00A0° and 5\u00A0kΩ')
     expect(keepTogether('stage 2 meets 4 of its requirements')).toBe('stage 2 meets 4 of its requirements')
+    expect(keepTogether('21862 LSB and 16.99 bits')).toBe('21862\u00A0LSB and 16.99\u00A0bits')
+  })
+
+  it('draws the hyphens inside ids, keys, p-p and dates as no-break hyphens, and leaves others alone', () => {
+    expect(keepTogether('rule bias-over-temperature-missing, key require.output-error, 5 µV p-p on 2026-11-30'))
+      .toBe('rule bias\u2011over\u2011temperature\u2011missing, key require.output\u2011error, 5\u00A0µV p\u2011p on 2026\u201111\u201130')
+    expect(keepTogether('in- and −5 V, (-51 %)')).toBe('in- and −5\u00A0V, (-51\u00A0%)')
+    expect(keepTogether('✓ met, ✗ NOT MET, – skipped, 8 – 10')).toBe('✓\u00A0met, ✗\u00A0NOT\u00A0MET, –\u00A0skipped, 8 – 10')
   })
 
   it('uses a glyph every DejaVu face carries', () => {

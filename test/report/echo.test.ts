@@ -31,6 +31,21 @@ describe('echoValue()', () => {
     expect(dimensionOfKey('vos-drift', 'opamp')).toBe('drift')
     expect(dimensionOfKey('topology', 'stage')).toBeNull()
   })
+
+  it('knows the dimension of an ina key and an adc key, so their bare numbers get a unit', () => {
+    expect(dimensionOfKey('gain-constant', 'opamp')).toBe('resistance')
+    expect(echoValue('49.4k', dimensionOfKey('gain-constant', 'opamp'))).toBe('49.4 kΩ')
+    expect(dimensionOfKey('noise', 'stage')).toBe('converter-voltage')
+  })
+})
+
+describe('the load-cell PDF’s ina block, read back with pdfjs', async () => {
+  const all = (await readPdf((await pdfOf(sample('load-cell-bridge.md'))).pdf)).pages.join('\n').normalize('NFKC')
+
+  it('echoes gain-constant with its unit', () => {
+    expect(all).toContain('gain-constant 49.4 kΩ')
+    expect(all).not.toMatch(/gain-constant 49\.4k\b/)
+  })
 })
 
 describe('the photodiode PDF parameters, read back with pdfjs', async () => {

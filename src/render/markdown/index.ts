@@ -10,7 +10,7 @@ import {verdictText} from '../../report/format.js'
 import {heading, paragraph, strong, table, text} from '../../report/mdast.js'
 import {overallSentence, SEVERITY_WORDS} from '../../report/cover-text.js'
 import {webLink} from '../links.js'
-import type {FigureNode, ReportDocument} from '../../report/types.js'
+import {noteImageCaption, noteImageFigure, type FigureNode, type ReportDocument} from '../../report/types.js'
 import type {CompiledFigures} from '../chart/compile.js'
 import {drawingToSvg} from './schematic-svg.js'
 
@@ -68,6 +68,15 @@ function plain(nodes: RootContent[], figures: Figures, phrasing = false): RootCo
         if (webLink(node.url) === null) out.push(...plain(node.children, figures, true))
         else out.push({...node, children: plain(node.children, figures, true)} as RootContent)
         break
+      case 'paragraph': {
+        out.push({...node, children: plain(node.children, figures, true)} as RootContent)
+        // A note's image the report numbered gets its caption below, as in the PDF.
+        for (const c of node.children) {
+          const n = c.type === 'image' || c.type === 'imageReference' ? noteImageFigure(c) : undefined
+          if (n !== undefined) out.push(paragraph({type: 'emphasis', children: [text(noteImageCaption(n, c.type === 'image' || c.type === 'imageReference' ? c.alt : null))]}))
+        }
+        break
+      }
       case 'stageBlock':
       case 'opampBlock':
         out.push(paragraph(`(block ${node.id} not evaluated)`))

@@ -12,6 +12,7 @@ import {
   atPageTop, bodyStyle, drawText, estimateText, indented, keepSpace, measureText, newPage, spaceLeft, type RenderContext,
 } from './context.js'
 import {drawImage} from './image.js'
+import {noteImageFigure} from '../../report/types.js'
 import {drawRuns, runsOf, runsText} from './inline.js'
 import {drawList} from './list.js'
 import {drawSchematic, schematicHeight} from './schematic.js'
@@ -36,18 +37,36 @@ function lines(ctx: RenderContext, n: number, size = ctx.theme.fontSizes.body): 
   return n * (size * 1.17 + ctx.theme.lineGap)
 }
 
+/** How many blocks deep a keep-with-next looks (heading → introduction → heading → its table). */
+const KEEP_DEPTH = 4
+
+/** Blocks a short paragraph before them introduces. */
+const INTRODUCED = new Set<string>(['figure', 'schematic', 'table', 'code', 'caption', 'heading'])
+
 /** The least height that must stay on the page with a heading or caption placed before `node`. */
-export function keepHeight(ctx: RenderContext, node: RootContent | undefined, rest: RootContent[]): number {
+export function keepHeight(ctx: RenderContext, node: RootContent | undefined, rest: RootContent[], depth = 0): number {
   if (node === undefined) return 0
+  // What a block brings with it is followed a few blocks deep, never along a whole run of
+  // short sections (each would otherwise hold the next, and all of them one another).
+  const then = (): number => (depth >= KEEP_DEPTH ? 0 : keepHeight(ctx, rest[0], rest.slice(1), depth + 1))
   switch (node.type) {
     case 'figure': return figureHeight(ctx, node)
     case 'schematic': return schematicHeight(ctx, node)
-    case 'caption': return lines(ctx, 1, ctx.theme.fontSizes.small) + keepHeight(ctx, rest[0], rest.slice(1))
-    case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + lines(ctx, 2)
+    case 'caption': return lines(ctx, 1, ctx.theme.fontSizes.small) + (depth >= KEEP_DEPTH ? lines(ctx, 2) : keepHeight(ctx, rest[0], rest.slice(1), depth + 1))
+    // A heading placed here brings what it keeps with it (its own keep-with-next).
+    case 'heading': return lines(ctx, 1, headingSize(ctx, node.depth)) + ctx.theme.spacing.headingBefore + ctx.theme.spacing.headingAfter +
+      Math.max(lines(ctx, 2), then())
     case 'table': return lines(ctx, 2, ctx.theme.fontSizes.table) + 4 * ctx.theme.spacing.cellPadding
     case 'code': return codeKeepHeight(ctx, node.value)
     case 'paragraph': {
       const h = estimateText(ctx, textContent(node), bodyStyle(ctx), ctx.frame.width)
+      // A line or two that introduces a figure, a table or code (a stage's "Voltage follower
+      // on …" before its schematic) goes with it: a heading then never ends a page with
+      // only its introduction under it.
+      const next = rest[0]
+      if (h <= lines(ctx, 2) && next !== undefined && INTRODUCED.has(next.type) && depth < KEEP_DEPTH) {
+        return h + ctx.theme.spacing.paragraph + then()
+      }
       return h <= lines(ctx, SHORT_PARAGRAPH_LINES) ? h : lines(ctx, 3)
     }
     default: return lines(ctx, 3)
@@ -98,11 +117,11 @@ export function drawPhrasing(ctx: RenderContext, children: PhrasingContent[]): v
   for (const child of children) {
     if (child.type === 'image') {
       flush()
-      drawImage(ctx, child.url, child.alt ?? '')
+      drawImage(ctx, child.url, child.alt ?? '', noteImageFigure(child))
     } else if (child.type === 'imageReference') {
       flush()
       const def = ctx.definitions.get(child.identifier.toLowerCase())
-      drawImage(ctx, def?.url ?? child.identifier, child.alt ?? '')
+      drawImage(ctx, def?.url ?? child.identifier, child.alt ?? '', noteImageFigure(child))
     } else segment.push(child)
   }
   flush()

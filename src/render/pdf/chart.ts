@@ -5,7 +5,7 @@
  * is not embedded and drops µ, Ω and −); SVG warnings become render warnings; only
  * `data:` images are allowed inside an SVG, so it can never read a file.
  */
-import {applyStyle, bodyStyle, keepSpace, measureText, pageBodyHeight, type RenderContext, type TextStyle} from './context.js'
+import {applyStyle, bodyStyle, keepSpace, keepTogether, measureText, pageBodyHeight, type RenderContext, type TextStyle} from './context.js'
 import {FONT_NAMES, svgFontName} from './fonts.js'
 import {drawSvg} from './pdfkit.js'
 import type {FigureNode} from '../../report/types.js'
@@ -90,7 +90,7 @@ export function drawFigure(ctx: RenderContext, node: FigureNode): void {
     width: ctx.frame.width, lineGap: theme.lineGap, continued: node.caption.trim() !== '', link: null, underline: false, strike: false,
   })
   if (node.caption.trim() !== '') {
-    doc.font(FONT_NAMES.regular).text(ctx.glyphs.clean(` — ${node.caption}`, 'regular'), {continued: false})
+    doc.font(FONT_NAMES.regular).text(ctx.glyphs.clean(keepTogether(` — ${node.caption}`), 'regular'), {continued: false})
   }
   doc.y += theme.spacing.paragraph + 2
 }

@@ -9,7 +9,7 @@ import type {FigureNode} from '../../report/types.js'
 import {FONT_NAMES, type FontKey, type LoadedFonts} from './fonts.js'
 import type {GlyphChecker} from './glyphs.js'
 import {breakLongWords} from './long-words.js'
-import {maxY, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
+import {maxY, NO_BREAK_HYPHEN, type OutlineItem, type PdfDoc, type TextOptions} from './pdfkit.js'
 import type {Theme} from './theme.js'
 import type {Warnings} from './warnings.js'
 
@@ -111,7 +111,7 @@ export function layoutText(ctx: RenderContext, text: string, font: FontKey, size
 }
 
 /** A unit symbol (with its prefix) that follows a number, for `keepTogether`. */
-const UNIT_AFTER_NUMBER = /(\d) (?=[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|ppm|s|×)(?![A-Za-z]))/g
+const UNIT_AFTER_NUMBER = /(\d) (?=(?:[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|ppm|s|×)|LSB|bits?)(?![A-Za-z]))/g
 
 /**
  * No line break between a number and its unit ("12.4 mV" stays on one line): the space
@@ -119,8 +119,20 @@ const UNIT_AFTER_NUMBER = /(\d) (?=[fpnuµμmkMGT]?(?:V|A|Hz|F|Ω|°C|°|K|dB|%|
  * test/render/keep-together.test.ts with fontkit). A reader copying the text gets a space.
  */
 export function keepTogether(text: string): string {
-  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0')
+  return text.replace(UNIT_AFTER_NUMBER, '$1\u00A0').replace(INNER_HYPHEN, NO_BREAK_HYPHEN).replace(VERDICT_MARK, '$1\u00A0')
 }
+
+/** A verdict's mark and word stay on one line ("✓ met", "✗ NOT MET", "– skipped"). */
+const VERDICT_MARK = /([✓✗]|–(?= (?:skipped|not evaluated))|NOT(?= MET)) /g
+
+/**
+ * A hyphen with a letter or digit on each side: inside a rule id (`phase-margin-low`), a key
+ * (`cm-headroom-neg`, `require.output-error`), "p-p", a date or a document number. It is
+ * drawn as the no-break hyphen U+2011 (every DejaVu face used carries it; a reader copying
+ * the text gets U+002D, pdfkit.ts), so that none of them is split at a line end. Ordinary
+ * hyphenated words stay whole too; a word wider than its line is still cut (long-words.ts).
+ */
+const INNER_HYPHEN = /(?<=[\p{L}\p{N}])-(?=[\p{L}\p{N}])/gu
 
 /** The part of pdfkit's document state that a text run left open (`continued: true`) keeps. */
 interface OpenRun {

@@ -28,7 +28,7 @@ export function isoDate(date: Date): string {
 /** A cover heading: outline level `depth`, set in the h3 size (the cover keeps to one page). */
 function heading(ctx: RenderContext, text: string, depth: Heading['depth']): void {
   const saved = ctx.theme
-  ctx.theme = {...saved, fontSizes: {...saved.fontSizes, h2: saved.fontSizes.h3}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore * 0.6}}
+  ctx.theme = {...saved, fontSizes: {...saved.fontSizes, h2: saved.fontSizes.h3}, spacing: {...saved.spacing, headingBefore: saved.spacing.headingBefore * 0.3}}
   try {
     ctx.blocks.heading(ctx, {type: 'heading', depth, children: [{type: 'text', value: text}]}, [])
   } finally {
@@ -59,17 +59,22 @@ function plain(ctx: RenderContext, text: string, style: TextStyle, indent = 0): 
   ctx.doc.y += 3
 }
 
-/** The archetype line(s) and what the overall verdict leaves out. */
+/** The archetype line and what the overall verdict leaves out, in one paragraph. */
 function drawCaveats(ctx: RenderContext, report: ReportDocument): void {
   const style = {font: 'regular' as const, size: ctx.theme.fontSizes.small, color: ctx.theme.colours.text}
   const arch = report.cover.archetypes
-  if (arch.length > 0) {
-    const each = arch.map((a) => `Stage ${a.stage} uses the archetype ${a.opamp}: its figures are for the class, not a part.`)
-    plain(ctx, `${each.join(' ')} Replace ${arch.length > 1 ? 'them' : 'its figures'} with the chosen part's datasheet values before sign-off.`, style)
+  const sentences: string[] = []
+  if (arch.length === 1) {
+    sentences.push(`Stage ${arch[0]!.stage} uses the archetype ${arch[0]!.opamp}: its figures are for the class, not a part. Replace its figures with the chosen part's datasheet values before sign-off.`)
+  } else if (arch.length > 1) {
+    const each = arch.map((a) => `${a.stage} (archetype ${a.opamp})`)
+    sentences.push(`Stages ${each.slice(0, -1).join(', ')} and ${each.at(-1)!} use archetypes: their figures are for the class, not a part. Replace them with the chosen parts' datasheet values before sign-off.`)
   }
-  if (report.cover.baseline.length > 0) {
-    plain(ctx, `Baseline stage${report.cover.baseline.length > 1 ? 's' : ''} ${report.cover.baseline.join(', ')}: kept for comparison, not counted in the overall verdict or the exit code.`, style)
+  const base = report.cover.baseline
+  if (base.length > 0) {
+    sentences.push(`Baseline stage${base.length > 1 ? 's' : ''} ${base.join(', ')}: kept for comparison, not counted in the overall verdict or the exit code.`)
   }
+  if (sentences.length > 0) plain(ctx, sentences.join(' '), style)
   ctx.doc.y += ctx.theme.spacing.paragraph - 3
 }
 
@@ -88,16 +93,16 @@ function drawOpenNotes(ctx: RenderContext, report: ReportDocument): void {
   const pageWidth = 46
   const width = ctx.frame.width - pageWidth
   for (const n of notes) {
-    const where = n.stage === null ? 'every stage' : `stage ${n.stage}`
+    const where = n.stage === null ? 'every stage' : n.stage
     const text = `${SEVERITY_WORDS[n.severity]} · ${where} · ${n.title} (${n.rule})${n.accepted === null ? '' : ` — accepted by the author: ${n.accepted}`}`
     const h = measureText(ctx, text, style, width)
-    keepSpace(ctx, h + 2)
+    keepSpace(ctx, h + 1)
     const y = doc.y
     drawText(ctx, text, style, ctx.frame.x, y, width)
     ctx.pageRefs.push({anchor: n.anchor, page: lastPageIndex(doc), right: ctx.frame.x + ctx.frame.width, y, style})
-    doc.y = y + h + 2
+    doc.y = y + h + 1
   }
-  doc.y += theme.spacing.paragraph
+  doc.y += theme.spacing.paragraph / 2
 }
 
 function signOffRows(doc: ReportDocument): Cell[][] {
@@ -132,7 +137,7 @@ function drawCoverPage(ctx: RenderContext, report: ReportDocument, date: Date): 
   if (meta.project !== null) {
     drawText(ctx, meta.project, {font: 'regular', size: theme.fontSizes.h3, color: theme.colours.muted}, ctx.frame.x, doc.y, ctx.frame.width)
   }
-  doc.y += theme.spacing.headingBefore * 0.75
+  doc.y += theme.spacing.headingBefore / 2
   const particulars: [string, string][] = [
     ['Document', meta.document ?? '—'],
     ['Revision', meta.revision ?? '—'],
@@ -152,15 +157,23 @@ function drawCoverPage(ctx: RenderContext, report: ReportDocument, date: Date): 
   doc.y += theme.spacing.paragraph
   heading(ctx, 'Requirement verdicts', 2)
   if (report.cover.verdicts.length > 0) {
-    drawTable(ctx, {
-      header: ['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'].map((text) => ({text})),
-      rows: report.cover.verdicts.map((v) => [
-        {text: v.counted ? v.stage : `${v.stage} (baseline)`}, {text: v.requirement}, {text: v.value}, {text: v.limit},
-        {text: v.counted ? VERDICT_WORDS[v.verdict] : `${VERDICT_WORDS[v.verdict]} (not counted)`, font: 'bold', shape: v.verdict},
-      ]),
-      align: ['left', 'left', 'right', 'right', 'left'],
-    })
-    doc.y += theme.spacing.paragraph
+    // Compact rows: the small size and tight padding, the verdict one word (a baseline
+    // stage says so in its stage cell and in the lines below), so that a row is one line.
+    const saved = ctx.theme
+    ctx.theme = {...saved, fontSizes: {...saved.fontSizes, table: saved.fontSizes.small}, spacing: {...saved.spacing, cellPadding: Math.min(saved.spacing.cellPadding, 1.2)}}
+    try {
+      drawTable(ctx, {
+        header: ['Stage', 'Requirement', 'Value', 'Limit', 'Verdict'].map((text) => ({text})),
+        rows: report.cover.verdicts.map((v) => [
+          {text: v.counted ? v.stage : `${v.stage} (baseline)`}, {text: v.requirement}, {text: v.value}, {text: v.limit},
+          {text: VERDICT_WORDS[v.verdict], font: 'bold', shape: v.verdict},
+        ]),
+        align: ['left', 'left', 'right', 'right', 'left'],
+      })
+    } finally {
+      ctx.theme = saved
+    }
+    doc.y += theme.spacing.paragraph / 2
   }
   drawOverall(ctx, report)
   drawCaveats(ctx, report)

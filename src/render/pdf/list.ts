@@ -4,7 +4,8 @@
  * indented past the marker, so nested lists, code and quotes work inside items.
  */
 import type {List} from 'mdast'
-import {applyStyle, drawText, indented, keepSpace, type RenderContext} from './context.js'
+import {applyStyle, drawText, estimateText, indented, keepSpace, spaceLeft, type RenderContext} from './context.js'
+import {textContent} from './text-content.js'
 import {drawTaskBox} from './shapes.js'
 
 const BULLETS = ['•', '◦', '▪']
@@ -21,7 +22,17 @@ export function drawList(ctx: RenderContext, node: List): void {
   const indent = Math.max(theme.spacing.listIndent, widest + 6)
   const lineHeight = size * 1.17 + theme.lineGap
   node.children.forEach((item, i) => {
-    keepSpace(ctx, lineHeight)
+    // The marker goes with its item: an item whose first paragraph would move whole to the
+    // next page (the paragraph rule of blocks.ts: spill under 2.5 lines, at most 8 lines)
+    // takes its marker with it rather than leave it alone at the page's foot.
+    const first = item.children[0]
+    let need = lineHeight
+    if (first?.type === 'paragraph') {
+      const h = estimateText(ctx, textContent(first), style, ctx.frame.width - indent)
+      const spill = h - spaceLeft(ctx)
+      if (spill > 0 && spill < lineHeight * 2.5 && h <= lineHeight * 8) need = h
+    }
+    keepSpace(ctx, need)
     const y = doc.y
     if (typeof item.checked === 'boolean') {
       const box = size * 0.78

@@ -130,8 +130,31 @@ export function createPdf(options: PdfOptions): PdfDoc {
   return new Ctor(options)
 }
 
+/** The no-break hyphen the renderer draws inside identifiers and "p-p" (context.ts `keepTogether`). */
+export const NO_BREAK_HYPHEN = '\u2011'
+
+/**
+ * A reader who copies `phase-margin-low` or `cm-headroom-neg` from the PDF must get the
+ * hyphen-minus a note is written with, not the no-break hyphen drawn to keep the word on one
+ * line: the text map (ToUnicode) of every embedded font maps that glyph back to U+002D. The
+ * map is pdfkit's per-font `unicode` table (glyph → code points, filled as text is encoded
+ * and written when the document ends), the one place pdfkit lets the two differ.
+ */
+function copyNoBreakHyphensAsHyphens(doc: PdfDoc): void {
+  const families = (doc as unknown as {_fontFamilies?: Record<string, {unicode?: number[][]}>})._fontFamilies ?? {}
+  for (const font of Object.values(families)) {
+    const map = font.unicode
+    if (!Array.isArray(map)) continue
+    for (let gid = 0; gid < map.length; gid++) {
+      const points = map[gid]
+      if (Array.isArray(points) && points.includes(0x2011)) map[gid] = points.map((c) => (c === 0x2011 ? 0x2d : c))
+    }
+  }
+}
+
 /** Ends the document and resolves with its bytes once the stream has finished. */
 export function collectPdf(doc: PdfDoc): Promise<Uint8Array> {
+  copyNoBreakHyphensAsHyphens(doc)
   return new Promise((resolve, reject) => {
     const chunks: Uint8Array[] = []
     doc.on('data', (chunk) => chunks.push(chunk))

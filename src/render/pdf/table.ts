@@ -6,7 +6,7 @@
  */
 import type {AlignType, Table} from 'mdast'
 import {
-  applyStyle, atPageTop, drawText, measureText, newPage, spaceLeft, type RenderContext, type TextStyle,
+  applyStyle, atPageTop, drawText, keepTogether, measureText, newPage, spaceLeft, type RenderContext, type TextStyle,
 } from './context.js'
 import type {FontKey} from './fonts.js'
 import {drawShape} from './shapes.js'
@@ -61,10 +61,12 @@ function columnWidths(ctx: RenderContext, spec: TableSpec, pad: number, shapeSiz
       const style = cellStyle(ctx, cell, r === 0 && spec.header !== null)
       applyStyle(ctx, style)
       const extra = 2 * pad + (cell.shape === undefined ? 0 : shapeSize + 3)
-      const text = ctx.glyphs.clean(cell.text, style.font)
+      const text = ctx.glyphs.clean(keepTogether(cell.text), style.font)
       // A loop, not a spread: a cell of 100,000 words would overflow the stack as arguments.
+      // Words are what a line may not break: a number with its unit (no-break space) and an
+      // identifier (no-break hyphens) are one word each.
       let longestWord = 0
-      for (const w of text.split(/\s+/)) if (w !== '') longestWord = Math.max(longestWord, ctx.doc.widthOfString(w))
+      for (const w of text.split(/[ \t\n\r]+/)) if (w !== '') longestWord = Math.max(longestWord, ctx.doc.widthOfString(w))
       min[c] = Math.max(min[c] as number, Math.min(longestWord + extra, total * 0.45))
       max[c] = Math.max(max[c] as number, ctx.doc.widthOfString(text) + extra + 1)
     })

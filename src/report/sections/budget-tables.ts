@@ -5,7 +5,7 @@ import type {Table} from 'mdast'
 import type {StageInput, StageResult} from '../../engine/types.js'
 import {dcPresent, noisePresent} from '../present.js'
 import {DC_LABELS, NOISE_LABELS, gainUnit, inputUnit} from '../../results/labels.js'
-import {db, deg, pct, q} from '../format.js'
+import {column, db, deg, pct, q} from '../format.js'
 import {code, strong} from '../mdast.js'
 import {table} from '../mdast.js'
 
@@ -40,17 +40,24 @@ export function dcTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const cal = r.dc.calibrated
-  const residual = (key: string): string[] => (cal === null ? [] : [q(cal.contributors.find((c) => c.key === key)?.output ?? null, 'V')])
-  const rows = r.dc.contributors.filter((c) => dcPresent(input, c.key)).map((c) => [
+  const present = r.dc.contributors.filter((c) => dcPresent(input, c.key))
+  // One prefix a column (its largest value's): the contributors, then the worst case and RSS.
+  const out = column([...present.map((c) => c.output), r.dc.worstCaseOutput, r.dc.rssOutput], 'V')
+  const inp = column([...present.map((c) => (g > 0 ? c.output / g : null)), r.dc.worstCaseInput, r.dc.rssInput], iu)
+  const after = cal === null ? null
+    : column([...present.map((c) => cal.contributors.find((k) => k.key === c.key)?.output ?? null), cal.worstCaseOutput, cal.rssOutput], 'V')
+  const residual = (i: number): string[] => (after === null ? [] : [after[i] as string])
+  const n = present.length
+  const rows = present.map((c, i) => [
     [DC_LABELS[c.key], ' (', code(c.key), ')'],
-    q(c.output, 'V'),
-    q(g > 0 ? c.output / g : null, iu),
+    out[i] as string,
+    inp[i] as string,
     r.dc.worstCaseOutput > 0 ? pct(c.output / r.dc.worstCaseOutput) : '—',
-    ...residual(c.key)
+    ...residual(i)
   ])
   rows.push(
-    [[strong('Worst case (sum)')], q(r.dc.worstCaseOutput, 'V'), q(r.dc.worstCaseInput, iu), '100.0 %', ...(cal === null ? [] : [q(cal.worstCaseOutput, 'V')])],
-    [[strong('RSS')], q(r.dc.rssOutput, 'V'), q(r.dc.rssInput, iu), '—', ...(cal === null ? [] : [q(cal.rssOutput, 'V')])]
+    [[strong('Worst case (sum)')], out[n] as string, inp[n] as string, '100.0 %', ...residual(n)],
+    [[strong('RSS')], out[n + 1] as string, inp[n + 1] as string, '—', ...residual(n + 1)]
   )
   const head = ['Contributor', 'At output', 'Referred to input', 'Share of worst case', ...(cal === null ? [] : ['At output after calibration'])]
   return table(head, rows, ['left', 'right', 'right', 'right', ...(cal === null ? [] : ['right' as const])])
@@ -61,20 +68,27 @@ export function noiseTable(r: StageResult, input: StageInput): Table {
   const iu = inputUnit(r.topology)
   const g = Math.abs(r.gain)
   const total2 = r.noise.outputRms ** 2
-  const rows = r.noise.contributors.filter((c) => noisePresent(input, c.key)).map((c) => [
+  const present = r.noise.contributors.filter((c) => noisePresent(input, c.key))
+  const shot = signalShot(r)
+  const z = r.noise.zeroSignalOutputRms
+  // One prefix a column of rms values (its largest value's), totals included; the
+  // peak-to-peak row is another quantity and keeps its own.
+  const out = column([...present.map((c) => c.outputRms), r.noise.outputRms, ...(shot ? [z] : [])], 'V')
+  const inp = column([...present.map((c) => (g > 0 ? c.outputRms / g : null)), r.noise.inputRms, ...(shot ? [g > 0 ? z / g : null] : [])], iu)
+  const n = present.length
+  const rows = present.map((c, i) => [
     [NOISE_LABELS[c.key], ' (', code(c.key), ')'],
-    q(c.outputRms, 'V'),
-    q(g > 0 ? c.outputRms / g : null, iu),
+    out[i] as string,
+    inp[i] as string,
     total2 > 0 ? pct(c.outputRms ** 2 / total2) : '—'
   ])
-  const atFull = signalShot(r) ? ' at full-scale signal' : ''
+  const atFull = shot ? ' at full-scale signal' : ''
   rows.push(
-    [[strong(`Total, rms${atFull}`)], q(r.noise.outputRms, 'V'), q(r.noise.inputRms, iu), '100.0 %'],
+    [[strong(`Total, rms${atFull}`)], out[n] as string, inp[n] as string, '100.0 %'],
     [[strong(`Total, peak-to-peak (6.6 × rms)${atFull}`)], q(r.noise.outputPeakToPeak, 'V'), q(r.noise.inputRms * 6.6, iu), '—']
   )
-  if (signalShot(r)) {
-    const z = r.noise.zeroSignalOutputRms
-    rows.push([[strong('Total, rms at zero signal (without shot-signal)')], q(z, 'V'), q(g > 0 ? z / g : null, iu), total2 > 0 ? pct(z ** 2 / total2) : '—'])
+  if (shot) {
+    rows.push([[strong('Total, rms at zero signal (without shot-signal)')], out[n + 1] as string, inp[n + 1] as string, total2 > 0 ? pct(z ** 2 / total2) : '—'])
   }
   return table(['Contributor', 'Output rms', 'Referred to input', 'Share of noise power'], rows,
     ['left', 'right', 'right', 'right'])

@@ -6,7 +6,7 @@
 import type {BlockContent, Table} from 'mdast'
 import type {ChainEvaluation} from '../../evaluate/chains.js'
 import {DC_LABELS} from '../../results/labels.js'
-import {db, pct, q} from '../format.js'
+import {column, db, pct, q} from '../format.js'
 import {code, paragraph, strong, table} from '../mdast.js'
 
 const CONVERTER_LABELS: Record<string, string> = {
@@ -32,8 +32,16 @@ export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows
   const total = r.dc.worstCaseOutput
   const sources = [...r.stages, ...(r.converter === null ? [] : [r.converter.name])]
   const sourceRows = sources.map((s) => ({key: s === r.converter?.name ? `converter ${s}` : `stage ${s}`, output: r.dc.contributors.filter((c) => c.source === s).reduce((a, c) => a + c.output, 0)}))
-  const row = (name: string | ReturnType<typeof strong>, v: number, share: string) =>
-    [[name], q(v, 'V'), q(g > 0 ? v / g : null, unitIn), lsbNumber(lsb === null ? null : v / lsb), share]
+  // One prefix a column (its largest value's): every row of the table, totals included.
+  const all = [...sourceRows.map((s) => s.output), total, r.dc.rssOutput,
+    ...(r.dc.calibrated === null ? [] : [r.dc.calibrated.worstCaseOutput, r.dc.calibrated.rssOutput])]
+  const atConverter = column(all, 'V')
+  const atInput = column(all.map((v) => (g > 0 ? v / g : null)), unitIn)
+  let at = 0
+  const row = (name: string | ReturnType<typeof strong>, v: number, share: string) => {
+    const i = at++
+    return [[name], atConverter[i] as string, atInput[i] as string, lsbNumber(lsb === null ? null : v / lsb), share]
+  }
   const rows = sourceRows.map((s) => row(s.key, s.output, total > 0 ? pct(s.output / total) : '—'))
   rows.push(row(strong('Worst case (sum)'), total, '100.0 %'), row(strong('RSS'), r.dc.rssOutput, '—'))
   if (r.dc.calibrated !== null) {
@@ -45,9 +53,11 @@ export function chainDcTables(ev: ChainEvaluation): {bySource: Table; sourceRows
   const converter = r.converter?.name ?? null
   const nonzero = r.dc.contributors.map((c, i) => ({...c, i})).filter((c) => c.output > 0).sort((a, b) => b.output - a.output || a.i - b.i)
   const calibrated = r.dc.calibrated?.contributors ?? null
-  const contributorRows = nonzero.map((c) => [
-    c.source, [label(c.source, c.key, converter), ' (', code(c.key), ')'], q(c.output, 'V'),
-    ...(calibrated === null ? [] : [q(calibrated[c.i]?.output ?? null, 'V')]),
+  const outCol = column(nonzero.map((c) => c.output), 'V')
+  const calCol = calibrated === null ? [] : column(nonzero.map((c) => calibrated[c.i]?.output ?? null), 'V')
+  const contributorRows = nonzero.map((c, i) => [
+    c.source, [label(c.source, c.key, converter), ' (', code(c.key), ')'], outCol[i] as string,
+    ...(calibrated === null ? [] : [calCol[i] as string]),
     lsbNumber(lsb === null ? null : c.output / lsb), total > 0 ? pct(c.output / total) : '—'
   ])
   const contributors = table(['Source', 'Contributor', 'At converter input', ...(calibrated === null ? [] : ['After calibration']), 'In LSB', 'Share'],
@@ -64,14 +74,18 @@ export function chainNoiseTable(ev: ChainEvaluation): Table {
   const c = r.converter
   const sigma2 = (r.noise.converterRms ?? r.noise.outputRms) ** 2
   const share = (v: number): string => (sigma2 > 0 ? pct(v ** 2 / sigma2) : '—')
-  const rows: (string | ReturnType<typeof strong>[])[][] = r.stageNoise.map((s) => [`Stage ${s.stage}`, q(s.outputRms, 'V'), q(s.outputRms / g, unitIn), share(s.outputRms)])
-  rows.push([[strong('Analog chain, rms')], q(r.noise.outputRms, 'V'), q(r.noise.outputRms / g, unitIn), share(r.noise.outputRms)])
-  if (r.noise.zeroSignalOutputRms !== r.noise.outputRms) rows.push(['Analog chain at zero signal (floor)', q(r.noise.zeroSignalOutputRms, 'V'), q(r.noise.zeroSignalOutputRms / g, unitIn), '—'])
+  // Rows as [label, value at the converter, share]; the two value columns share one prefix each.
+  const lines: [string | ReturnType<typeof strong>[], number, number | null, string][] = r.stageNoise.map((s) => [`Stage ${s.stage}`, s.outputRms, s.outputRms / g, share(s.outputRms)])
+  lines.push([[strong('Analog chain, rms')], r.noise.outputRms, r.noise.outputRms / g, share(r.noise.outputRms)])
+  if (r.noise.zeroSignalOutputRms !== r.noise.outputRms) lines.push(['Analog chain at zero signal (floor)', r.noise.zeroSignalOutputRms, r.noise.zeroSignalOutputRms / g, '—'])
   if (c !== null && r.noise.converterRms !== null) {
-    rows.push([`Converter ${c.name} noise`, q(c.noise, 'V'), q(c.noise / g, unitIn), share(c.noise)],
-      ['Quantisation, LSB/√12', q(c.quantization, 'V'), q(c.quantization / g, unitIn), share(c.quantization)],
-      [[strong('At the converter, rms')], q(r.noise.converterRms, 'V'), q(r.noise.inputRms, unitIn), '100.0 %'])
+    lines.push([`Converter ${c.name} noise`, c.noise, c.noise / g, share(c.noise)],
+      ['Quantisation, LSB/√12', c.quantization, c.quantization / g, share(c.quantization)],
+      [[strong('At the converter, rms')], r.noise.converterRms, r.noise.inputRms, '100.0 %'])
   }
+  const atConverter = column(lines.map((l) => l[1]), 'V')
+  const atInput = column(lines.map((l) => l[2]), unitIn)
+  const rows: (string | ReturnType<typeof strong>[])[][] = lines.map((l, i) => [l[0], atConverter[i] as string, atInput[i] as string, l[3]])
   return table(['Source', 'At converter input, rms', 'Referred to chain input', 'Share of noise power'], rows, ['left', 'right', 'right', 'right'])
 }
 

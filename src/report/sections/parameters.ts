@@ -7,6 +7,7 @@ import {ARCHETYPE_DISCLAIMER} from '../../engine/archetypes.js'
 import type {InaParams, OpampParams} from '../../engine/types.js'
 import type {BlockEntry, DefaultedValue} from '../../note/types.js'
 import {q as fq} from '../format.js'
+import {formatSlew} from '../../units/format.js'
 import {OPAMP_KEYS} from '../../note/keys.js'
 import {dimensionOfKey, echoValue} from '../echo.js'
 import {callout, code, emphasis, paragraph, table} from '../mdast.js'
@@ -64,7 +65,7 @@ function opampRows(op: OpampParams, written: readonly BlockEntry[] = []): string
     ['Phase margin as unity follower', `${op.pmUnity.toFixed(1)}°`],
     ['CMRR / PSRR', `${dbOf(op.cmrr, 'cmrr')} / ${dbOf(op.psrr, 'psrr')}`],
     ['Input capacitance, differential / common-mode', `${q(op.cinDiff, 'F', 'cinDiff')} / ${q(op.cinCm, 'F', 'cinCm')}`],
-    ['Slew rate', op.slew === null ? 'not entered' : q(op.slew, 'V/s', 'slew')],
+    ['Slew rate', op.slew === null ? 'not entered' : raw.get('slew') ?? formatSlew(op.slew)],
     ['Output swing headroom, negative / positive rail',
       `${entered(op.swingHeadroomNeg ?? op.swingHeadroom, 'V')} / ${entered(op.swingHeadroomPos ?? op.swingHeadroom, 'V')}`],
     ['Input common-mode headroom, negative / positive rail',
