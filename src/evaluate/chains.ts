@@ -9,7 +9,7 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import {checkChainRequirements, DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
 import type {YieldOptions} from '../engine/types.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
@@ -100,7 +100,7 @@ function calibratedAs(input: StageInput, calibration: ChainInput['calibration'])
 
 /** The chain's Monte Carlo options: its own `yield`, else the defaults with `--yield`, else null (off). */
 export const chainYieldOptions = (input: ChainInput, forced: boolean): YieldOptions | null =>
-  input.yield ?? (forced ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null)
+  input.yield ?? (forced || input.require.yield !== undefined ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null)
 
 /**
  * Evaluate every planned chain whose stages were all evaluated.
@@ -126,9 +126,12 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
       })
       const cascade = evaluateChain(input, views)
       const yieldOptions = chainYieldOptions(input, options.yield === true)
-      const result: ChainResult = yieldOptions === null ? cascade : {
-        ...cascade,
-        yield: runChainYield(input, (evaluated as EvaluatedStage[]).map((s) => ({input: s.input, gain: s.result.gain})), cascade.dc, yieldOptions)
+      let result: ChainResult = cascade
+      if (yieldOptions !== null) {
+        const y = runChainYield(input, (evaluated as EvaluatedStage[]).map((s) => ({input: s.input, gain: s.result.gain})), cascade.dc, yieldOptions)
+        // The `yield` requirement is judged on the Monte Carlo, which the cascade does not run: its verdicts again, with it.
+        const requirements = [...checkChainRequirements(input, {...cascade, yield: y}), ...cascade.requirements.filter((r) => r.kind === 'limit')]
+        result = {...cascade, yield: y, requirements}
       }
       const notes = runChainRules({input, result, stages: evaluated as EvaluatedStage[]})
       out.push({block, input, result, notes, topologies: (evaluated as EvaluatedStage[]).map((s) => s.input.topology)})

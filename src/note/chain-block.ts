@@ -7,7 +7,7 @@
  */
 import type {Point} from 'unist'
 import {ADC_ARCHETYPES, ADC_ARCHETYPE_NAMES, isAdcArchetypeName} from '../engine/chain/archetypes.js'
-import {CHAIN_REQUIREMENT_KEYS, type AdcParams, type ChainInput, type ChainRequirementKey} from '../engine/chain/types.js'
+import {CHAIN_REQUIREMENT_KEYS, CHAIN_YIELD_KEYS, type AdcParams, type ChainInput, type ChainRequirementKey} from '../engine/chain/types.js'
 import {CALIBRATIONS, type Calibration, type YieldOptions} from '../engine/types.js'
 import {formatRange, formatTemperatureRange} from '../units/index.js'
 import type {Field, FieldValue} from './block-yaml.js'
@@ -172,7 +172,17 @@ function readRequire(field: Field, current: boolean, report: Reporter): Partial<
       report.error(noteMessages.negative(sub.key, q.s.text.trim(), 'a limit'), q.s.at(0), 'bad-value')
       continue
     }
+    if (key === 'yield' && !(value > 0 && value <= 1)) {
+      report.error(noteMessages.yieldRequirement(q.s.text.trim()), q.s.at(0), 'bad-value')
+      continue
+    }
     out[key] = value
+  }
+  // A yield is counted against the chain's DC error requirements (DESIGN §8.7): without one it has nothing to count.
+  const yieldField = v.fields.find((f) => f.key === 'require.yield')
+  if (out.yield !== undefined && yieldField !== undefined && !CHAIN_YIELD_KEYS.some((k) => out[k] !== undefined)) {
+    report.error(chainMessages.yieldWithoutDcRequirement(), yieldField.keyAt, 'bad-value')
+    delete out.yield
   }
   return out
 }

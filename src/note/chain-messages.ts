@@ -32,6 +32,8 @@ export const chainMessages = {
   adcHasErrors: (chain: string, name: string) => `${chain} is not evaluated: its converter ${q(name)} has errors`,
   lsbWithoutConverter: (key: string) =>
     `Unexpected requirement ${q(key)} on a chain without \`adc\`, expected an \`adc:\` key (LSB and bits are the converter's): add one or remove the requirement`,
+  yieldWithoutDcRequirement: () =>
+    'Unexpected `yield` without a DC error requirement on the chain, expected it beside `output-error`, `input-error`, `error-lsb` or their `-calibrated` forms (the yield is the share of trials meeting them)',
   aliasWithoutRate: () =>
     'Unexpected requirement `alias-rejection` without a converter `sample-rate`, expected one on the adc block: add `sample-rate` or remove the requirement',
   inputDiffers: (stage: string, given: string, computed: string, previous: string) =>

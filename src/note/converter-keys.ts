@@ -46,5 +46,6 @@ export const CHAIN_REQUIREMENT_DIMS: Record<keyof typeof CHAIN_REQUIREMENT_KEYS,
   'noise-rms-input': 'input',
   'input-error-calibrated': 'input',
   'output-error-calibrated': 'voltage',
-  'error-lsb-calibrated': 'lsb'
+  'error-lsb-calibrated': 'lsb',
+  yield: 'fraction'
 }

@@ -19,7 +19,8 @@ export const CHAIN_REQUIREMENT_LABELS: Record<ChainRequirementKey, string> = {
   'noise-rms-input': 'Noise referred to the chain input, rms',
   'input-error-calibrated': 'DC error referred to the input after calibration',
   'output-error-calibrated': 'DC error at the converter input after calibration',
-  'error-lsb-calibrated': 'DC error at the converter after calibration, in LSB'
+  'error-lsb-calibrated': 'DC error at the converter after calibration, in LSB',
+  yield: 'Monte Carlo yield of each DC error requirement, minimum'
 }
 
 /** The unit of a chain requirement. */
@@ -32,6 +33,7 @@ const fixed = (v: number | null, unit: string, digits: number): string => (v ===
 
 /** A value in its unit: SI prefixes for V and A, fixed decimals for LSB, bits and dB. */
 export function chainQuantity(v: number | null, unit: string): string {
+  if (unit === '%') return v === null || !Number.isFinite(v) ? '—' : `${(v * 100).toFixed(v > 0.999 && v < 1 ? 3 : 2)} %`
   if (unit === 'LSB') return fixed(v, 'LSB', v === null || Math.abs(v) < 10 ? 2 : Math.abs(v) < 100 ? 1 : 0)
   if (unit === 'bits') return fixed(v, 'bits', 2)
   if (unit === 'dB') return fixed(v, 'dB', 1)
@@ -62,6 +64,7 @@ export function chainMargin(ev: Pick<ChainEvaluation, 'topologies'>, r: ChainReq
   }
   if (r.value === null) return '—'
   const m = CHAIN_REQUIREMENT_KEYS[r.key].sense === 'max' ? r.limit - r.value : r.value - r.limit
+  if (CHAIN_REQUIREMENT_KEYS[r.key].unit === '%') return `${m >= 0 ? '' : '−'}${(Math.abs(m) * 100).toFixed(2)} percentage points`
   const rel = relativeMargin(m, r.limit)
   return chainQuantity(m, chainUnit(ev, r.key)) + rel
 }

@@ -42,6 +42,29 @@ describe('chain `yield`', () => {
     expect(r.diagnostics.some((d) => /error: .*sed/.test(d) && /seed/.test(d))).toBe(true)
   })
 
+  it('judges `require: yield` on the lowest DC requirement yield, running the Monte Carlo when only the requirement asks', () => {
+    const met = evaluatedOf(stages + fence('chain c', 'stages: [a, b]\nrequire:\n  output-error: 50 mV\n  yield: 99 %'))
+    const y = met.chains[0]!.result.yield!
+    expect(y.trials).toBe(100_000)
+    const row = met.chains[0]!.result.requirements.find((r) => r.key === 'yield')!
+    expect(row.kind === 'require' && row.value).toBe(Math.min(...y.results.map((x) => x.yield)))
+    // A limit inside the distribution: its yield is below 100 %, and a 100 % minimum is not met.
+    const p50 = y.errorPercentiles!.p50
+    const tight = evaluatedOf(stages + fence('chain c', `stages: [a, b]\nyield: { trials: 20k }\nrequire:\n  output-error: ${(p50 * 1e3).toFixed(3)} mV\n  yield: 100 %`))
+    const t = tight.chains[0]!.result
+    const tr = t.requirements.find((r) => r.key === 'yield')!
+    expect(tr.kind === 'require' && tr.value).toBeGreaterThan(0.4)
+    expect(tr.kind === 'require' && tr.value).toBeLessThan(0.6)
+    expect(tr.met).toBe(false)
+  })
+
+  it('refuses `require: yield` without a DC error requirement, and a yield above 100 %', () => {
+    const a = evaluatedOf(stages + fence('chain c', 'stages: [a, b]\nrequire:\n  yield: 99 %'))
+    expect(a.diagnostics.some((d) => /error: Unexpected `yield` without a DC error requirement on the chain/.test(d))).toBe(true)
+    const b = evaluatedOf(stages + fence('chain c', 'stages: [a, b]\nrequire:\n  output-error: 50 mV\n  yield: 101 %'))
+    expect(b.diagnostics.some((d) => /error: .*require\.yield/.test(d))).toBe(true)
+  })
+
   it('gives no yield for a chain with an instrumentation stage, with an info note', () => {
     const ina = fence('stage front', 'topology: instrumentation\nina: precision-ina\nrg: 494 0.1% 10ppm/K\nrs: 175\ninput: -10m .. 10m V\ninput-cm: 2.5 V\nsupply: ±15 V\nband: 0.1 .. 10 Hz')
     const r = evaluatedOf(ina + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [front, b]\nyield: on\nrequire:\n  output-error: 50 mV'))

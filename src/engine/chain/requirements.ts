@@ -7,7 +7,7 @@
 import type {ChainInput, ChainLimitResult, ChainRequireResult, ChainRequirementKey, ChainResult} from './types.js'
 import {CHAIN_REQUIREMENT_KEYS} from './types.js'
 
-type Figures = Pick<ChainResult, 'dc' | 'noise' | 'aliasRejection'>
+type Figures = Pick<ChainResult, 'dc' | 'noise' | 'aliasRejection'> & {yield?: ChainResult['yield']}
 
 const FIGURE: Record<ChainRequirementKey, (r: Figures) => number | null> = {
   'input-error': (r) => r.dc.worstCaseInput,
@@ -20,7 +20,12 @@ const FIGURE: Record<ChainRequirementKey, (r: Figures) => number | null> = {
   // Without a calibration the residual is the whole error (as for a stage, DESIGN §4.6).
   'input-error-calibrated': (r) => r.dc.calibrated?.worstCaseInput ?? r.dc.worstCaseInput,
   'output-error-calibrated': (r) => r.dc.calibrated?.worstCaseOutput ?? r.dc.worstCaseOutput,
-  'error-lsb-calibrated': (r) => (r.dc.calibrated === null ? r.dc.worstCaseLsb : r.dc.calibrated.worstCaseLsb)
+  'error-lsb-calibrated': (r) => (r.dc.calibrated === null ? r.dc.worstCaseLsb : r.dc.calibrated.worstCaseLsb),
+  // The lowest yield of the chain's DC requirements (DESIGN §8.7); none computed (off, or unavailable): null.
+  yield: (r) => {
+    const rows = r.yield?.results ?? []
+    return rows.length === 0 ? null : Math.min(...rows.map((x) => x.yield))
+  }
 }
 
 export function checkChainRequirements(input: ChainInput, figures: Figures): ChainRequireResult[] {

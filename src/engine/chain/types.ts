@@ -48,7 +48,9 @@ export const CHAIN_REQUIREMENT_KEYS = {
   'noise-rms-input': {unit: 'input', sense: 'max'},
   'input-error-calibrated': {unit: 'input', sense: 'max'},
   'output-error-calibrated': {unit: 'V', sense: 'max'},
-  'error-lsb-calibrated': {unit: 'LSB', sense: 'max'}
+  'error-lsb-calibrated': {unit: 'LSB', sense: 'max'},
+  /** Monte Carlo yield of each DC error requirement of the chain, minimum (fraction; DESIGN §8.7). */
+  yield: {unit: '%', sense: 'min'}
 } as const
 export type ChainRequirementKey = keyof typeof CHAIN_REQUIREMENT_KEYS
 export const isChainRequirementKey = (s: string): s is ChainRequirementKey => Object.hasOwn(CHAIN_REQUIREMENT_KEYS, s)

@@ -47,7 +47,7 @@ export function chainYieldBlocks(ctx: ReportContext, ev: ChainEvaluation): Block
     label: (k) => CHAIN_REQUIREMENT_LABELS[k as ChainRequirementKey],
     limitText: (k, limit) => chainQuantity(limit, chainUnit(ev, k as ChainRequirementKey)),
     bound: (k, limit) => (k.startsWith('input') ? limit * g : k.startsWith('error-lsb') ? limit * (lsb ?? 0) : limit),
-    minimum: undefined,
+    minimum: ev.input.require.yield,
     method: 'every trial draws each stage’s and the converter’s values at random within their limits and cascades the signed DC terms of the chain’s ' +
       'budget from the drawn values (each stage’s own Monte Carlo model, carried through the later stages’ gains).',
     where: 'at the converter input',
