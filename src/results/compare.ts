@@ -31,6 +31,8 @@ export interface RunJson {
 type ChainJson = Pick<JsonChain, 'id' | 'gain' | 'bandwidth' | 'rangeUsed' | 'aliasRejection' | 'requirements'> & {
   dc: Pick<JsonChain['dc'], 'worstCaseOutput' | 'rssOutput' | 'worstCaseInput' | 'worstCaseLsb'>
   noise: JsonChain['noise']
+  /** Absent in results written before chains had a Monte Carlo. */
+  yield?: JsonChain['yield']
 }
 
 /** A chain's values by dotted name (units: V at the converter, LSB, bits, dB). */
@@ -45,6 +47,15 @@ function chainValues(c: ChainJson): Map<string, {unit: string; v: number | null}
   for (const k of ['noiseFreeBits', 'effectiveBits'] as const) m.set(`noise.${k}`, {unit: 'bits', v: c.noise[k]})
   m.set('aliasRejection', {unit: 'dB', v: c.aliasRejection})
   for (const r of c.requirements) if (r.kind === 'require') m.set(`require.${r.key}`, {unit: CHAIN_REQUIREMENT_KEYS[r.key]?.unit === 'input' ? 'V' : CHAIN_REQUIREMENT_KEYS[r.key]?.unit ?? '', v: r.value})
+  // The chain's Monte Carlo (DESIGN §8.7), as for a stage: each requirement's yield, the error's percentiles (V at the converter).
+  const y = c.yield ?? null
+  if (y !== null) {
+    for (const r of y.results) {
+      m.set(`yield.${r.key}`, {unit: '%', v: r.yield})
+      m.set(`yield.${r.key}.low`, {unit: '%', v: r.interval[0]})
+    }
+    if (y.errorPercentiles !== null) for (const k of ['p50', 'p99', 'p999'] as const) m.set(`yield.error.${k}`, {unit: 'V', v: y.errorPercentiles[k]})
+  }
   return m
 }
 

@@ -74,3 +74,23 @@ describe('chain `yield`', () => {
     expect(c.notes.map((n) => [n.rule, n.severity])).toContainEqual(['chain-yield-unavailable', 'info'])
   })
 })
+
+describe('compare lists chain yield changes', () => {
+  it('each chain requirement yield and the percentiles that moved, in percentage points', async () => {
+    const {compareRuns, comparisonText} = await import('../../src/results/compare.js')
+    const note = (tol: string, limit: string) => gainStage('a', `9k ${tol} 25ppm/K`, `1k ${tol} 25ppm/K`, '-10m .. 10m V') + gainStage('b', '1k 1%', '1k 1%', null) +
+      fence('chain c', `stages: [a, b]\nyield: { trials: 20k }\nrequire:\n  output-error: ${limit}`)
+    const runOf = (md: string) => ({files: [{file: 'note.md', stages: [], chains: evaluatedOf(md).chains.map(jsonChain)}]})
+    // A limit at the median error of the wider tolerances: there the yield falls to about half.
+    const p50 = runOf(note('1%', '1 V')).files[0]!.chains[0]!.yield!.errorPercentiles!.p50
+    const limit = `${(p50 * 1e3).toFixed(3)} mV`
+    const a = runOf(note('0.1%', limit))
+    const b = runOf(note('1%', limit))
+    const c = compareRuns(a, b)
+    const names = c.changes.map((x) => x.name)
+    expect(names).toContain('yield.output-error')
+    expect(names).toContain('yield.error.p999')
+    expect(comparisonText(c, false)).toMatch(/chain c yield\.output-error: [\d.]+ % → [\d.]+ % −[\d.]+ percentage points/)
+    expect(compareRuns(a, a).changes).toEqual([])
+  })
+})
