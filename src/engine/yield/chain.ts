@@ -1,7 +1,8 @@
 /**
  * The Monte Carlo over a chain's DC budget (DESIGN §8.6, §8.7).
  *
- * Each trial draws every stage's variables with that stage's own model (`model.ts`), the
+ * Each trial draws every stage's variables with that stage's own model (`model.ts`; for an
+ * instrumentation stage, which has no closed form, its block model in `ina-model.ts`), the
  * stage's variable indices offset by k·STAGE_STRIDE so no two stages share a draw (stage 0's
  * draws are those of the same stage run alone), and the converter's five maxima (offset,
  * offset-drift, gain-error, gain-drift, inl: truncated normals, σ = max/3) at K·STAGE_STRIDE.
@@ -28,7 +29,8 @@ import {lsbOf, type ChainDc, type ChainInput, type ChainYieldRequirement, type C
 import {CHAIN_YIELD_KEYS, type ChainYieldKey} from '../chain/types.js'
 import type {StageInput, YieldOptions} from '../types.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
-import {SLOT_COUNT, yieldModel, type YieldModel} from './model.js'
+import {DrawKind, SLOT_COUNT, yieldModel, type YieldModel, type YieldVariable} from './model.js'
+import {INA_SLOT_COUNT, inaPointError, inaYieldModel, type InaYieldModel} from './ina-model.js'
 import {truncatedNormal} from './normal.js'
 import {drawTrial, HISTOGRAM_BINS, pointErrorAt, scratchOf, STREAM_B, trialErrors, VARIANCE_ROWS, type Scratch} from './run.js'
 import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
@@ -46,10 +48,59 @@ export interface ChainYieldStage {
   gain: number
 }
 
+/**
+ * One stage's signed-error evaluator for the chain: a closed-form stage's model of `model.ts`
+ * (the stage's own Monte Carlo), or an instrumentation stage's block model (`ina-model.ts`).
+ */
+interface StageEvaluator {
+  /** Input points (ends × common-mode ends) with the nominal output at each. */
+  points: readonly {x: number; cm: number; nominal: number}[]
+  variables: readonly YieldVariable[]
+  /** Draw trial `key`'s variables into `vals`, the generator's variable index offset by `offset`. */
+  draw(key: number, vals: Float64Array, offset: number): void
+  /** Signed errors at temps[ti] and point p into out[ti·P + p] (full) and outCal (calibrated residual). */
+  errors(vals: Float64Array, temps: Float64Array, out: Float64Array, outCal: Float64Array): void
+  pointError(vals: Float64Array, p: number, t: number, calibrated: boolean): number
+}
+
+function closedFormEvaluator(m: YieldModel): StageEvaluator {
+  const s: Scratch = scratchOf(m)
+  return {
+    points: m.points,
+    variables: m.variables,
+    draw: (key, vals, offset) => drawTrial(m, key, vals, offset),
+    errors: (vals, temps, out, outCal) => trialErrors(m, vals, s, out, outCal, temps),
+    pointError: (vals, p, t, calibrated) => pointErrorAt(m, vals, s, p, t, calibrated)
+  }
+}
+
+function inaEvaluator(m: InaYieldModel): StageEvaluator {
+  const vars = m.variables
+  const P = m.points.length
+  return {
+    points: m.points,
+    variables: vars,
+    draw(key, vals, offset) {
+      for (const v of vars) {
+        const u = uniformOf(key, v.slot + offset)
+        vals[v.slot] = v.kind === DrawKind.Symmetric ? v.scale * (2 * u - 1) : v.kind === DrawKind.Normal ? truncatedNormal(u, v.scale) : v.scale * u
+      }
+    },
+    errors(vals, temps, out, outCal) {
+      for (let ti = 0; ti < temps.length; ti++) {
+        for (let p = 0; p < P; p++) {
+          out[ti * P + p] = inaPointError(m, vals, p, temps[ti], false)
+          outCal[ti * P + p] = inaPointError(m, vals, p, temps[ti], true)
+        }
+      }
+    },
+    pointError: (vals, p, t, calibrated) => inaPointError(m, vals, p, t, calibrated)
+  }
+}
+
 interface CompiledStage {
   id: string
-  m: YieldModel
-  s: Scratch
+  m: StageEvaluator
   vals: Float64Array
   valsB: Float64Array
   out: Float64Array
@@ -75,7 +126,7 @@ export interface ChainYieldModel {
   adc: {name: string; scale: Float64Array; vals: Float64Array; valsB: Float64Array; offset: number} | null
   calibrated: boolean
   gainCalibrated: boolean
-  /** The first stage is a difference stage: its points pair the input ends with the common-mode ends. */
+  /** The first stage is a difference or instrumentation stage: its points pair the input ends with the common-mode ends. */
   differential: boolean
 }
 
@@ -83,12 +134,19 @@ const clamp = (t: number, lo: number, hi: number): number => Math.min(hi, Math.m
 
 /** Compile the chain, or give the reason it has no Monte Carlo (a stage without a closed form). */
 export function chainYieldModel(chain: ChainInput, stages: readonly ChainYieldStage[], options: YieldOptions): ChainYieldModel | string {
-  const models: YieldModel[] = []
+  const models: StageEvaluator[] = []
   for (const st of stages) {
     // The stage's residuals are those of the chain's calibration (DESIGN §8.6).
-    const m = yieldModel({...st.input, calibration: chain.calibration}, options.distribution)
+    const input = {...st.input, calibration: chain.calibration}
+    if (input.topology === 'instrumentation') {
+      const m = inaYieldModel(input, options.distribution)
+      if (m === null) return `stage ${st.input.id} (instrumentation) has no block model for the Monte Carlo`
+      models.push(inaEvaluator(m))
+      continue
+    }
+    const m = yieldModel(input, options.distribution)
     if (m === null) return `stage ${st.input.id} (${st.input.topology}) has no closed-form DC solution for the Monte Carlo`
-    models.push(m)
+    models.push(closedFormEvaluator(m))
   }
   const [tmin, tmax] = chain.temperature
   const temperatures = [...new Set([tmin, DATASHEET_TEMPERATURE, tmax])].sort((a, b) => a - b)
@@ -120,7 +178,7 @@ export function chainYieldModel(chain: ChainInput, stages: readonly ChainYieldSt
     const hi = Math.max(st.temperature[1], DATASHEET_TEMPERATURE)
     const n = m.points.length * temperatures.length
     compiled.push({
-      id: st.id, m, s: scratchOf(m), vals: new Float64Array(SLOT_COUNT), valsB: new Float64Array(SLOT_COUNT),
+      id: st.id, m, vals: new Float64Array(Math.max(SLOT_COUNT, INA_SLOT_COUNT)), valsB: new Float64Array(Math.max(SLOT_COUNT, INA_SLOT_COUNT)),
       out: new Float64Array(n), outCal: new Float64Array(n),
       temps: Float64Array.from(temperatures, (t) => clamp(t, lo, hi)), pointOf, later: laterOf[k], offset: k * STAGE_STRIDE
     })
@@ -139,13 +197,13 @@ export function chainYieldModel(chain: ChainInput, stages: readonly ChainYieldSt
     },
     calibrated: chain.calibration !== 'none',
     gainCalibrated: chain.calibration === 'offset-and-gain',
-    differential: stages[0].input.topology === 'difference'
+    differential: stages[0].input.topology === 'difference' || stages[0].input.topology === 'instrumentation'
   }
 }
 
 /** Draw trial `key`'s variables of every stage (into each stage's `vals`) and of the converter; `stream` selects Jansen's second sample. */
 export function drawChainTrial(cm: ChainYieldModel, key: number, stream = 0): void {
-  for (const st of cm.stages) drawTrial(st.m, key, stream === 0 ? st.vals : st.valsB, st.offset + stream)
+  for (const st of cm.stages) st.m.draw(key, stream === 0 ? st.vals : st.valsB, st.offset + stream)
   const a = cm.adc
   if (a === null) return
   const into = stream === 0 ? a.vals : a.valsB
@@ -170,7 +228,7 @@ function converterError(cm: ChainYieldModel, t: number, v: number, calibrated: b
  */
 export function chainTrialErrors(cm: ChainYieldModel, out: Float64Array, outCal: Float64Array): [number, number] {
   const P = cm.points.length
-  for (const st of cm.stages) trialErrors(st.m, st.vals, st.s, st.out, st.outCal, st.temps)
+  for (const st of cm.stages) st.m.errors(st.vals, st.temps, st.out, st.outCal)
   let e = 0
   let ec = 0
   for (let ti = 0; ti < cm.temperatures.length; ti++) {
@@ -198,7 +256,7 @@ export function chainTrialErrors(cm: ChainYieldModel, out: Float64Array, outCal:
 /** The signed chain error of the drawn trial at one point (the variance shares' evaluations). */
 function chainPointError(cm: ChainYieldModel, p: number, ti: number, calibrated: boolean): number {
   let e = 0
-  for (const st of cm.stages) e += pointErrorAt(st.m, st.vals, st.s, st.pointOf[p], st.temps[ti], calibrated) * st.later
+  for (const st of cm.stages) e += st.m.pointError(st.vals, st.pointOf[p], st.temps[ti], calibrated) * st.later
   return e + converterError(cm, cm.temperatures[ti], cm.points[p].vadc, calibrated)
 }
 

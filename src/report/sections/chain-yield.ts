@@ -24,7 +24,7 @@ function assumptions(ev: ChainEvaluation): string {
     : 'resistor values and tempcos uniform within their limits'
   const t = ev.input.temperature
   return 'Every stage’s variables and the converter’s are drawn independently of each other, each stage with the distributions of its own yield model: ' +
-    resistors + '; op-amp offset, drift and offset current, and the converter’s offset, offset drift, gain error, gain drift and INL, normal with σ = a third ' +
+    resistors + '; op-amp offset, drift and offset current (an instrumentation amplifier’s input and output offsets, their drifts, gain error, gain drift and nonlinearity), and the converter’s offset, offset drift, gain error, gain drift and INL, normal with σ = a third ' +
     'of the datasheet maximum, truncated there (common practice: a datasheet maximum sits near 3σ); the bias current uniform from zero to its maximum, ' +
     'used at all three temperatures (conservative for FET inputs below the hot end); 1/CMRR, 1/PSRR and the supply uniform within their limits; the open-loop ' +
     'gain at its minimum. Each trial’s error at the converter is the largest signed sum, over both ends of the chain’s input range and ' +

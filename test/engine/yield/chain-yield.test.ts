@@ -11,7 +11,7 @@
 import fc from 'fast-check'
 import {erf} from 'mathjs'
 import {describe, expect, it} from 'vitest'
-import {evaluateChain, evaluateStage, stageSpectrum, type AdcParams, type ChainInput, type ChainStage, type StageInput} from '../../../src/engine/index.js'
+import {evaluateChain, evaluateStage, INA_ARCHETYPES, stageSpectrum, type AdcParams, type ChainInput, type ChainStage, type StageInput} from '../../../src/engine/index.js'
 import type {Calibration, YieldOptions} from '../../../src/engine/types.js'
 import {chainTrialBlock, chainTrialErrors, chainYieldModel, drawChainTrial, runChainYield, STAGE_STRIDE} from '../../../src/engine/yield/chain.js'
 import {DrawKind, SLOT_COUNT, yieldModel} from '../../../src/engine/yield/model.js'
@@ -257,10 +257,61 @@ describe('chain yield: a trial is Σ stage errors × later signed gains + the co
   })
 })
 
+/** An instrumentation block with no error term of its own. */
+const QUIET_INA = {...INA_ARCHETYPES['precision-ina'], vosIn: 0, vosOut: 0, vosInDrift: 0, vosOutDrift: 0, ib: 0, ios: 0, ibMax: 0, iosMax: 0,
+  cmrr: Infinity, psrr: Infinity, gainError: 0, gainDrift: 0, nonlinearity: 0}
+
+describe('chain yield: an instrumentation first stage (its block model, DESIGN §8.2)', () => {
+  const inaStage = (over: Partial<StageInput> = {}): StageInput => stageFrom('engine', {
+    topology: 'instrumentation', ina: {...INA_ARCHETYPES['precision-ina']}, rg: res(494, 0.001, 10e-6), rs: res(175, 0.001, 25e-6), rcomp: null, rf: null,
+    input: [-0.01, 0.01], inputCm: [2, 3], supply: [-15, 15], temperature: [-20, 70], ...over
+  })
+  const slack = 1 + 1e-9
+
+  it('the chain worst case bounds every trial, for every calibration and both distributions (property)', () => {
+    fc.assert(fc.property(
+      fc.constantFrom<Calibration>('none', 'offset', 'offset-and-gain'),
+      fc.constantFrom<'uniform' | 'normal'>('uniform', 'normal'),
+      fc.double({min: 0, max: 0.02, noNaN: true}), fc.double({min: 0, max: 200e-6, noNaN: true}),
+      fc.constantFrom('noninverting', 'inverting', 'lowpass-sallen-key'),
+      // Half the cases with a silent block, op-amp and no converter: the resistor terms alone, where a trial comes closest to the bound.
+      fc.boolean(),
+      (calibration, distribution, tol, tc, next, silent) => {
+        const first = inaStage({rg: res(494, tol, tc), rs: res(175, tol, tc), ...(silent ? {ina: {...QUIET_INA}} : {})})
+        const later = {...CLOSED_FORM_STAGES[next]!(), temperature: [-20, 70] as [number, number], ...(silent ? {opamp: silentOpamp()} : {})}
+        const {chain, stages, dc} = buildChain([first, later], silent ? null : testAdc({input: [-20, 20]}), {calibration, temperature: [-20, 70]})
+        const calWorst = dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput
+        const y = runChainYield({...chain, require: {'output-error': dc.worstCaseOutput * slack, 'output-error-calibrated': calWorst * slack}}, stages, dc,
+          opts({trials: 1500, seed: 2, distribution}))
+        expect(y.unavailable).toBeNull()
+        for (const r of y.results) expect(r.yield).toBe(1)
+        expect(y.maxError).toBeLessThanOrEqual(y.worstCase * slack)
+        expect(y.maxError).toBeGreaterThan(0)
+      }), {numRuns: 30, seed: 7})
+  })
+
+  it('a dominant vos-in (σ = max/3) through G and a ×10 stage: yield at 2σ·G·10 against the erf form', () => {
+    const quietIna = {...QUIET_INA, vosIn: 90e-6}
+    const first = inaStage({ina: quietIna, rg: res(494), rs: null, temperature: [25, 25], supplyTolerance: 0})
+    const second = stageFrom('engine', {rf: res(9e3), rg: res(1e3), rs: null, opamp: silentOpamp(), temperature: [25, 25], supplyTolerance: 0})
+    const {chain, stages, dc} = buildChain([first, second], null, {temperature: [25, 25]})
+    const g = stages[0]!.gain * stages[1]!.gain
+    const sigma = 30e-6 * g
+    const n = 200_000
+    const y = runChainYield({...chain, require: {'output-error': 2 * sigma, 'input-error': 2 * 30e-6}}, stages, dc, opts({trials: n, seed: 5}))
+    const p = erf(2 / Math.SQRT2) / erf(3 / Math.SQRT2)
+    const s = Math.sqrt((p * (1 - p)) / n)
+    expect(Math.abs(y.results[0]!.yield - p)).toBeLessThan(4 * s)
+    // input-error × |ΠG| is the same limit: the same count.
+    expect(y.results[1]!.passed).toBe(y.results[0]!.passed)
+    expect(y.variance).toEqual([{variable: 's0/vos-in', share: 1}])
+  })
+})
+
 describe('chain yield: a stage without a closed form', () => {
-  it('an instrumentation stage makes the chain yield unavailable, with no number', () => {
+  it('an instrumentation stage without its block makes the chain yield unavailable, with no number', () => {
     const {chain, stages, dc} = buildChain([CLOSED_FORM_STAGES['noninverting']!()], testAdc())
-    const ina = {...stages[0]!, input: {...stages[0]!.input, topology: 'instrumentation' as const, id: 'front'}}
+    const ina = {...stages[0]!, input: {...stages[0]!.input, topology: 'instrumentation' as const, id: 'front', ina: null}}
     const y = runChainYield({...chain, require: {'output-error': 1}}, [ina], dc, opts())
     expect(y.unavailable).toMatch(/stage front \(instrumentation\)/)
     expect(y.results).toEqual([])
