@@ -54,6 +54,7 @@ export function chainYieldBlocks(ctx: ReportContext, ev: ChainEvaluation): Block
     inputUnit: unitIn,
     variableLabel: chainVariableLabel,
     assumptions: assumptions(ev),
-    noRequirement: 'The chain states no DC error requirement, so no yield is counted; the distribution of the error is shown.'
+    noRequirement: 'The chain states no DC error requirement, so no yield is counted; the distribution of the error is shown.',
+    limitsNote: 'input-referred limits times |ΠG|, LSB limits times the LSB'
   })
 }

@@ -64,6 +64,8 @@ export interface YieldSubject {
   assumptions: string
   /** Said when the block states no DC error requirement. */
   noRequirement: string
+  /** How the histogram's limit lines were placed. */
+  limitsNote: string
 }
 
 /** The yield table, histogram and variance chart of a Monte Carlo result (stage or chain). */
@@ -101,7 +103,7 @@ export function monteCarloBlocks(ctx: ReportContext, y: Omit<YieldResult, 'resul
   const axis = `DC error ${sub.where}${calibratedBasis ? ' after calibration' : ''}`
   out.push(figure(ctx, yieldHistogramSpec({top: y.histogram.top, counts: y.histogram.counts, limits, worstCase: y.worstCase}, axis),
     `Distribution of the ${calibratedBasis ? 'calibrated ' : ''}DC error of ${sub.name} over ${y.trials.toLocaleString('en-US')} trials: ` +
-    'limits as solid lines (input-referred limits times |G|), the worst-case sum dashed'))
+    `limits as solid lines (${sub.limitsNote}), the worst-case sum dashed`))
   if (y.variance.length > 0 && y.varianceAt !== null) {
     const at = y.varianceAt
     const where = `input ${q(at.input, sub.inputUnit)}${at.inputCm === null ? '' : `, common mode ${q(at.inputCm, 'V')}`}, ${q(at.temperature, '°C')}`
@@ -135,6 +137,7 @@ export function yieldBlocks(ctx: ReportContext, ev: StageEvaluation): BlockConte
     inputUnit: iu,
     variableLabel: yieldVariableLabel,
     assumptions: assumptions(ev, y),
-    noRequirement: 'The stage states no DC error requirement, so no yield is counted; the distribution of the error is shown.'
+    noRequirement: 'The stage states no DC error requirement, so no yield is counted; the distribution of the error is shown.',
+    limitsNote: 'input-referred limits times |G|'
   })
 }
