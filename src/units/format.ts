@@ -165,8 +165,9 @@ export function formatTemperatureRange(low: number, high: number, opts: FixedOpt
 
 /**
  * A slew rate, V/s, in V/µs as datasheets and engineers write it: `formatSlew(2e6)` is
- * `2 V/µs`, `formatSlew(5e5)` is `0.5 V/µs`. Below 0.01 V/µs the prefix goes on the volt
- * (`formatSlew(62.8e-3)` is `62.8 nV/µs`), never a string of zeros. The JSON stays in V/s.
+ * `2 V/µs`, `formatSlew(5e5)` is `0.5 V/µs`. Below 0.01 V/µs (the slew a slow signal needs)
+ * per second, as engineers write that (`formatSlew(25.1)` is `25.1 V/s`, `formatSlew(62.8e-3)`
+ * is `62.8 mV/s`), never a string of zeros or "nV/µs". The JSON stays in V/s.
  */
 export function formatSlew(voltsPerSecond: number, opts: FormatOptions = {}): string {
   const s = special(voltsPerSecond, 'V/µs')
@@ -175,5 +176,5 @@ export function formatSlew(voltsPerSecond: number, opts: FormatOptions = {}): st
   if (perMicro === 0) return join('0', 'V/µs')
   if (outOfRange(voltsPerSecond)) return `${join(formatScientific(perMicro, opts), 'V/µs')} ${OUT_OF_RANGE_FLAG}`
   if (Math.abs(perMicro) >= 0.01) return join(formatNumber(perMicro, opts), 'V/µs')
-  return `${formatQuantity(perMicro, 'V', opts)}/µs`
+  return formatQuantity(voltsPerSecond, 'V/s', opts)
 }

@@ -25,6 +25,7 @@ import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync,
 import {availableParallelism, loadavg, tmpdir} from 'node:os'
 import {join, resolve} from 'node:path'
 import {pathToFileURL} from 'node:url'
+import {benchStage, res} from './bench-stage.mjs'
 
 const ROOT = resolve(import.meta.dirname, '..', '..')
 const CLI = join(ROOT, 'dist', 'bin', 'index.js')
@@ -176,16 +177,8 @@ function printTable() {
 async function chainBench() {
   progress('chain evaluations')
   const {ARCHETYPES, INA_ARCHETYPES, inaAsOpamp, evaluateStage, evaluateChain, stageSpectrum, ADC_ARCHETYPES} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
-  const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
   const cap = (value, tolerance = 0.05) => ({value, tolerance})
-  const base = {
-    id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
-    rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
-    supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
-    idarkMax: null, idarkDoubling: 10, signalFrequency: null, rload: null, calibration: 'none',
-    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null, riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
-    require: {}
-  }
+  const base = benchStage(ARCHETYPES)
   const ina = INA_ARCHETYPES['precision-ina']
   const chains = {
     'op-amp stages': [
@@ -327,15 +320,7 @@ row('a', 'RATIO check / node -e 0 (median of per-round ratios)', `${checkRatio.t
 
 progress('stage evaluations')
 const {ARCHETYPES, INA_ARCHETYPES, inaAsOpamp, evaluateStage} = await import(join(ROOT, 'dist', 'engine', 'index.js'))
-const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
-const base = {
-  id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
-  rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
-  supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
-  idarkMax: null, idarkDoubling: 10, signalFrequency: null, rload: null, calibration: 'none',
-  rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null, riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
-  require: {'output-error': 15e-3, 'phase-margin': 50}
-}
+const base = benchStage(ARCHETYPES, {'output-error': 15e-3, 'phase-margin': 50})
 const cap = (value, tolerance = 0.05) => ({value, tolerance})
 const inputs = {
   noninverting: base,

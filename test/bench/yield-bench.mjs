@@ -12,6 +12,7 @@ import {availableParallelism} from 'node:os'
 import {join, resolve} from 'node:path'
 import {pathToFileURL} from 'node:url'
 import {Worker} from 'node:worker_threads'
+import {benchStage} from './bench-stage.mjs'
 
 const digest = (a) => createHash('sha256').update(new Uint8Array(a.buffer, a.byteOffset, a.byteLength)).digest('hex')
 
@@ -103,16 +104,8 @@ export async function yieldBench({root, quick, stage, row}) {
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   const root = resolve(import.meta.dirname, '..', '..')
   const {ARCHETYPES} = await import(pathToFileURL(join(root, 'dist', 'engine', 'index.js')).href)
-  const res = (value, tolerance = 0.001, tempco = 25e-6) => ({value, tolerance, tempco})
   // The noninverting stage of bench.mjs section b.
-  const stage = {
-    id: 'bench', title: 'bench', topology: 'noninverting', opamp: ARCHETYPES['precision-bipolar'], rf: res(49.9e3), rg: res(499), rs: res(350, 0, 0),
-    rcomp: null, ccomp: 0, cf: 0, cstray: 2e-12, rshunt: null, csource: 0, idark: 0, vref: 0, input: [-0.01, 0.01],
-    supply: [-15, 15], supplyTolerance: 0.05, temperature: [0, 50], band: [0.1, 10], noiseTemperature: 25,
-    idarkMax: null, idarkDoubling: 10, signalFrequency: null, rload: null, calibration: 'none',
-    rp: null, rref: null, r1: null, r2: null, r3: null, c1: null, c2: null, riso: null, cload: 0, cstrayPlus: 0, inputCm: [0, 0], ina: null,
-    require: {}
-  }
+  const stage = benchStage(ARCHETYPES)
   const row = (_s, measure, value, target, ok) => console.log(`${measure}: ${value}  target ${target ?? ''}  ${ok === undefined ? '' : ok ? 'pass' : 'FAIL'}`)
   await yieldBench({root, quick: process.argv.includes('--quick'), stage, row})
 }

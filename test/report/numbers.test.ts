@@ -22,8 +22,10 @@ describe('formatSlew()', () => {
     [2e6, '2 V/µs'],
     [5e5, '0.5 V/µs'],
     [1.5e7, '15 V/µs'],
-    [62.8e-3, '62.8 nV/µs'],
-    [139, '139 µV/µs'],
+    [1e4, '0.01 V/µs'],
+    [9.99e3, '9.99 kV/s'],
+    [62.8e-3, '62.8 mV/s'],
+    [139, '139 V/s'],
     [0, '0 V/µs']
   ])('writes %d V/s as %s', (v, text) => {
     expect(formatSlew(v)).toBe(text)
@@ -82,11 +84,11 @@ describe('the reference-buffer PDF, read back', async () => {
   const pages = (await readPdf(pdf)).pages.map((p) => p.normalize('NFKC'))
   const all = pages.join(' ')
 
-  it('writes slew rates in V/µs: the needed rate, the part’s and the margin', () => {
-    expect(pages[0]).toContain('Slew rate needed (limit) 62.8 nV/μs ≤ 2 V/μs MET')
+  it('writes slew rates in V/µs (a slow signal’s need in V/s): the needed rate, the part’s and the margin', () => {
+    expect(pages[0]).toContain('Slew rate needed (limit) 62.8 mV/s ≤ 2 V/μs MET')
     expect(all).toContain('Slew rate 2 V/μs op-amp, used')
     expect(all).toMatch(/2 V\/μs \(100 %\); full-power bandwidth/)
-    expect(all).not.toMatch(/[kMG]?V\/s\b/)
+    expect(all).not.toMatch(/[kMG]V\/s\b/)
   })
 
   it('keeps the JSON in V/s', () => {

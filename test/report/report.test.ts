@@ -53,7 +53,8 @@ describe('report tree of the reference-buffer sample', async () => {
 
   it('carries each chart as its vega-lite spec with inline data', () => {
     const charts = nodesOf(body, 'figure')
-    expect(charts).toHaveLength(8)
+    // Four charts a stage, two more for the baseline stage's Monte Carlo (histogram, variance shares).
+    expect(charts).toHaveLength(10)
     for (const c of charts) expect(inlineValues(c.chart).length, c.caption).toBeGreaterThan(0)
   })
 
@@ -70,17 +71,17 @@ describe('report tree of the reference-buffer sample', async () => {
     await expect(`${outline(body).join('\n')}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.outline.txt')
   })
 
-  it('orders each stage section: schematic, parameters, results, DC, noise, stability, requirements, notes', () => {
-    const h3 = outline(body).filter((l) => l.startsWith('### ')).slice(0, 7)
-    expect(h3).toEqual(['### Parameters', '### Results summary', '### DC error budget', '### Noise budget', '### Stability', '### Requirements', '### Practice and safety notes'])
+  it('orders each stage section: schematic, parameters, results, DC, yield when asked, noise, stability, requirements, notes', () => {
+    const h3 = outline(body).filter((l) => l.startsWith('### ')).slice(0, 8)
+    expect(h3).toEqual(['### Parameters', '### Results summary', '### DC error budget', '### Monte Carlo yield', '### Noise budget', '### Stability', '### Requirements', '### Practice and safety notes'])
     const lines = outline(body)
     expect(lines.indexOf('  [schematic 1]')).toBeLessThan(lines.indexOf('### Parameters'))
   })
 
-  it('numbers schematics and charts 1 … N in document order, five per stage', () => {
+  it('numbers schematics and charts 1 … N in document order, five per stage and two for a Monte Carlo', () => {
     const numbers = [...nodesOf(body, 'figure'), ...nodesOf(body, 'schematic')].map((n) => n.number).sort((a, b) => a - b)
-    expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10])
-    expect(nodesOf(body, 'schematic').map((n) => n.number)).toEqual([1, 6])
+    expect(numbers).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12])
+    expect(nodesOf(body, 'schematic').map((n) => n.number)).toEqual([1, 8])
   })
 
   it.each([

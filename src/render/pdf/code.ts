@@ -32,7 +32,8 @@ export function drawCode(ctx: RenderContext, value: string, lang: string | null)
   keepSpace(ctx, codeKeepHeight(ctx, value))
   if (lang !== null && lang !== '') {
     const label: TextStyle = {font: 'regular', size: theme.fontSizes.small, color: theme.colours.muted}
-    drawText(ctx, lang, label, ctx.frame.x, doc.y, ctx.frame.width)
+    // Named as code, so a short info string ("c") does not read as a stray letter.
+    drawText(ctx, `Code · ${lang}`, label, ctx.frame.x, doc.y, ctx.frame.width)
     doc.y += 1
   }
   while (rest !== '') {
