@@ -56,3 +56,6 @@ export function inaAsOpamp(ina: InaParams): import('./types.js').OpampParams {
     cmHeadroom: ina.cmHeadroom, cmHeadroomNeg: null, cmHeadroomPos: null, ioutMax: null, rout: null
   }
 }
+
+/** G = 1 + gain-constant/rg (DESIGN §8.2). */
+export const inaGain = (ina: InaParams, rg: number): number => 1 + ina.gainConstant / rg

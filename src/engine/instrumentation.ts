@@ -19,8 +19,9 @@ import {checkLimitsAt, swingOf} from './limits.js'
 import {integrateBand} from './noise/integrate.js'
 import {noiseKelvin} from './noise/sources.js'
 import {checkRequirements} from './requirements.js'
-import {runYield, yieldOptionsOf} from './yield/run.js'
-import {inaAsOpamp} from './ina-archetypes.js'
+import {runInstrumentationYield} from './yield/chain.js'
+import {yieldOptionsOf} from './yield/run.js'
+import {inaAsOpamp, inaGain} from './ina-archetypes.js'
 import {NOISE_KEYS, type DcKey, type InaParams, type NoiseKey, type StageInput, type StageResult} from './types.js'
 
 /** DC contributor keys of an instrumentation stage (DESIGN §8.2). */
@@ -28,8 +29,7 @@ export const INA_DC_KEYS: readonly DcKey[] = ['vos', 'vos-drift', 'ib', 'ios', '
 /** Noise contributor keys of an instrumentation stage (DESIGN §8.2). */
 export const INA_NOISE_KEYS: readonly NoiseKey[] = ['en-in', 'en-out', 'in+', 'in-', 'r:rs', 'r:rg']
 
-/** G = 1 + gain-constant/rg. */
-export const inaGain = (ina: InaParams, rg: number): number => 1 + ina.gainConstant / rg
+export {inaGain}
 
 const endsOf = (r: readonly [number, number]): number[] => (r[0] === r[1] ? [r[0]] : [...r])
 
@@ -150,9 +150,9 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
     return {vout, vpin: vout, vplus: cm + v / 2, vminus: cm - v / 2, iout: input.rload === null ? 0 : vout / input.rload}
   })
   const limits = checkLimitsAt(input, points)
-  // No closed form for this topology: a requested Monte Carlo reports itself unavailable.
+  // No closed form for this topology: the Monte Carlo runs on the block model, as a chain of this one stage.
   const options = yieldOptionsOf(input)
-  const yieldResult = options === null ? null : runYield(input, options, dc, g)
+  const yieldResult = options === null ? null : runInstrumentationYield(input, options, dc, g)
   return {
     id: input.id,
     topology: input.topology,

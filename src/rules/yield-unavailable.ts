@@ -1,10 +1,11 @@
 /**
- * yield-unavailable: a Monte Carlo was asked for but the stage's topology has no closed-form
- * DC solution for it (DESIGN §8.7), so no yield is given rather than a wrong one.
+ * yield-unavailable: a Monte Carlo was asked for but the stage has no model for it (DESIGN
+ * §8.7), so no yield is given rather than a wrong one.
  *
  * What it checks: the stage's result carries a yield marked unavailable.
  *
- * When it fires: that case (today the instrumentation topology). Severity info; a `yield`
+ * When it fires: that case (every topology has a model today — the closed forms, and the
+ * block model for instrumentation — so it guards what a new topology would lack). Severity info; a `yield`
  * requirement on such a stage is reported not met, since its figure does not exist.
  *
  * What it recommends: judging the stage on its worst-case and RSS budget.

@@ -27,7 +27,7 @@
 import {DATASHEET_TEMPERATURE} from '../constants.js'
 import {lsbOf, type ChainDc, type ChainInput, type ChainYieldRequirement, type ChainYieldResult} from '../chain/types.js'
 import {CHAIN_YIELD_KEYS, type ChainYieldKey} from '../chain/types.js'
-import type {StageInput, YieldOptions} from '../types.js'
+import {YIELD_KEYS, type DcBudget, type StageInput, type YieldKey, type YieldOptions, type YieldResult} from '../types.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT_COUNT, yieldModel, type YieldModel, type YieldVariable} from './model.js'
 import {INA_SLOT_COUNT, inaPointError, inaYieldModel, type InaYieldModel} from './ina-model.js'
@@ -291,7 +291,37 @@ const isCalibratedKey = (k: ChainYieldKey): boolean => k.endsWith('-calibrated')
  */
 export function runChainYield(chain: ChainInput, stages: readonly ChainYieldStage[], dc: ChainDc, options: YieldOptions): ChainYieldResult {
   const calibrated = chain.calibration !== 'none'
-  const worstCase = calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput
+  return chainYieldWithBound(chain, stages, calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput, options)
+}
+
+/**
+ * The Monte Carlo of an instrumentation stage on its own (DESIGN §8.7): it has no closed
+ * form, so it runs as a chain of that one stage without a converter, on the block model of
+ * `ina-model.ts`: the same draws and errors the stage has inside a chain.
+ * @param dc
+ *   The stage's budget (the worst-case bound shown beside the distribution).
+ */
+export function runInstrumentationYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number): YieldResult {
+  const require: ChainInput['require'] = {}
+  for (const key of YIELD_KEYS) if (input.require[key] !== undefined) require[key] = input.require[key]
+  const chain: ChainInput = {
+    id: input.id, title: input.title, stages: [input.id], adc: null, temperature: input.temperature, band: input.band,
+    calibration: input.calibration, require, yield: options
+  }
+  const worstCase = input.calibration === 'none' ? dc.worstCaseOutput : (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput)
+  const r = chainYieldWithBound(chain, [{input, gain}], worstCase, options)
+  const prefix = `${input.id}/`
+  return {
+    ...r,
+    results: r.results.flatMap((row) => (isYieldKey(row.key) ? [{...row, key: row.key}] : [])),
+    variance: r.variance.map((v) => ({...v, variable: v.variable.startsWith(prefix) ? v.variable.slice(prefix.length) : v.variable}))
+  }
+}
+
+const isYieldKey = (k: string): k is YieldKey => (YIELD_KEYS as readonly string[]).includes(k)
+
+function chainYieldWithBound(chain: ChainInput, stages: readonly ChainYieldStage[], worstCase: number, options: YieldOptions): ChainYieldResult {
+  const calibrated = chain.calibration !== 'none'
   const basis = calibrated ? 'output-calibrated' as const : 'output' as const
   const cm = chainYieldModel(chain, stages, options)
   if (typeof cm === 'string') {

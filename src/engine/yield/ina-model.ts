@@ -21,8 +21,7 @@
  */
 import {DATASHEET_TEMPERATURE} from '../constants.js'
 import {biasOverTemperature} from '../dc/bias.js'
-import {inaAsOpamp} from '../ina-archetypes.js'
-import {inaGain} from '../instrumentation.js'
+import {inaAsOpamp, inaGain} from '../ina-archetypes.js'
 import type {StageInput, YieldDistribution} from '../types.js'
 import {DrawKind, type YieldVariable} from './model.js'
 

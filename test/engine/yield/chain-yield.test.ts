@@ -318,3 +318,40 @@ describe('chain yield: a stage without a closed form', () => {
     expect(y.errorPercentiles).toBeNull()
   })
 })
+
+describe('an instrumentation stage on its own: its Monte Carlo on the block model (evaluateStage)', () => {
+  const inaStage = (over: Partial<StageInput> = {}): StageInput => stageFrom('engine', {
+    topology: 'instrumentation', ina: {...INA_ARCHETYPES['precision-ina']}, rg: res(494, 0.001, 10e-6), rs: res(175, 0.001, 25e-6), rcomp: null, rf: null,
+    input: [-0.01, 0.01], inputCm: [2, 3], supply: [-15, 15], temperature: [-20, 70], ...over
+  })
+  const slack = 1 + 1e-9
+
+  it('the stage’s own worst case bounds every trial, for every calibration (property)', () => {
+    fc.assert(fc.property(
+      fc.constantFrom<Calibration>('none', 'offset', 'offset-and-gain'),
+      fc.double({min: 0, max: 0.02, noNaN: true}), fc.double({min: 0, max: 200e-6, noNaN: true}), fc.boolean(),
+      (calibration, tol, tc, silent) => {
+        const base = inaStage({rg: res(494, tol, tc), rs: res(175, tol, tc), calibration, ...(silent ? {ina: {...QUIET_INA}} : {})})
+        const first = evaluateStage(base)
+        const worst = first.dc.calibrated?.worstCaseOutput ?? first.dc.worstCaseOutput
+        const input: StageInput = {...base, yield: opts({trials: 1500, seed: 3}),
+          require: {'output-error': first.dc.worstCaseOutput * slack, ...(calibration === 'none' ? {} : {'output-error-calibrated': worst * slack})}}
+        const y = evaluateStage(input).yield!
+        expect(y.unavailable).toBeNull()
+        expect(y.results.length).toBeGreaterThan(0)
+        for (const r of y.results) expect(r.yield).toBe(1)
+        expect(y.maxError).toBeLessThanOrEqual(y.worstCase * slack)
+        expect(y.errorPercentiles!.p999).toBeLessThanOrEqual(y.worstCase * slack)
+      }), {numRuns: 20, seed: 11})
+  })
+
+  it('a dominant vos-in (σ = max/3) through G: yield at 2σ·G against the erf form, variables named without a stage prefix', () => {
+    const input = inaStage({ina: {...QUIET_INA, vosIn: 90e-6}, rg: res(494), rs: null, temperature: [25, 25], supplyTolerance: 0})
+    const g = evaluateStage(input).gain
+    const n = 200_000
+    const y = evaluateStage({...input, yield: opts({trials: n, seed: 5}), require: {'output-error': 2 * 30e-6 * g}}).yield!
+    const p = erf(2 / Math.SQRT2) / erf(3 / Math.SQRT2)
+    expect(Math.abs(y.results[0]!.yield - p)).toBeLessThan(4 * Math.sqrt((p * (1 - p)) / n))
+    expect(y.variance).toEqual([{variable: 'vos-in', share: 1}])
+  })
+})
