@@ -4,7 +4,7 @@
  */
 import type {ChainDcContributor, ChainRequirementResult, ChainResult, ChainYieldKey} from '../engine/chain/types.js'
 import type {ChainEvaluation} from '../evaluate/chains.js'
-import {jsonYield, type JsonYield} from './json.js'
+import {jsonYield, type JsonYield} from './yield-json.js'
 
 export interface JsonChain {
   id: string
