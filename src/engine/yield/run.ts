@@ -63,6 +63,13 @@ export interface Scratch {
   rT: Float64Array
   rIb: Float64Array
   tol: Float64Array
+  /** The points' fields (YieldPoint) as typed arrays, and each trial's gain terms per point. */
+  px: Float64Array
+  pcm: Float64Array
+  pnom: Float64Array
+  pdev: Float64Array
+  paol: Float64Array
+  pgain: Float64Array
 }
 
 export const scratchOf = (m: YieldModel): Scratch => ({
@@ -70,7 +77,13 @@ export const scratchOf = (m: YieldModel): Scratch => ({
   rTol: Float64Array.from(m.nominal),
   rT: Float64Array.from(m.nominal),
   rIb: Float64Array.from(m.nominal),
-  tol: new Float64Array(m.points.length)
+  tol: new Float64Array(m.points.length),
+  px: Float64Array.from(m.points, (q) => q.x),
+  pcm: Float64Array.from(m.points, (q) => q.cm),
+  pnom: Float64Array.from(m.points, (q) => q.nominal),
+  pdev: Float64Array.from(m.points, (q) => q.cmDeviation),
+  paol: Float64Array.from(m.points, (q) => q.aol),
+  pgain: new Float64Array(m.points.length)
 })
 
 /**
@@ -85,49 +98,62 @@ export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: 
 
 /** `trialErrors`, returning the largest |full error| and leaving the largest |calibrated residual| in `s.maxCal`. */
 function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array, temps: ArrayLike<number> = m.temperatures): number {
+  // The same operations in the same order as the terms of `model.ts` (so the same bytes); what
+  // does not depend on the temperature (the gain terms) is computed once a trial, the points'
+  // fields are read from typed arrays, and the tempco resistors only where they are used.
   const f = m.form
-  const pts = m.points
-  const P = pts.length
+  const P = s.px.length
+  const {px, pcm, pnom, pgain, rTol, rT, rIb, tol} = s
   const mov = m.moving
   const nom = m.nominal
-  const {rTol, rT, rIb, tol} = s
+  const vref = m.vref
+  const kVos = m.kVos
   for (let j = 0; j < mov.length; j++) {
     const i = mov[j]
     rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
   }
+  const cmrr = vals[SLOT.cmrr]
   for (let p = 0; p < P; p++) {
-    const q = pts[p]
-    tol[p] = f(rTol, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
+    tol[p] = f(rTol, px[p], pcm[p], vref, 0, 0, 0) - pnom[p]
+    pgain[p] = kVos * s.pdev[p] * cmrr + s.paol[p] + tol[p]
   }
   const vos = vals[SLOT.vos]
   const ib = vals[SLOT.ib]
   const iosOut = vals[SLOT.ios] * m.kIos
   const idarkOut = vals[SLOT.idark] * m.kIdark
-  const cmrr = vals[SLOT.cmrr]
-  const psrrOut = m.kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  const psrrOut = kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  const calibrated = m.calibrated
+  const gainCalibrated = m.gainCalibrated
+  const ibResidual = m.ibResidual
+  const iosResidual = m.iosResidual
+  const idarkResidual = m.idarkResidual
+  const vosDrift = vals[SLOT.vosDrift]
   let e = 0
   let ec = 0
   for (let ti = 0; ti < temps.length; ti++) {
     const dt = temps[ti] - 25
-    for (let j = 0; j < mov.length; j++) {
-      const i = mov[j]
-      const c = vals[tcSlot(i)] * dt
-      rT[i] = nom[i] * (1 + c)
-      rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+    const at25 = dt === 0
+    if (!at25) {
+      for (let j = 0; j < mov.length; j++) {
+        const i = mov[j]
+        const c = vals[tcSlot(i)] * dt
+        rT[i] = nom[i] * (1 + c)
+        if (ib !== 0) rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
+      }
     }
     // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
-    const ibOut = ib === 0 ? 0 : ib * f(dt === 0 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
-    const drift = m.kVos * vals[SLOT.vosDrift] * dt + psrrOut
-    const full = drift + ibOut + iosOut + idarkOut + m.kVos * vos
-    const cal = drift + ibOut * m.ibResidual + iosOut * m.iosResidual + idarkOut * m.idarkResidual
+    const ibOut = ib === 0 ? 0 : ib * f(at25 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
+    const drift = kVos * vosDrift * dt + psrrOut
+    const full = drift + ibOut + iosOut + idarkOut + kVos * vos
+    const cal = drift + ibOut * ibResidual + iosOut * iosResidual + idarkOut * idarkResidual
+    const row = ti * P
     for (let p = 0; p < P; p++) {
-      const q = pts[p]
-      const tc = dt === 0 ? 0 : f(rT, q.x, q.cm, m.vref, 0, 0, 0) - q.nominal
-      const gainTerms = m.kVos * q.cmDeviation * cmrr + q.aol + tol[p]
+      const tc = at25 ? 0 : f(rT, px[p], pcm[p], vref, 0, 0, 0) - pnom[p]
+      const gainTerms = pgain[p]
       const a = full + tc + gainTerms
-      const b = m.calibrated ? cal + tc + (m.gainCalibrated ? 0 : gainTerms) : a
-      out[ti * P + p] = a
-      outCal[ti * P + p] = b
+      const b = calibrated ? cal + tc + (gainCalibrated ? 0 : gainTerms) : a
+      out[row + p] = a
+      outCal[row + p] = b
       const aa = Math.abs(a)
       const bb = Math.abs(b)
       if (aa > e) e = aa
