@@ -92,3 +92,78 @@ export function closedFormOf(input: StageInput): ClosedForm | null {
     return pin(r, x, cm, vref, vos, ibP, ibM) * (rload / (riso + rload))
   }
 }
+
+/**
+ * The closed form at every input end of one resistor set, less each end's nominal, into `out`:
+ * out[p] = form(r, xs[p], cms[p], vref, 0, 0, 0) − nominal[p]. The trial loop's resistor terms
+ * (`model.ts`). The same operations in the same order as `PIN_FORMS` with vos = ibP = ibM = 0
+ * (so the same bytes, signed zeros included: the zero sources stay in the arithmetic), only
+ * what depends on the resistors alone computed once for all the ends. The tests check it
+ * against the closed form for equal bytes.
+ */
+export type SignalForm = (r: Float64Array, xs: Float64Array, cms: Float64Array, vref: number, nominal: Float64Array, out: Float64Array) => void
+
+/** The pin forms at the ends, each value times `load` (1 without riso and rload: x·1 is x, bytes unchanged). */
+type PinSignalForm = (r: Float64Array, xs: Float64Array, cms: Float64Array, vref: number, nominal: Float64Array, out: Float64Array, load: number) => void
+
+const SIGNAL_FORMS: Record<Exclude<Topology, 'instrumentation'>, PinSignalForm> = {
+  noninverting: (r, xs, _cms, _vref, nominal, out, load) => {
+    const bp = 0 * ((r[RS] as number) + (r[RCOMP] as number))
+    const g = 1 + ratio(r[RF] as number, r[RG] as number)
+    const bm = 0 * (r[RF] as number)
+    for (let p = 0; p < out.length; p++) out[p] = ((((xs[p] as number) - bp + 0) * g + bm) * load) - (nominal[p] as number)
+  },
+  follower: (r, xs, _cms, _vref, nominal, out, load) => {
+    const bp = 0 * ((r[RS] as number) + (r[RCOMP] as number))
+    const bm = 0 * (r[RF] as number)
+    for (let p = 0; p < out.length; p++) out[p] = (((xs[p] as number) - bp + 0 + bm) * load) - (nominal[p] as number)
+  },
+  'lowpass-sallen-key': (r, xs, _cms, _vref, nominal, out, load) => {
+    const bp = 0 * ((r[R1] as number) + (r[R2] as number))
+    const g = 1 + ratio(r[RF] as number, r[RG] as number)
+    const bm = 0 * (r[RF] as number)
+    for (let p = 0; p < out.length; p++) out[p] = ((((xs[p] as number) - bp + 0) * g + bm) * load) - (nominal[p] as number)
+  },
+  inverting: (r, xs, _cms, vref, nominal, out, load) => {
+    const k = (r[RF] as number) / ((r[RS] as number) + (r[RG] as number))
+    const a = (vref - 0 * (r[RCOMP] as number) + 0) * (1 + k)
+    const bm = 0 * (r[RF] as number)
+    for (let p = 0; p < out.length; p++) out[p] = ((a - (xs[p] as number) * k + bm) * load) - (nominal[p] as number)
+  },
+  transimpedance: (r, xs, _cms, vref, nominal, out, load) => {
+    const a = (vref - 0 * (r[RCOMP] as number) + 0) * (1 + ratio(r[RF] as number, r[RSHUNT] as number))
+    const rf = r[RF] as number
+    for (let p = 0; p < out.length; p++) out[p] = ((a + rf * (0 - (xs[p] as number))) * load) - (nominal[p] as number)
+  },
+  difference: (r, xs, cms, vref, nominal, out, load) => {
+    const rp = (r[RS] as number) + (r[RP] as number)
+    const rref = r[RREF] as number
+    const vrp = vref * rp
+    const bq = 0 * rp * rref
+    const den = rp + rref
+    const k = (r[RF] as number) / ((r[RS] as number) + (r[RG] as number))
+    const k1 = 1 + k
+    const bm = 0 * (r[RF] as number)
+    for (let p = 0; p < out.length; p++) {
+      const x = xs[p] as number
+      const cm = cms[p] as number
+      const plus = ((cm + x / 2) * rref + vrp - bq) / den
+      out[p] = (((plus + 0) * k1 - (cm - x / 2) * k + bm) * load) - (nominal[p] as number)
+    }
+  },
+  'lowpass-mfb': (r, xs, _cms, vref, nominal, out, load) => {
+    const k = (r[R2] as number) / (r[R1] as number)
+    const a = (vref - 0 * (r[RCOMP] as number) + 0 + 0 * (r[R3] as number)) * (1 + k)
+    const bm = 0 * (r[R2] as number)
+    for (let p = 0; p < out.length; p++) out[p] = ((a - (xs[p] as number) * k + bm) * load) - (nominal[p] as number)
+  }
+}
+
+/** The signal form of a stage (see `SignalForm`), or null when its topology has no closed form. */
+export function signalFormOf(input: StageInput): SignalForm | null {
+  if (input.topology === 'instrumentation') return null
+  const pin = SIGNAL_FORMS[input.topology]
+  const rload = input.rload
+  if (rload === null || input.riso === null) return (r, xs, cms, vref, nominal, out) => pin(r, xs, cms, vref, nominal, out, 1)
+  return (r, xs, cms, vref, nominal, out) => pin(r, xs, cms, vref, nominal, out, rload / ((r[RISO] as number) + rload))
+}

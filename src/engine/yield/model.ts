@@ -30,7 +30,7 @@ import {signalPoints} from '../dc/budget.js'
 import {solveStageDc} from '../dc/solve.js'
 import {nominalResistors, RESISTOR_KEYS, type ResistorKey} from '../topology/index.js'
 import type {Resistor, StageInput, YieldDistribution} from '../types.js'
-import {closedFormOf, R_INDEX, type ClosedForm} from './closed-form.js'
+import {closedFormOf, R_INDEX, signalFormOf, type ClosedForm, type SignalForm} from './closed-form.js'
 
 /**
  * How a variable is drawn from its uniform u: `Symmetric` uniform within ± scale, `Normal` a
@@ -69,6 +69,8 @@ export interface YieldPoint {
 /** The compiled model (see module header). */
 export interface YieldModel {
   form: ClosedForm
+  /** The same closed form at every input end of one resistor set, less the ends' nominals (the trial loop's resistor terms). */
+  signal: SignalForm
   variables: YieldVariable[]
   points: YieldPoint[]
   /** Tmin, 25 °C, Tmax (duplicates dropped), °C. */
@@ -103,7 +105,8 @@ const resistorOf = (input: StageInput, k: ResistorKey): Resistor | null => (k ==
 /** The model of a stage, or null when its topology has no closed form (DESIGN §8.7). */
 export function yieldModel(input: StageInput, distribution: YieldDistribution): YieldModel | null {
   const form = closedFormOf(input)
-  if (form === null) return null
+  const signal = signalFormOf(input)
+  if (form === null || signal === null) return null
   const op = input.opamp
   const bias = biasOverTemperature(op, input.temperature, input)
   const nomR = nominalResistors(input)
@@ -153,6 +156,7 @@ export function yieldModel(input: StageInput, distribution: YieldDistribution): 
   const residual = (max: number, at25: number): number => (max > 0 ? Math.max(0, max - at25) / max : 0)
   return {
     form,
+    signal,
     variables,
     points,
     temperatures,

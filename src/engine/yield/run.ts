@@ -63,6 +63,8 @@ export interface Scratch {
   rT: Float64Array
   rIb: Float64Array
   tol: Float64Array
+  /** One temperature's tempco terms per point. */
+  tcs: Float64Array
   /** The points' fields (YieldPoint) as typed arrays, and each trial's gain terms per point. */
   px: Float64Array
   pcm: Float64Array
@@ -78,6 +80,7 @@ export const scratchOf = (m: YieldModel): Scratch => ({
   rT: Float64Array.from(m.nominal),
   rIb: Float64Array.from(m.nominal),
   tol: new Float64Array(m.points.length),
+  tcs: new Float64Array(m.points.length),
   px: Float64Array.from(m.points, (q) => q.x),
   pcm: Float64Array.from(m.points, (q) => q.cm),
   pnom: Float64Array.from(m.points, (q) => q.nominal),
@@ -102,8 +105,9 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
   // does not depend on the temperature (the gain terms) is computed once a trial, the points'
   // fields are read from typed arrays, and the tempco resistors only where they are used.
   const f = m.form
+  const signal = m.signal
   const P = s.px.length
-  const {px, pcm, pnom, pgain, rTol, rT, rIb, tol} = s
+  const {px, pcm, pnom, pgain, rTol, rT, rIb, tol, tcs} = s
   const mov = m.moving
   const nom = m.nominal
   const vref = m.vref
@@ -113,8 +117,8 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
     rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
   }
   const cmrr = vals[SLOT.cmrr]
+  signal(rTol, px, pcm, vref, pnom, tol)
   for (let p = 0; p < P; p++) {
-    tol[p] = f(rTol, px[p], pcm[p], vref, 0, 0, 0) - pnom[p]
     pgain[p] = kVos * s.pdev[p] * cmrr + s.paol[p] + tol[p]
   }
   const vos = vals[SLOT.vos]
@@ -140,6 +144,7 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
         rT[i] = nom[i] * (1 + c)
         if (ib !== 0) rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
       }
+      signal(rT, px, pcm, vref, pnom, tcs)
     }
     // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
     const ibOut = ib === 0 ? 0 : ib * f(at25 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
@@ -148,7 +153,7 @@ function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Arr
     const cal = drift + ibOut * ibResidual + iosOut * iosResidual + idarkOut * idarkResidual
     const row = ti * P
     for (let p = 0; p < P; p++) {
-      const tc = at25 ? 0 : f(rT, px[p], pcm[p], vref, 0, 0, 0) - pnom[p]
+      const tc = at25 ? 0 : tcs[p]
       const gainTerms = pgain[p]
       const a = full + tc + gainTerms
       const b = calibrated ? cal + tc + (gainCalibrated ? 0 : gainTerms) : a

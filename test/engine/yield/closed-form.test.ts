@@ -9,7 +9,7 @@ import {describe, expect, it} from 'vitest'
 import {solveStageDc} from '../../../src/engine/dc/solve.js'
 import {RESISTOR_KEYS, nominalResistors} from '../../../src/engine/topology/index.js'
 import type {StageInput} from '../../../src/engine/types.js'
-import {closedFormOf} from '../../../src/engine/yield/closed-form.js'
+import {closedFormOf, signalFormOf} from '../../../src/engine/yield/closed-form.js'
 import {res, stageFrom} from '../../support/stage-input.js'
 
 /** One stage of every topology with a closed form, each with all its optional resistors present. */
@@ -73,5 +73,45 @@ describe('closed-form DC output vs the nodal DC solve', () => {
 
   it('instrumentation has no closed form (yield unavailable, not a wrong number)', () => {
     expect(closedFormOf(stageFrom('engine', {topology: 'instrumentation'}))).toBeNull()
+    expect(signalFormOf(stageFrom('engine', {topology: 'instrumentation'}))).toBeNull()
   })
+})
+
+describe('signal form (every input end at once) vs the closed form, bit for bit', () => {
+  // The trial loop's resistor terms come from the signal form: it must give the closed form's
+  // own bytes (signed zeros included), or the Monte Carlo's errors would change.
+  const sameBits = (a: number, b: number): boolean => Object.is(a, b)
+  for (const [name, make] of Object.entries(CLOSED_FORM_STAGES)) {
+    it(`${name}: form(r, x, cm, vref, 0, 0, 0) − nominal, equal bytes`, () => {
+      const input = make()
+      const form = closedFormOf(input)!
+      const signal = signalFormOf(input)!
+      const nom = nominalResistors(input)
+      const edge = fc.constantFrom(0, -0, 1e-300, -1e-300, 1, -1)
+      const value = fc.oneof(edge, fc.double({min: -5, max: 5, noNaN: true}))
+      fc.assert(
+        fc.property(
+          fc.array(fc.double({min: -0.2, max: 0.2, noNaN: true}), {minLength: RESISTOR_KEYS.length, maxLength: RESISTOR_KEYS.length}),
+          fc.array(fc.tuple(value, value, value), {minLength: 1, maxLength: 4}),
+          fc.oneof(edge, fc.double({min: -3, max: 3, noNaN: true})),
+          (moves, ends, vref) => {
+            const r = Float64Array.from(RESISTOR_KEYS, (k, i) => {
+              const n = nom[k]
+              return k === 'rshunt' || !(n > 0) || !Number.isFinite(n) ? n : n * (1 + (moves[i] as number))
+            })
+            const xs = Float64Array.from(ends, (e) => e[0])
+            const cms = Float64Array.from(ends, (e) => e[1])
+            const nominal = Float64Array.from(ends, (e) => e[2])
+            const out = new Float64Array(ends.length)
+            signal(r, xs, cms, vref, nominal, out)
+            ends.forEach((_, p) => {
+              const want = form(r, xs[p]!, cms[p]!, vref, 0, 0, 0) - nominal[p]!
+              if (!sameBits(out[p]!, want)) expect.fail(`end ${p}: ${out[p]} vs ${want}`)
+            })
+          }
+        ),
+        {numRuns: 500, seed: 7}
+      )
+    })
+  }
 })
