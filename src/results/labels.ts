@@ -117,7 +117,18 @@ const YIELD_VARIABLE_LABELS: Record<string, string> = {
   idark: 'Dark current (idark)',
   cmrr: 'Common-mode rejection (1/CMRR)',
   psrr: 'Supply rejection (1/PSRR)',
-  supply: 'Supply deviation'
+  supply: 'Supply deviation',
+  // An instrumentation amplifier's (DESIGN §8.2) and a converter's (§8.5) variables.
+  'vos-in': 'Input offset voltage (vos-in)',
+  'vos-out': 'Output offset voltage (vos-out)',
+  'vos-in-drift': 'Input offset drift (vos-in-drift)',
+  'vos-out-drift': 'Output offset drift (vos-out-drift)',
+  'gain-error': 'Gain error',
+  'gain-drift': 'Gain drift',
+  nonlinearity: 'Gain nonlinearity',
+  offset: 'Offset',
+  'offset-drift': 'Offset drift',
+  inl: 'Integral nonlinearity (INL)'
 }
 
 /** The label of a Monte Carlo variable: `rf:tolerance` → "rf tolerance". */

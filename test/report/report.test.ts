@@ -67,6 +67,16 @@ describe('report tree of the reference-buffer sample', async () => {
     expect(rows.map((r) => r.key)).not.toContain('idark')
   })
 
+  it('draws only the variance shares of 0.05 % and more, and counts the rest in the caption', () => {
+    const fig = nodesOf(body, 'figure').find((f) => f.caption.startsWith('Share of the error variance of stage ref-buffer'))!
+    const rows = inlineValues(fig.chart) as {label: string; share: number}[]
+    expect(rows.length).toBeGreaterThan(1)
+    for (const r of rows) expect(r.share).toBeGreaterThanOrEqual(0.05)
+    expect(rows[0]!.label).toBe('Offset voltage (vos)')
+    // The stage has nine random variables (vos, drift, ib, ios, cmrr, psrr, supply, rs and rf tolerance).
+    expect(fig.caption).toContain(`(${9 - rows.length} more variables under 0.05 % each not drawn)`)
+  })
+
   it('has the reviewed section outline', async () => {
     await expect(`${outline(body).join('\n')}\n`).toMatchFileSnapshot('__snapshots__/reference-buffer.outline.txt')
   })

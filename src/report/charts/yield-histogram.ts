@@ -22,11 +22,12 @@ export function yieldHistogramSpec(h: YieldHistogramInput, axisTitle = 'DC error
   const width = h.counts.length > 0 ? h.top / h.counts.length : 0
   const bins = h.counts.map((c, i) => ({lo: i * width, hi: (i + 1) * width, zero: 0, share: n > 0 ? (100 * c) / n : 0}))
   const peak = Math.max(...bins.map((b) => b.share), 1e-9)
-  // One text row per mark (from the top, 13 px apart) so that close lines keep readable labels.
+  // The labels stand above the plot frame, one row per mark (13 px apart, the rightmost line
+  // lowest), each ending at its line: a label then never lies across another mark's line.
   const marks = [
     ...h.limits.map((l) => ({x: l.value, text: `${l.label} `, kind: 'limit'})),
     {x: h.worstCase, text: 'worst case ', kind: 'worst'}
-  ].map((m, i) => ({...m, ypix: 3 + 13 * i}))
+  ].sort((a, b) => b.x - a.x).map((m, i) => ({...m, ypix: -4 - 13 * i}))
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     config: CHART_CONFIG,
@@ -41,7 +42,7 @@ export function yieldHistogramSpec(h: YieldHistogramInput, axisTitle = 'DC error
           x: {field: 'lo', type: 'quantitative', scale: {domain: [0, h.top], nice: false, zero: true}, axis: {...prefixedAxis(axisTitle, 'V', h.top), grid: true, tickCount: 8}},
           x2: {field: 'hi'},
           y2: {field: 'zero'},
-          y: {field: 'share', type: 'quantitative', scale: {domain: [0, peak * (1.12 + 0.08 * (h.limits.length + 1))], nice: false}, axis: {title: 'Share of trials (%)', grid: true, tickCount: 5, format: '~g'}}
+          y: {field: 'share', type: 'quantitative', scale: {domain: [0, peak * 1.08], nice: false}, axis: {title: 'Share of trials (%)', grid: true, tickCount: 5, format: '~g'}}
         }
       },
       {
@@ -60,7 +61,7 @@ export function yieldHistogramSpec(h: YieldHistogramInput, axisTitle = 'DC error
             encoding: {x: {field: 'x', type: 'quantitative'}}
           },
           {
-            mark: {type: 'text', align: 'right', baseline: 'top', dx: -3, dy: 3, angle: 0, fontSize: FONT_SIZE.label, color: INK.text},
+            mark: {type: 'text', align: 'right', baseline: 'bottom', dx: 2, angle: 0, fontSize: FONT_SIZE.label, color: INK.text},
             encoding: {
               x: {field: 'x', type: 'quantitative'},
               y: {field: 'ypix', type: 'quantitative', scale: null},

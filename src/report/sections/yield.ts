@@ -21,6 +21,9 @@ const KEY_LABELS: Record<YieldKey, string> = {
   'input-error-calibrated': 'DC error referred to input after calibration'
 }
 
+/** A variance share below this (0.05 %, printed 0.0 %) is not drawn in the ranked chart. */
+const NEGLIGIBLE_SHARE = 5e-4
+
 /** A yield as a percentage with enough digits to tell 99.9 % from 99.99 %. */
 export const yieldPct = (y: number): string => `${(y * 100).toFixed(y > 0.999 && y < 1 ? 3 : 2)} %`
 
@@ -111,9 +114,14 @@ export function monteCarloBlocks(ctx: ReportContext, y: Omit<YieldResult, 'resul
     out.push(paragraph(
       `What to tighten first: ${sub.variableLabel(top.variable)} carries ${(top.share * 100).toFixed(1)} % of the error’s variance. ` +
       `Shares are each variable’s total-effect index (Jansen’s estimator over ${y.varianceRows.toLocaleString('en-US')} trials) at the input end and temperature ` +
-      `where the error varies most (${where}), normalised to sum to 100 %.`),
-    figure(ctx, varianceSharesSpec(y.variance.map((v) => ({label: sub.variableLabel(v.variable), share: v.share}))),
-      `Share of the error variance of ${sub.name} by random variable, largest first`))
+      `where the error varies most (${where}), normalised to sum to 100 %.`))
+    // Variables whose share rounds to 0.0 % (a calibrated-out offset, a negligible bias current) are left out of
+    // the chart, as absent contributors are elsewhere; the JSON keeps every one.
+    const drawn = y.variance.filter((v) => v.share >= NEGLIGIBLE_SHARE)
+    const left = y.variance.length - drawn.length
+    out.push(figure(ctx, varianceSharesSpec(drawn.map((v) => ({label: sub.variableLabel(v.variable), share: v.share}))),
+      `Share of the error variance of ${sub.name} by random variable, largest first` +
+      (left === 0 ? '' : ` (${left} more ${left === 1 ? 'variable' : 'variables'} under 0.05 % each not drawn)`)))
   }
   out.push(paragraph(sub.assumptions))
   return out
