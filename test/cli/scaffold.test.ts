@@ -6,7 +6,7 @@ import {runCli, tempNotes} from './helpers.js'
 import {USAGE} from '../../src/cli/args.js'
 
 describe('new', () => {
-  it.each(TOPOLOGIES)('writes a %s note that checks without errors and meets its own requirements', (topology) => {
+  it.each(TOPOLOGIES)('writes a %s note that checks without errors, meets its own requirements and passes --strict', (topology) => {
     const dir = tempNotes({})
     const file = join(dir, 'designs', `${topology}.md`)
     const made = runCli(['new', file, '--topology', topology])
@@ -17,6 +17,11 @@ describe('new', () => {
     expect(r.stderr).not.toMatch(/: error: /)
     expect(r.stderr).not.toMatch(/Requirement .* not met/)
     expect(r.status).toBe(0)
+    // A starting note raises no warning or caution of its own: it enters an operating range and
+    // the over-temperature bias currents, so no drift term is zero by default (--strict fails on any).
+    const strict = runCli(['check', file, '--strict'])
+    expect(strict.stderr).not.toMatch(/: (error|warning): /)
+    expect(strict.status).toBe(0)
   })
 
   it('writes a non-inverting note when no topology is given', () => {
