@@ -33,7 +33,7 @@ import {DrawKind, SLOT_COUNT, yieldModel, type YieldModel, type YieldVariable} f
 import {INA_SLOT_COUNT, inaPointError, inaYieldModel, type InaYieldModel} from './ina-model.js'
 import {truncatedNormal} from './normal.js'
 import {drawTrial, HISTOGRAM_BINS, pointErrorAt, scratchOf, STREAM_B, trialErrors, VARIANCE_ROWS, type Scratch} from './run.js'
-import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
+import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
 /** Variable-index offset between stages (a stage's slots and its Jansen second stream, slot + 64, stay below it). */
 export const STAGE_STRIDE = 128
@@ -386,18 +386,7 @@ function chainVarianceShares(cm: ChainYieldModel, seed: number, sums: {rows: num
     if (a.scale[j] > 0) vars.push({name: `${a.name}/${key}`, vals: a.vals, valsB: a.valsB, slot: j})
   })
   if (rows < 2 || vars.length === 0) return {variance: [], at: null, rows: 0}
-  const P = cm.points.length
-  let best = 0
-  let bestVar = -1
-  for (let k = 0; k < sums.sum.length; k++) {
-    const v = sums.sum2[k] / rows - (sums.sum[k] / rows) ** 2
-    if (v > bestVar) {
-      bestVar = v
-      best = k
-    }
-  }
-  const p = best % P
-  const ti = Math.floor(best / P)
+  const {p, ti} = largestVariancePoint(sums, cm.points.length)
   const sk = seedKey(seed)
   const fA = new Float64Array(rows)
   const fAB = vars.map(() => new Float64Array(rows))
@@ -414,11 +403,7 @@ function chainVarianceShares(cm: ChainYieldModel, seed: number, sums: {rows: num
       v.vals[v.slot] = keep
     }
   }
-  const raw = jansenTotalEffects(fA, fAB)
-  const total = raw.reduce((x, y) => x + y, 0)
-  const variance = vars
-    .map((v, i) => ({variable: v.name, share: total > 0 ? raw[i] / total : 0}))
-    .sort((x, y) => y.share - x.share || (x.variable < y.variable ? -1 : 1))
+  const variance = rankedShares(vars.map((v) => v.name), jansenTotalEffects(fA, fAB))
   const q = cm.points[p]
   return {variance, at: {input: q.x, inputCm: cm.differential ? q.cm : null, temperature: cm.temperatures[ti]}, rows}
 }

@@ -15,7 +15,7 @@ import {DEFAULT_YIELD_TRIALS} from '../constants.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
 import {truncatedNormal} from './normal.js'
-import {histogram, jansenTotalEffects, percentileSorted, wilsonInterval} from './stats.js'
+import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
 
 /**
@@ -328,18 +328,7 @@ function varianceShares(m: YieldModel, seed: number, sums: PointSums): {
   const rows = sums.rows
   if (rows < 2 || m.variables.length === 0) return {variance: [], at: null, rows: 0}
   const sk = seedKey(seed)
-  const P = m.points.length
-  let best = 0
-  let bestVar = -1
-  for (let k = 0; k < sums.sum.length; k++) {
-    const v = sums.sum2[k] / rows - (sums.sum[k] / rows) ** 2
-    if (v > bestVar) {
-      bestVar = v
-      best = k
-    }
-  }
-  const p = best % P
-  const ti = Math.floor(best / P)
+  const {p, ti} = largestVariancePoint(sums, m.points.length)
   const vals = new Float64Array(SLOT_COUNT)
   const valsB = new Float64Array(SLOT_COUNT)
   const s = scratchOf(m)
@@ -358,11 +347,7 @@ function varianceShares(m: YieldModel, seed: number, sums: PointSums): {
       vals[slot] = keep
     }
   }
-  const raw = jansenTotalEffects(fA, fAB)
-  const total = raw.reduce((a, b) => a + b, 0)
-  const variance = m.variables
-    .map((v, i) => ({variable: v.name, share: total > 0 ? raw[i] / total : 0}))
-    .sort((a, b) => b.share - a.share || (a.variable < b.variable ? -1 : 1))
+  const variance = rankedShares(m.variables.map((v) => v.name), jansenTotalEffects(fA, fAB))
   const q = m.points[p]
   return {variance, at: {x: q.x, cm: q.cm, t: m.temperatures[ti]}, rows}
 }

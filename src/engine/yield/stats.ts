@@ -67,3 +67,28 @@ export function jansenTotalEffects(fA: Float64Array, fAB: Float64Array[]): numbe
     return s / (2 * m) / v
   })
 }
+
+/**
+ * The point of largest variance from running sums over `rows` trials (`sum[k]`, `sum2[k]` of
+ * the signed error at point k = ti·P + p): its input point p and temperature index ti.
+ */
+export function largestVariancePoint(sums: {rows: number; sum: Float64Array; sum2: Float64Array}, points: number): {p: number; ti: number} {
+  let best = 0
+  let bestVar = -1
+  for (let k = 0; k < sums.sum.length; k++) {
+    const v = (sums.sum2[k] as number) / sums.rows - ((sums.sum[k] as number) / sums.rows) ** 2
+    if (v > bestVar) {
+      bestVar = v
+      best = k
+    }
+  }
+  return {p: best % points, ti: Math.floor(best / points)}
+}
+
+/** Jansen's raw indices normalised to sum 1, named, largest first (ties by name). */
+export function rankedShares(names: readonly string[], raw: readonly number[]): {variable: string; share: number}[] {
+  const total = raw.reduce((a, b) => a + b, 0)
+  return names
+    .map((variable, i) => ({variable, share: total > 0 ? (raw[i] as number) / total : 0}))
+    .sort((a, b) => b.share - a.share || (a.variable < b.variable ? -1 : 1))
+}
