@@ -13,15 +13,22 @@
 import {formatQuantity} from '../units/index.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
 
-function check({result}: RuleContext): RuleFinding[] {
-  const y = result.yield
+/**
+ * The finding for a Monte Carlo marked unavailable, of a stage or (chain-yield-unavailable) a
+ * chain: `block` names it, `where` the node its worst case is taken at.
+ */
+export function unavailableYieldFinding(y: {unavailable: string | null} | null, block: 'stage' | 'chain', worstCase: number, where: string): RuleFinding[] {
   if (y === null || y.unavailable === null) return []
   return [{
     severity: 'info',
     text:
-      `No Monte Carlo yield for this stage: ${y.unavailable}, and a yield computed another way would not be the budget’s model. ` +
-      `Judge the stage on its worst-case DC error (${formatQuantity(result.dc.worstCaseOutput, 'V')} at the output) and its RSS figure.`
+      `No Monte Carlo yield for this ${block}: ${y.unavailable}, and a yield computed another way would not be the budget’s model. ` +
+      `Judge the ${block} on its worst-case DC error (${formatQuantity(worstCase, 'V')} ${where}) and its RSS figure.`
   }]
+}
+
+function check({result}: RuleContext): RuleFinding[] {
+  return unavailableYieldFinding(result.yield, 'stage', result.dc.worstCaseOutput, 'at the output')
 }
 
 const rule: Rule<'yield-unavailable'> = {id: 'yield-unavailable', check}
