@@ -14,7 +14,7 @@ import {YIELD_KEYS} from '../types.js'
 import {DEFAULT_YIELD_TRIALS} from '../constants.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
-import {truncatedNormal} from './normal.js'
+import {centralInverseNormal, inverseNormal, P_LOW, truncatedFromStandard, truncatedNormal, truncatedProbability} from './normal.js'
 import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
 
@@ -58,7 +58,9 @@ export function drawTrial(model: YieldModel, key: number, vals: Float64Array, st
 
 /** Scratch arrays of one evaluator. */
 export interface Scratch {
-  maxCal: number
+  /** The one-trial results of `trialErrors` (largest |full| and |calibrated|; not read). */
+  one: Float64Array
+  oneCal: Float64Array
   rTol: Float64Array
   rT: Float64Array
   rIb: Float64Array
@@ -75,7 +77,8 @@ export interface Scratch {
 }
 
 export const scratchOf = (m: YieldModel): Scratch => ({
-  maxCal: 0,
+  one: new Float64Array(1),
+  oneCal: new Float64Array(1),
   rTol: Float64Array.from(m.nominal),
   rT: Float64Array.from(m.nominal),
   rIb: Float64Array.from(m.nominal),
@@ -96,77 +99,103 @@ export const scratchOf = (m: YieldModel): Scratch => ({
  * stages at the same temperatures) and input end p. The terms are those of `model.ts`.
  */
 export function trialErrors(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array, temps: ArrayLike<number> = m.temperatures): void {
-  trialMax(m, vals, s, out, outCal, temps)
+  blockMax(m, vals, 1, 1, s, out, outCal, temps, s.one, s.oneCal, 0, undefined, 0)
 }
 
-/** `trialErrors`, returning the largest |full error| and leaving the largest |calibrated residual| in `s.maxCal`. */
-function trialMax(m: YieldModel, vals: Float64Array, s: Scratch, out: Float64Array, outCal: Float64Array, temps: ArrayLike<number> = m.temperatures): number {
+/**
+ * The signed errors of `count` trials, the one definition of the trial's arithmetic: trial j's
+ * variable `slot` is read at `vals[j + slot·st]` (one trial's vector: count = st = 1; a block
+ * of `drawBlock`: st the block's rows). For each trial, `out`/`outCal` get its signed errors
+ * (as `trialErrors`), err[at + j] the largest |full error| and errCal[at + j] the largest
+ * |calibrated residual|; with `sums`, the errors of trial number first + j are added to the
+ * sums while it is below `sums.rows`. What belongs to the model and not to a trial is read once
+ * per call.
+ */
+function blockMax(
+  m: YieldModel, vals: Float64Array, count: number, st: number, s: Scratch, out: Float64Array, outCal: Float64Array,
+  temps: ArrayLike<number>, err: Float64Array, errCal: Float64Array, at: number, sums: PointSums | undefined, first: number
+): void {
   // The same operations in the same order as the terms of `model.ts` (so the same bytes); what
   // does not depend on the temperature (the gain terms) is computed once a trial, the points'
   // fields are read from typed arrays, and the tempco resistors only where they are used.
   const f = m.form
   const signal = m.signal
   const P = s.px.length
-  const {px, pcm, pnom, pgain, rTol, rT, rIb, tol, tcs} = s
+  const {px, pcm, pnom, pdev, paol, pgain, rTol, rT, rIb, tol, tcs} = s
   const mov = m.moving
   const nom = m.nominal
   const vref = m.vref
   const kVos = m.kVos
-  for (let j = 0; j < mov.length; j++) {
-    const i = mov[j]
-    rTol[i] = nom[i] * (1 + vals[tolSlot(i)])
-  }
-  const cmrr = vals[SLOT.cmrr]
-  signal(rTol, px, pcm, vref, pnom, tol)
-  for (let p = 0; p < P; p++) {
-    pgain[p] = kVos * s.pdev[p] * cmrr + s.paol[p] + tol[p]
-  }
-  const vos = vals[SLOT.vos]
-  const ib = vals[SLOT.ib]
-  const iosOut = vals[SLOT.ios] * m.kIos
-  const idarkOut = vals[SLOT.idark] * m.kIdark
-  const psrrOut = kVos * m.supplySpan * vals[SLOT.supply] * vals[SLOT.psrr]
+  const kIos = m.kIos
+  const kIdark = m.kIdark
+  const supplySpan = m.supplySpan
   const calibrated = m.calibrated
   const gainCalibrated = m.gainCalibrated
   const ibResidual = m.ibResidual
   const iosResidual = m.iosResidual
   const idarkResidual = m.idarkResidual
-  const vosDrift = vals[SLOT.vosDrift]
-  let e = 0
-  let ec = 0
-  for (let ti = 0; ti < temps.length; ti++) {
-    const dt = temps[ti] - 25
-    const at25 = dt === 0
-    if (!at25) {
-      for (let j = 0; j < mov.length; j++) {
-        const i = mov[j]
-        const c = vals[tcSlot(i)] * dt
-        rT[i] = nom[i] * (1 + c)
-        if (ib !== 0) rIb[i] = nom[i] * (1 + vals[tolSlot(i)] + c)
-      }
-      signal(rT, px, pcm, vref, pnom, tcs)
+  const T = temps.length
+  const sumRows = sums === undefined ? 0 : sums.rows
+  const n = P * T
+  for (let o = 0; o < count; o++) {
+    for (let j = 0; j < mov.length; j++) {
+      const i = mov[j]
+      rTol[i] = nom[i] * (1 + vals[o + tolSlot(i) * st])
     }
-    // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
-    const ibOut = ib === 0 ? 0 : ib * f(at25 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
-    const drift = kVos * vosDrift * dt + psrrOut
-    const full = drift + ibOut + iosOut + idarkOut + kVos * vos
-    const cal = drift + ibOut * ibResidual + iosOut * iosResidual + idarkOut * idarkResidual
-    const row = ti * P
+    const cmrr = vals[o + SLOT.cmrr * st]
+    signal(rTol, px, pcm, vref, pnom, tol)
     for (let p = 0; p < P; p++) {
-      const tc = at25 ? 0 : tcs[p]
-      const gainTerms = pgain[p]
-      const a = full + tc + gainTerms
-      const b = calibrated ? cal + tc + (gainCalibrated ? 0 : gainTerms) : a
-      out[row + p] = a
-      outCal[row + p] = b
-      const aa = Math.abs(a)
-      const bb = Math.abs(b)
-      if (aa > e) e = aa
-      if (bb > ec) ec = bb
+      pgain[p] = kVos * pdev[p] * cmrr + paol[p] + tol[p]
+    }
+    const vos = vals[o + SLOT.vos * st]
+    const ib = vals[o + SLOT.ib * st]
+    const iosOut = vals[o + SLOT.ios * st] * kIos
+    const idarkOut = vals[o + SLOT.idark * st] * kIdark
+    const psrrOut = kVos * supplySpan * vals[o + SLOT.supply * st] * vals[o + SLOT.psrr * st]
+    const vosDrift = vals[o + SLOT.vosDrift * st]
+    let e = 0
+    let ec = 0
+    for (let ti = 0; ti < T; ti++) {
+      const dt = temps[ti] - 25
+      const at25 = dt === 0
+      if (!at25) {
+        for (let j = 0; j < mov.length; j++) {
+          const i = mov[j]
+          const c = vals[o + tcSlot(i) * st] * dt
+          rT[i] = nom[i] * (1 + c)
+          if (ib !== 0) rIb[i] = nom[i] * (1 + vals[o + tolSlot(i) * st] + c)
+        }
+        signal(rT, px, pcm, vref, pnom, tcs)
+      }
+      // At 25 °C the tempco moves nothing: the bias transfer is at the tolerance draw alone.
+      const ibOut = ib === 0 ? 0 : ib * f(at25 ? rTol : rIb, 0, 0, 0, 0, 1, 1)
+      const drift = kVos * vosDrift * dt + psrrOut
+      const full = drift + ibOut + iosOut + idarkOut + kVos * vos
+      const cal = drift + ibOut * ibResidual + iosOut * iosResidual + idarkOut * idarkResidual
+      const row = ti * P
+      for (let p = 0; p < P; p++) {
+        const tc = at25 ? 0 : tcs[p]
+        const gainTerms = pgain[p]
+        const a = full + tc + gainTerms
+        const b = calibrated ? cal + tc + (gainCalibrated ? 0 : gainTerms) : a
+        out[row + p] = a
+        outCal[row + p] = b
+        e = Math.max(e, Math.abs(a))
+        ec = Math.max(ec, Math.abs(b))
+      }
+    }
+    err[at + o] = e
+    errCal[at + o] = ec
+    if (first + o < sumRows) {
+      const pick = (sums as PointSums).calibrated ? outCal : out
+      const sum = (sums as PointSums).sum
+      const sum2 = (sums as PointSums).sum2
+      for (let k = 0; k < n; k++) {
+        sum[k] += pick[k]
+        sum2[k] += pick[k] * pick[k]
+      }
     }
   }
-  s.maxCal = ec
-  return e
 }
 
 /**
@@ -213,25 +242,67 @@ export interface PointSums {
   sum2: Float64Array
 }
 
+/** Trials drawn at a time by `trialBlock` (the rows of its column block). */
+export const DRAW_BLOCK = 256
+
+/**
+ * Draw trials [from, from + count) of seed key `sk` (count ≤ the block's rows `st`) into the
+ * column block `cols`: variable `slot` of the block's row j at cols[j + slot·st]. The same
+ * numbers as `drawTrial` row by row (the same operations on the same uniforms), one variable
+ * at a time over the rows: short loops of one kind of draw, which run about a third faster
+ * than the variables of one trial after another. Inactive slots are not written (they stay 0).
+ */
+export function drawBlock(model: YieldModel, sk: number, from: number, count: number, cols: Float64Array, keys: Int32Array, probs: Float64Array, st: number): void {
+  for (let j = 0; j < count; j++) keys[j] = trialKey(sk, from + j)
+  const slots = model.varSlot
+  const scales = model.varScale
+  const symmetricEnd = model.kindEnds[0]
+  const normalEnd = model.kindEnds[1]
+  for (let k = 0; k < symmetricEnd; k++) {
+    const slot = slots[k]
+    const scale = scales[k]
+    const o = slot * st
+    for (let j = 0; j < count; j++) cols[o + j] = scale * (2 * uniformOf(keys[j], slot) - 1)
+  }
+  for (let k = symmetricEnd; k < normalEnd; k++) {
+    const slot = slots[k]
+    const scale = scales[k]
+    const o = slot * st
+    // The central region for every row without a branch (rows independent, so they pipeline),
+    // then the few rows in the tails (about 5 %) again through the whole inverse.
+    for (let j = 0; j < count; j++) {
+      const p = truncatedProbability(uniformOf(keys[j], slot))
+      probs[j] = p
+      cols[o + j] = truncatedFromStandard(centralInverseNormal(p), scale)
+    }
+    for (let j = 0; j < count; j++) {
+      const p = probs[j]
+      if (p < P_LOW || p > 1 - P_LOW) cols[o + j] = truncatedFromStandard(inverseNormal(p), scale)
+    }
+  }
+  for (let k = normalEnd; k < slots.length; k++) {
+    const slot = slots[k]
+    const scale = scales[k]
+    const o = slot * st
+    for (let j = 0; j < count; j++) cols[o + j] = scale * uniformOf(keys[j], slot)
+  }
+}
+
 /** The raw errors of trials [from, to): full and calibrated, max |signed sum| over the points. */
 export function trialBlock(m: YieldModel, seed: number, from: number, to: number, err: Float64Array, errCal: Float64Array, sums?: PointSums): void {
   const sk = seedKey(seed)
-  const vals = new Float64Array(SLOT_COUNT)
+  const st = DRAW_BLOCK
+  const cols = new Float64Array(SLOT_COUNT * st)
+  const keys = new Int32Array(st)
+  const probs = new Float64Array(st)
   const s = scratchOf(m)
   const n = m.points.length * m.temperatures.length
   const out = new Float64Array(n)
   const outCal = new Float64Array(n)
-  for (let t = from; t < to; t++) {
-    drawTrial(m, trialKey(sk, t), vals, 0)
-    err[t - from] = trialMax(m, vals, s, out, outCal)
-    errCal[t - from] = s.maxCal
-    if (sums !== undefined && t < sums.rows) {
-      const pick = sums.calibrated ? outCal : out
-      for (let k = 0; k < n; k++) {
-        sums.sum[k] += pick[k]
-        sums.sum2[k] += pick[k] * pick[k]
-      }
-    }
+  for (let b = from; b < to; b += st) {
+    const count = Math.min(st, to - b)
+    drawBlock(m, sk, b, count, cols, keys, probs, st)
+    blockMax(m, cols, count, st, s, out, outCal, m.temperatures, err, errCal, b - from, sums, b)
   }
 }
 

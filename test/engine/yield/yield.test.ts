@@ -10,10 +10,10 @@ import {describe, expect, it} from 'vitest'
 import {dcBudget} from '../../../src/engine/dc/budget.js'
 import {signalGain} from '../../../src/engine/dc/solve.js'
 import type {Calibration, StageInput, YieldOptions} from '../../../src/engine/types.js'
-import {runYield, trialBlock} from '../../../src/engine/yield/run.js'
-import {yieldModel} from '../../../src/engine/yield/model.js'
+import {DRAW_BLOCK, drawBlock, drawTrial, runYield, scratchOf, trialBlock, trialErrors} from '../../../src/engine/yield/run.js'
+import {SLOT_COUNT, yieldModel} from '../../../src/engine/yield/model.js'
 import {inverseNormal, PHI_MINUS_3, truncatedNormal} from '../../../src/engine/yield/normal.js'
-import {uniformAt} from '../../../src/engine/yield/counter-rng.js'
+import {seedKey, trialKey, uniformAt} from '../../../src/engine/yield/counter-rng.js'
 import {wilsonInterval} from '../../../src/engine/yield/stats.js'
 import {res, stageFrom, testOpamp} from '../../support/stage-input.js'
 import {CLOSED_FORM_STAGES} from './closed-form.test.js'
@@ -140,6 +140,39 @@ describe('determinism', () => {
       expect([...a, ...b]).toEqual([...whole])
     }
   })
+  // The stage's loop draws a block of trials one variable at a time and evaluates them from
+  // the columns; a chain draws and evaluates one trial at a time. Both must give equal bytes.
+  for (const [name, make] of Object.entries(CLOSED_FORM_STAGES)) {
+    for (const distribution of ['uniform', 'normal'] as const) {
+      it(`${name} (${distribution}): the block draw and evaluation equal the one-trial draw and trialErrors, byte for byte`, () => {
+        const stage = {...make(), calibration: 'offset' as Calibration}
+        const m = yieldModel(stage, distribution)!
+        const count = DRAW_BLOCK - 3
+        const cols = new Float64Array(SLOT_COUNT * DRAW_BLOCK)
+        drawBlock(m, seedKey(11), 40, count, cols, new Int32Array(DRAW_BLOCK), new Float64Array(DRAW_BLOCK), DRAW_BLOCK)
+        const err = new Float64Array(count)
+        const errCal = new Float64Array(count)
+        trialBlock(m, 11, 40, 40 + count, err, errCal)
+        const vals = new Float64Array(SLOT_COUNT)
+        const s = scratchOf(m)
+        const P = m.points.length * m.temperatures.length
+        const out = new Float64Array(P)
+        const outCal = new Float64Array(P)
+        let tails = 0
+        for (let j = 0; j < count; j++) {
+          vals.fill(0)
+          drawTrial(m, trialKey(seedKey(11), 40 + j), vals)
+          for (let slot = 0; slot < SLOT_COUNT; slot++) expect(Object.is(cols[j + slot * DRAW_BLOCK], vals[slot])).toBe(true)
+          trialErrors(m, vals, s, out, outCal)
+          expect(Object.is(err[j], Math.max(...out.map(Math.abs)))).toBe(true)
+          expect(Object.is(errCal[j], Math.max(...outCal.map(Math.abs)))).toBe(true)
+          if (Math.abs(vals[0]) > (2 / 3) * m.varScale[m.kindEnds[0]]) tails++
+        }
+        // vos is a truncated normal: some rows must have come through the inverse's tails (|z| > 1.97).
+        expect(tails).toBeGreaterThan(0)
+      })
+    }
+  }
   it('uniforms are uniform: mean 0.5 and variance 1/12 within 4 standard errors over 100k', () => {
     const n = 100_000
     let s = 0
