@@ -18,6 +18,8 @@ import {buildId, lazyFaces, lazyFonts, templatesHash, toolVersion} from './resou
 import {scaffoldNote} from './scaffold.js'
 import {summaryTable} from './summary.js'
 import {watchNotes} from './watch.js'
+import {freeCores} from './pool.js'
+import {trialThreads} from './trials.js'
 import {toJson} from '../results/json.js'
 
 
@@ -40,7 +42,18 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
     return 0
   }
   const fonts = lazyFonts()
-  const res: Resources = {fonts, faces: lazyFaces(fonts), version, buildId: await buildId(), templates: new Map()}
+  // Large Monte Carlos of the notes evaluated in this thread spread over the free cores (or `--jobs`).
+  const threads = trialThreads(args.jobs ?? freeCores())
+  const res: Resources = {fonts, faces: lazyFaces(fonts), version, buildId: await buildId(), templates: new Map(), spread: threads.spread}
+  try {
+    return await runCommand(args, abort, io, res)
+  } finally {
+    await threads.close()
+  }
+}
+
+async function runCommand(args: CliArgs, abort: AbortController, io: CliIO, res: Resources): Promise<number> {
+  const {out, err} = io
   if (args.command === 'compare') return compareCommand(args.operands[0]!, args.operands[1]!, args.markdown, res, out, args.threshold)
 
   if (args.command === 'merge') return mergeCommand(args.operands, out)

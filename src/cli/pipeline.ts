@@ -25,6 +25,7 @@ import {CHAIN_REQUIREMENT_KEYS} from '../engine/chain/types.js'
 import {chainRequirementValue, chainLimitText} from '../report/chain-verdicts.js'
 import type {FontSet, LoadedFonts} from '../render/pdf/index.js'
 import {REQUIREMENT_KEYS} from '../engine/types.js'
+import type {TrialSpread} from '../engine/index.js'
 import {limitText, requirementValue} from '../report/verdicts.js'
 import {recordOf, type OutputRecord} from './cache.js'
 import {reportDate} from './dates.js'
@@ -48,6 +49,8 @@ export interface Resources {
   buildId: string
   /** Templates already loaded, by name. */
   templates: Map<string, Template>
+  /** Runs large Monte Carlos' trials on the trial threads (`trials.ts`). (optional: in this thread) */
+  spread?: TrialSpread
 }
 
 /** What one note may read besides its own bytes: everything `runNote` gets from outside. */
@@ -58,6 +61,8 @@ export interface NoteResources {
   template: (name: string) => Promise<Template>
   /** The images the note's tree names (messages for refused ones go on `file`). */
   images: (tree: Root, file: VFile) => Promise<NoteImages>
+  /** As `Resources.spread`. (optional: in this thread) */
+  spread?: TrialSpread
 }
 
 export interface RunOptions {
@@ -141,7 +146,8 @@ export function noteResources(path: string, res: Resources): NoteResources {
       res.templates.set(name, t)
       return t
     },
-    images: (tree, file) => readImages(tree, path, file)
+    images: (tree, file) => readImages(tree, path, file),
+    ...(res.spread ? {spread: res.spread} : {})
   }
 }
 
@@ -236,7 +242,7 @@ export async function runNote(bytes: Uint8Array, name: string, res: NoteResource
   }
 
   // 2. Evaluate: engine and rules, per stage.
-  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file, {alternatives: opts.alternatives === true, yield: opts.yield === true})
+  const {stages: evaluations, chains} = evaluateNoteWithChains(parsed, file, {alternatives: opts.alternatives === true, yield: opts.yield === true, ...(res.spread ? {spread: res.spread} : {})})
   markUnmet(file, evaluations)
   markUnmetChains(file, chains)
   const wantPdf = opts.formats.includes('pdf')

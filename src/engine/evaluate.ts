@@ -17,6 +17,7 @@ import {checkLimits, swingOf} from './limits.js'
 import {topologyTerms} from './topology/index.js'
 import type {StageInput, StageResult} from './types.js'
 import {runYield, yieldOptionsOf} from './yield/run.js'
+import type {TrialSpread} from './yield/spread.js'
 
 /**
  * Reject inputs the engine cannot evaluate (the note layer reports these with positions;
@@ -45,10 +46,16 @@ export function assertEvaluable(input: StageInput): void {
   if (!(input.opamp.gbw > 0 && input.opamp.aol > 0)) throw new RangeError(`Unexpected gbw or aol in stage \`${input.id}\`, expected positive values`)
 }
 
+/** What an evaluation may use besides its input; none of it changes the result. */
+export interface EvaluateContext {
+  /** Runs a Monte Carlo's trials on other threads (`yield/spread.ts`). (optional: all in this thread) */
+  spread?: TrialSpread
+}
+
 /** Evaluate a stage: DC budget, noise, stability, swing and requirement verdicts. */
-export function evaluateStage(input: StageInput): StageResult {
+export function evaluateStage(input: StageInput, context: EvaluateContext = {}): StageResult {
   assertEvaluable(input)
-  if (input.topology === 'instrumentation') return evaluateInstrumentation(input)
+  if (input.topology === 'instrumentation') return evaluateInstrumentation(input, context.spread)
   const terms = topologyTerms(input)
   const dc = dcAnalysis(input)
   const noise = noiseAnalysis(input)
@@ -57,7 +64,7 @@ export function evaluateStage(input: StageInput): StageResult {
   const limits = checkLimits(input)
   const gain = signalGain(input)
   const options = yieldOptionsOf(input)
-  const yieldResult = options === null ? null : runYield(input, options, dc.budget, gain)
+  const yieldResult = options === null ? null : runYield(input, options, dc.budget, gain, context.spread)
   return {
     id: input.id,
     topology: input.topology,

@@ -5,7 +5,7 @@ export * from './types.js'
 export * from './archetypes.js'
 export * from './constants.js'
 export * from './complex.js'
-export {evaluateStage, assertEvaluable} from './evaluate.js'
+export {evaluateStage, assertEvaluable, type EvaluateContext} from './evaluate.js'
 export {dcAnalysis, dcBudget, type DcAnalysis} from './dc/budget.js'
 export {biasCurrentAt, biasOverTemperature, darkCurrentAt, darkCurrentMax, doublingInterval} from './dc/bias.js'
 export {idealOutput, solveDc, solveStageDc, stageDcCircuit, type DcExcitation, type DcResistors, type DcSolution} from './dc/solve.js'
@@ -57,5 +57,6 @@ export * from './chain/index.js'
 export {
   runYield, yieldOptionsOf, trialBlock, yieldModel, closedFormOf, wilsonInterval, inverseNormal, truncatedNormal, uniformAt,
   runChainYield, chainYieldModel, chainTrialBlock, chainTrialErrors, drawChainTrial, STAGE_STRIDE, CONVERTER_KEYS,
+  runTrialJob, type TrialJob, type TrialSpread,
   type YieldModel, type ClosedForm, type ChainYieldModel, type ChainYieldStage
 } from './yield/index.js'

@@ -20,6 +20,7 @@ import {integrateBand} from './noise/integrate.js'
 import {noiseKelvin} from './noise/sources.js'
 import {checkRequirements} from './requirements.js'
 import {runInstrumentationYield} from './yield/chain.js'
+import type {TrialSpread} from './yield/spread.js'
 import {yieldOptionsOf} from './yield/run.js'
 import {inaAsOpamp, inaGain} from './ina-archetypes.js'
 import {NOISE_KEYS, type DcKey, type InaParams, type NoiseKey, type StageInput, type StageResult} from './types.js'
@@ -66,7 +67,7 @@ export function inaDensitiesInto(input: StageInput, f: number, out: Float64Array
 }
 
 /** Evaluate an instrumentation stage (see module header). */
-export function evaluateInstrumentation(input: StageInput): StageResult {
+export function evaluateInstrumentation(input: StageInput, spread?: TrialSpread): StageResult {
   const ina = inaOf(input)
   const rgR = input.rg as NonNullable<StageInput['rg']>
   const g = inaGain(ina, rgR.value)
@@ -152,7 +153,7 @@ export function evaluateInstrumentation(input: StageInput): StageResult {
   const limits = checkLimitsAt(input, points)
   // No closed form for this topology: the Monte Carlo runs on the block model, as a chain of this one stage.
   const options = yieldOptionsOf(input)
-  const yieldResult = options === null ? null : runInstrumentationYield(input, options, dc, g)
+  const yieldResult = options === null ? null : runInstrumentationYield(input, options, dc, g, spread)
   return {
     id: input.id,
     topology: input.topology,

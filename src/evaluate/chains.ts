@@ -9,7 +9,7 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {checkChainRequirements, DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type ChainResult, type ChainStage} from '../engine/index.js'
+import {checkChainRequirements, DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type TrialSpread, type ChainResult, type ChainStage} from '../engine/index.js'
 import type {YieldOptions} from '../engine/types.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
@@ -105,9 +105,10 @@ export const chainYieldOptions = (input: ChainInput, forced: boolean): YieldOpti
 /**
  * Evaluate every planned chain whose stages were all evaluated.
  * @param options
- *   `yield`: the Monte Carlo on every chain without a `yield` of its own (`--yield`).
+ *   `yield`: the Monte Carlo on every chain without a `yield` of its own (`--yield`); `spread`:
+ *   its trials on other threads (the same bytes).
  */
-export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile, options: {yield?: boolean} = {}): ChainEvaluation[] {
+export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile, options: {yield?: boolean; spread?: TrialSpread} = {}): ChainEvaluation[] {
   const out: ChainEvaluation[] = []
   for (const {block, input} of plan.chains) {
     const evaluated = input.stages.map((id) => stages.get(id))
@@ -128,7 +129,7 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
       const yieldOptions = chainYieldOptions(input, options.yield === true)
       let result: ChainResult = cascade
       if (yieldOptions !== null) {
-        const y = runChainYield(input, (evaluated as EvaluatedStage[]).map((s) => ({input: s.input, gain: s.result.gain})), cascade.dc, yieldOptions)
+        const y = runChainYield(input, (evaluated as EvaluatedStage[]).map((s) => ({input: s.input, gain: s.result.gain})), cascade.dc, yieldOptions, options.spread)
         // The `yield` requirement is judged on the Monte Carlo, which the cascade does not run: its verdicts again, with it.
         const requirements = [...checkChainRequirements(input, {...cascade, yield: y}), ...cascade.requirements.filter((r) => r.kind === 'limit')]
         result = {...cascade, yield: y, requirements}

@@ -3,7 +3,7 @@
  * Pure: a block the engine cannot evaluate becomes a fatal message on the file.
  */
 import type {VFile} from 'vfile'
-import {DEFAULT_YIELD_TRIALS, evaluateStage} from '../engine/index.js'
+import {DEFAULT_YIELD_TRIALS, evaluateStage, type TrialSpread} from '../engine/index.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ParsedNote, StageBlockNode, StageRole} from '../note/types.js'
 import {runRules} from '../rules/index.js'
@@ -36,6 +36,8 @@ export interface EvaluateOptions {
   alternatives?: boolean
   /** The Monte Carlo (DESIGN §8.7) on every stage without a `yield` of its own, at the default trials and seed (`--yield`). (default: false) */
   yield?: boolean
+  /** Runs large Monte Carlos' trials on other threads (the CLI's trial threads); the results are the same bytes. (optional: in this thread) */
+  spread?: TrialSpread
 }
 
 /**
@@ -76,14 +78,14 @@ export function evaluateNoteWithChains(parsed: ParsedNote, file: VFile, options:
     const ev = done.get(b)
     return ev === undefined ? [] : [ev]
   })
-  const chains = evaluateChains(plan, new Map(stages.map((ev) => [ev.input.id, ev] as const)), file, {yield: options.yield === true})
+  const chains = evaluateChains(plan, new Map(stages.map((ev) => [ev.input.id, ev] as const)), file, {yield: options.yield === true, ...(options.spread ? {spread: options.spread} : {})})
   return {stages, chains}
 }
 
 function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNote, file: VFile, options: EvaluateOptions): StageEvaluation | null {
   const waivers = waiversOf(block, file)
   try {
-    const result = evaluateStage(input)
+    const result = evaluateStage(input, options.spread ? {spread: options.spread} : {})
     const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
     const alternatives = block.alternatives === true || options.alternatives === true
       ? evaluateAlternatives(input, result, [...parsed.opamps, ...(parsed.inas ?? [])], file, block.position?.start) : null

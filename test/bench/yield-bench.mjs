@@ -85,6 +85,24 @@ export async function yieldBench({root, quick, stage, row}) {
   const identical = same.every(Boolean)
   row('b', `Monte Carlo errors on ${counts.join(' / ')} workers vs one thread (sha-256)`, identical ? 'identical' : 'DIFFERENT', 'identical', identical)
 
+  // The command's own trial threads (src/cli/trials.ts): this thread takes one part and waits
+  // for the others; the first run also starts the threads (timed separately).
+  const {trialThreads} = await import(pathToFileURL(join(root, 'dist', 'cli', 'trials.js')).href)
+  const threads = trialThreads(cores, 1)
+  const job = {kind: 'stage', input, distribution: 'uniform', seed: 1, trials}
+  const spreadErr = new Float64Array(trials)
+  const spreadCal = new Float64Array(trials)
+  let t1 = performance.now()
+  threads.spread(job, spreadErr, spreadCal)
+  const first = (performance.now() - t1) / 1000
+  t1 = performance.now()
+  threads.spread(job, spreadErr, spreadCal)
+  const warm = (performance.now() - t1) / 1000
+  await threads.close()
+  const spreadSame = digest(spreadErr) === oneThread
+  row('b', `Monte Carlo through the command's trial threads, ${cores} threads in all (${(trials / 1e6).toFixed(0)} M trials; first run incl. thread start)`,
+    `${(trials / warm / 1e6).toFixed(2)} M trials/s (first run ${first.toFixed(2)} s, one thread ${(trials / Math.max(...wall)).toFixed(2)} s); errors ${spreadSame ? 'identical' : 'DIFFERENT'}`, 'identical', spreadSame)
+
   const dc = evaluateStage(input).dc
   const ms = []
   const cpu = []

@@ -33,6 +33,7 @@ import {DrawKind, SLOT_COUNT, yieldModel, type YieldModel, type YieldVariable} f
 import {INA_SLOT_COUNT, inaPointError, inaYieldModel, type InaYieldModel} from './ina-model.js'
 import {truncatedNormal} from './normal.js'
 import {drawTrial, HISTOGRAM_BINS, pointErrorAt, scratchOf, STREAM_B, trialErrors, VARIANCE_ROWS, type Scratch} from './run.js'
+import type {TrialJob, TrialSpread} from './spread.js'
 import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
 /** Variable-index offset between stages (a stage's slots and its Jansen second stream, slot + 64, stay below it). */
@@ -289,9 +290,9 @@ const isCalibratedKey = (k: ChainYieldKey): boolean => k.endsWith('-calibrated')
  * @param dc
  *   The chain's worst-case budget (the bound shown beside the distribution).
  */
-export function runChainYield(chain: ChainInput, stages: readonly ChainYieldStage[], dc: ChainDc, options: YieldOptions): ChainYieldResult {
+export function runChainYield(chain: ChainInput, stages: readonly ChainYieldStage[], dc: ChainDc, options: YieldOptions, spread?: TrialSpread): ChainYieldResult {
   const calibrated = chain.calibration !== 'none'
-  return chainYieldWithBound(chain, stages, calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput, options)
+  return chainYieldWithBound(chain, stages, calibrated ? (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput) : dc.worstCaseOutput, options, spread)
 }
 
 /**
@@ -301,7 +302,7 @@ export function runChainYield(chain: ChainInput, stages: readonly ChainYieldStag
  * @param dc
  *   The stage's budget (the worst-case bound shown beside the distribution).
  */
-export function runInstrumentationYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number): YieldResult {
+export function runInstrumentationYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number, spread?: TrialSpread): YieldResult {
   const require: ChainInput['require'] = {}
   for (const key of YIELD_KEYS) if (input.require[key] !== undefined) require[key] = input.require[key]
   const chain: ChainInput = {
@@ -309,7 +310,7 @@ export function runInstrumentationYield(input: StageInput, options: YieldOptions
     calibration: input.calibration, require, yield: options
   }
   const worstCase = input.calibration === 'none' ? dc.worstCaseOutput : (dc.calibrated?.worstCaseOutput ?? dc.worstCaseOutput)
-  const r = chainYieldWithBound(chain, [{input, gain}], worstCase, options)
+  const r = chainYieldWithBound(chain, [{input, gain}], worstCase, options, spread)
   const prefix = `${input.id}/`
   return {
     ...r,
@@ -320,7 +321,7 @@ export function runInstrumentationYield(input: StageInput, options: YieldOptions
 
 const isYieldKey = (k: string): k is YieldKey => (YIELD_KEYS as readonly string[]).includes(k)
 
-function chainYieldWithBound(chain: ChainInput, stages: readonly ChainYieldStage[], worstCase: number, options: YieldOptions): ChainYieldResult {
+function chainYieldWithBound(chain: ChainInput, stages: readonly ChainYieldStage[], worstCase: number, options: YieldOptions, spread?: TrialSpread): ChainYieldResult {
   const calibrated = chain.calibration !== 'none'
   const basis = calibrated ? 'output-calibrated' as const : 'output' as const
   const cm = chainYieldModel(chain, stages, options)
@@ -333,7 +334,9 @@ function chainYieldWithBound(chain: ChainInput, stages: readonly ChainYieldStage
   const P = cm.points.length * cm.temperatures.length
   const rows = Math.min(n, VARIANCE_ROWS)
   const sums = {rows, calibrated, sum: new Float64Array(P), sum2: new Float64Array(P)}
-  chainTrialBlock(cm, options.seed, 0, n, err, errCal, sums)
+  const job: TrialJob = {kind: 'chain', chain, stages, distribution: options.distribution, seed: options.seed, trials: n}
+  if (spread !== undefined && spread(job, err, errCal)) chainTrialBlock(cm, options.seed, 0, rows, new Float64Array(rows), new Float64Array(rows), sums)
+  else chainTrialBlock(cm, options.seed, 0, n, err, errCal, sums)
   const g = Math.abs(stages.reduce((x, s) => x * s.gain, 1))
   const lsb = chain.adc === null ? null : lsbOf(chain.adc)
   const boundOf = (key: ChainYieldKey, limit: number): number | null =>

@@ -15,6 +15,7 @@ import {DEFAULT_YIELD_TRIALS} from '../constants.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
 import {centralInverseNormal, inverseNormal, P_LOW, truncatedFromStandard, truncatedNormal, truncatedProbability} from './normal.js'
+import type {TrialJob, TrialSpread} from './spread.js'
 import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
 
@@ -337,8 +338,10 @@ function unavailableResult(input: StageInput, options: YieldOptions, reason: str
  *   The stage's budget (the worst-case bound shown beside the distribution).
  * @param gain
  *   The signed signal gain G (input-referred = output ÷ |G|).
+ * @param spread
+ *   Runs the trials on other threads when it can (`spread.ts`); the result is the same bytes.
  */
-export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number): YieldResult {
+export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget, gain: number, spread?: TrialSpread): YieldResult {
   const model = yieldModel(input, options.distribution)
   if (model === null) {
     return unavailableResult(input, options, `the ${input.topology} topology has no closed-form DC solution for the Monte Carlo`, dc)
@@ -351,7 +354,9 @@ export function runYield(input: StageInput, options: YieldOptions, dc: DcBudget,
   const rows = Math.min(n, VARIANCE_ROWS)
   const sums: PointSums = {rows, calibrated, sum: new Float64Array(P), sum2: new Float64Array(P)}
   // The first `rows` trials (in order, so any later split keeps these sums) also locate the point of largest variance.
-  trialBlock(model, options.seed, 0, n, err, errCal, sums)
+  const job: TrialJob = {kind: 'stage', input, distribution: options.distribution, seed: options.seed, trials: n}
+  if (spread !== undefined && spread(job, err, errCal)) trialBlock(model, options.seed, 0, rows, new Float64Array(rows), new Float64Array(rows), sums)
+  else trialBlock(model, options.seed, 0, n, err, errCal, sums)
   const g = Math.abs(gain)
   const results: YieldRequirement[] = []
   for (const key of YIELD_KEYS) {
