@@ -7,7 +7,10 @@
  * instrumentation stage, the note's ina blocks, then the INA archetypes. Each is named by its
  * block id or archetype name only. Each candidate goes through the same `evaluateStage` as
  * the stage itself (no second engine); the candidate in use reuses the stage's own result.
- * The rules are not run for candidates: their notes belong to the design as drawn.
+ * The rules are not run for candidates: their notes belong to the design as drawn. A
+ * candidate runs the stage's Monte Carlo only when the stage requires a `yield` (its verdict
+ * counts in the score); a `yield` map or `--yield` alone asks for figures the table does not
+ * show, so the candidates are evaluated without it.
  *
  * The score, best first (our decision; DESIGN §8.8 names no order):
  *   1. fewest verdicts not met: the author's requirements and the checked physical limits
@@ -102,6 +105,10 @@ export function withCandidate(input: StageInput, c: AlternativeCandidate): Stage
     : {...input, opamp: {...c.amplifier.params}}
 }
 
+/** The stage without its Monte Carlo unless a `yield` requirement is judged on it (module header). */
+export const withoutUnjudgedYield = (input: StageInput): StageInput =>
+  input.require.yield === undefined && input.yield ? {...input, yield: null} : input
+
 /** The name of the amplifier a stage uses (its ina for an instrumentation stage). */
 const inUse = (input: StageInput): string => input.ina?.name ?? input.opamp.name
 
@@ -148,7 +155,7 @@ export function evaluateAlternatives(input: StageInput, own: StageResult, opamps
   const candidates: AlternativeEvaluation[] = []
   for (const c of candidatesOf(input, opamps)) {
     const current = c.name === inUse(input)
-    const candidateInput = current ? input : withCandidate(input, c)
+    const candidateInput = current ? input : withoutUnjudgedYield(withCandidate(input, c))
     let result: StageResult
     try {
       result = current ? own : evaluateStage(candidateInput)

@@ -78,6 +78,22 @@ describe('evaluateAlternatives()', () => {
       expect(a.dominant).toBe(largest(separate))
     })
 
+  it('runs a candidate’s Monte Carlo only when a yield requirement is judged on it (the table shows no yield)', () => {
+    const withRun = {...stage, yield: {trials: 2000, seed: 1, distribution: 'uniform' as const}}
+    const shown = evaluateAlternatives(withRun, evaluateStage(withRun), [], new VFile())
+    for (const c of shown.candidates) expect(c.result.yield === null).toBe(!c.current)
+    const required = {...withRun, require: {...withRun.require, 'output-error': 5e-3, yield: 0.99}}
+    const judged = evaluateAlternatives(required, evaluateStage(required), [], new VFile())
+    for (const c of judged.candidates) {
+      expect(c.result.yield?.trials).toBe(2000)
+      // The yield verdict equals that of a separate evaluation with the same Monte Carlo.
+      const separate = evaluateStage({...required, opamp: {...ARCHETYPES[c.candidate as keyof typeof ARCHETYPES]}})
+      const verdict = (r: StageResult) => r.requirements.find((q) => q.key === 'yield')
+      expect(verdict(c.result)?.met).toBeTypeOf('boolean')
+      expect(verdict(c.result)).toEqual(verdict(separate))
+    }
+  })
+
   it('marks the op-amp in use, and only it, as current, reusing the stage’s own result', () => {
     const own = evaluateStage(stage)
     const r = evaluateAlternatives(stage, own, [], new VFile())
