@@ -14,7 +14,7 @@ import {YIELD_KEYS} from '../types.js'
 import {DEFAULT_YIELD_TRIALS} from '../constants.js'
 import {seedKey, trialKey, uniformOf} from './counter-rng.js'
 import {DrawKind, SLOT, SLOT_COUNT, tcSlot, tolSlot, yieldModel, type YieldModel} from './model.js'
-import {centralInverseNormal, inverseNormal, P_LOW, truncatedFromStandard, truncatedNormal, truncatedProbability} from './normal.js'
+import {truncatedNormal} from './normal.js'
 import type {TrialJob, TrialSpread} from './spread.js'
 import {histogram, jansenTotalEffects, largestVariancePoint, percentileSorted, rankedShares, wilsonInterval} from './stats.js'
 
@@ -253,7 +253,7 @@ export const DRAW_BLOCK = 256
  * at a time over the rows: short loops of one kind of draw, which run about a third faster
  * than the variables of one trial after another. Inactive slots are not written (they stay 0).
  */
-export function drawBlock(model: YieldModel, sk: number, from: number, count: number, cols: Float64Array, keys: Int32Array, probs: Float64Array, st: number): void {
+export function drawBlock(model: YieldModel, sk: number, from: number, count: number, cols: Float64Array, keys: Int32Array, st: number): void {
   for (let j = 0; j < count; j++) keys[j] = trialKey(sk, from + j)
   const slots = model.varSlot
   const scales = model.varScale
@@ -269,17 +269,7 @@ export function drawBlock(model: YieldModel, sk: number, from: number, count: nu
     const slot = slots[k]
     const scale = scales[k]
     const o = slot * st
-    // The central region for every row without a branch (rows independent, so they pipeline),
-    // then the few rows in the tails (about 5 %) again through the whole inverse.
-    for (let j = 0; j < count; j++) {
-      const p = truncatedProbability(uniformOf(keys[j], slot))
-      probs[j] = p
-      cols[o + j] = truncatedFromStandard(centralInverseNormal(p), scale)
-    }
-    for (let j = 0; j < count; j++) {
-      const p = probs[j]
-      if (p < P_LOW || p > 1 - P_LOW) cols[o + j] = truncatedFromStandard(inverseNormal(p), scale)
-    }
+    for (let j = 0; j < count; j++) cols[o + j] = truncatedNormal(uniformOf(keys[j], slot), scale)
   }
   for (let k = normalEnd; k < slots.length; k++) {
     const slot = slots[k]
@@ -295,14 +285,13 @@ export function trialBlock(m: YieldModel, seed: number, from: number, to: number
   const st = DRAW_BLOCK
   const cols = new Float64Array(SLOT_COUNT * st)
   const keys = new Int32Array(st)
-  const probs = new Float64Array(st)
   const s = scratchOf(m)
   const n = m.points.length * m.temperatures.length
   const out = new Float64Array(n)
   const outCal = new Float64Array(n)
   for (let b = from; b < to; b += st) {
     const count = Math.min(st, to - b)
-    drawBlock(m, sk, b, count, cols, keys, probs, st)
+    drawBlock(m, sk, b, count, cols, keys, st)
     blockMax(m, cols, count, st, s, out, outCal, m.temperatures, err, errCal, b - from, sums, b)
   }
 }
