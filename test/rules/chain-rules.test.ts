@@ -86,6 +86,16 @@ describe('chain-riso-divider', () => {
     expect(sk[0]!.text).toContain('draws no current')
   })
 
+  it('with an rload of its own on the driving stage, only the further division by Rin in parallel (the stage counts riso into rload)', () => {
+    const n = notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 100\nrload: 10k') + invStage('b', '10k') + fence('chain c', 'stages: [a, b]'))
+    expect(n).toHaveLength(1)
+    // By hand (voltage divider): the pin sees riso into rload ∥ Rin = 5 kΩ: 5000/5100; the stage counts 10000/10100.
+    const missing = 1 - (5000 / 5100) / (10000 / 10100)
+    expect(missing).toBeCloseTo(0.0098039, 6)
+    expect(n[0]!.text).toContain(`${(missing * 100).toPrecision(3)} %`)
+    expect(n[0]!.text).toContain('rload = 10 kΩ')
+  })
+
   it('is silent with no riso, into a non-inverting input, and on the last stage (into the converter)', () => {
     expect(notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V') + invStage('b', '10k') + fence('chain c', 'stages: [a, b]'))).toEqual([])
     expect(notesOf(gainStage('a', '9k', '1k', '-0.1 .. 0.1 V', '\nriso: 100') + gainStage('b', '1k', '1k', null) + fence('chain c', 'stages: [a, b]'))).toEqual([])

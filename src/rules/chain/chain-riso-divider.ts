@@ -4,7 +4,10 @@
  * What it checks: every stage of the chain that has `riso` (DESIGN §8.3) and is followed by
  * a stage with a finite input resistance Rin — an inverting stage's rg (+ its rs), a filter's
  * r1 (DESIGN §8.6). The chain cascades stages as ideal sources, so it does not see the
- * divider riso/(riso + Rin) that the next stage's input forms with riso.
+ * divider riso/(riso + Rin) that the next stage's input forms with riso. When the driving
+ * stage declares its own `rload`, its figures already hold riso into rload; what they miss is
+ * Rin in parallel with rload, the fraction 1 − [R∥/(riso + R∥)]/[rload/(riso + rload)],
+ * R∥ = rload·Rin/(rload + Rin) (riso/(riso + Rin) again without rload).
  *
  * When it fires: always in that case (caution), with the divider error as a fraction and
  * carried to the chain's output full scale (V, and LSB with a converter). A multiple-feedback
@@ -41,6 +44,17 @@ export function inputResistanceOf(input: StageInput): {ohms: number; what: strin
   }
 }
 
+/**
+ * The fraction of the signal lost to the next stage's Rin that the driving stage's figures do
+ * not hold: riso/(riso + Rin) without an rload; with one, what Rin in parallel adds to the
+ * division by riso into rload the stage already counts (module header).
+ */
+export function missingDivision(riso: number, rin: number, rload: number | null): number {
+  if (rload === null || !(rload > 0) || !Number.isFinite(rload)) return riso / (riso + rin)
+  const parallel = (rload * rin) / (rload + rin)
+  return 1 - (parallel / (riso + parallel)) / (rload / (riso + rload))
+}
+
 function check({result, stages}: ChainRuleContext): RuleFinding[] {
   const out: RuleFinding[] = []
   const fullScale = Math.max(Math.abs(result.outputSpan[0]), Math.abs(result.outputSpan[1]))
@@ -51,11 +65,15 @@ function check({result, stages}: ChainRuleContext): RuleFinding[] {
     const next = stages[k + 1]!.input
     const rin = inputResistanceOf(next)
     if (rin === null || !(rin.ohms > 0)) continue
-    const divider = riso / (riso + rin.ohms)
+    const rload = stages[k]!.input.rload
+    const divider = missingDivision(riso, rin.ohms, rload)
     const atOutput = divider * fullScale
     const lead =
       `Stage ${stages[k]!.input.id} drives stage ${next.id} through riso = ${formatQuantity(riso, 'Ω')} into its ${rin.what} = ${formatQuantity(rin.ohms, 'Ω')}: ` +
-      `the chain takes each stage as an ideal source, so the divider riso/(riso + Rin) = ${(divider * 100).toPrecision(3)} % is not in the chain's figures. `
+      (rload === null || !(rload > 0)
+        ? `the chain takes each stage as an ideal source, so the divider riso/(riso + Rin) = ${(divider * 100).toPrecision(3)} % is not in the chain's figures. `
+        : `stage ${stages[k]!.input.id}'s figures hold riso into its rload = ${formatQuantity(rload, 'Ω')}, not into rload in parallel with Rin, so a further ` +
+          `${(divider * 100).toPrecision(3)} % of the signal is lost that the chain's figures do not show. `)
     const effect = rin.atDc
       ? `It is a gain error of ${formatQuantity(atOutput, 'V')} at the chain output's full scale (${formatQuantity(fullScale, 'V')})` +
         (lsb === null ? '' : `, ${(atOutput / lsb).toPrecision(3)} LSB`) + '. '
