@@ -204,7 +204,9 @@ function markUnmetChains(file: VFile, chains: ChainEvaluation[]): void {
     const place = ev.block.position?.start
     for (const n of ev.notes) {
       if (n.severity !== 'warning' && n.severity !== 'caution') continue
-      file.message(`Chain \`${ev.input.id}\`: ${n.text}`, {place, ruleId: n.rule, source: 'ampreview'})
+      const opts = {place, ruleId: n.rule, source: 'ampreview'}
+      if (n.accepted !== undefined) file.info(`Chain \`${ev.input.id}\`: accepted by the author (${n.accepted}): ${n.text}`, opts)
+      else file.message(`Chain \`${ev.input.id}\`: ${n.text}`, opts)
     }
     for (const r of ev.result.requirements) {
       if (r.met !== false) continue

@@ -18,6 +18,7 @@ import type {ParsedNote, StageBlockNode} from '../note/types.js'
 import {runChainRules} from '../rules/chain/index.js'
 import type {RuleNote} from '../rules/types.js'
 import {formatRange} from '../units/index.js'
+import {applyWaivers, chainWaiversOf} from './waivers.js'
 
 export interface ChainEvaluation {
   block: ChainBlockNode
@@ -111,6 +112,8 @@ export const chainYieldOptions = (input: ChainInput, forced: boolean): YieldOpti
 export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, EvaluatedStage>, file: VFile, options: {yield?: boolean; spread?: TrialSpread} = {}): ChainEvaluation[] {
   const out: ChainEvaluation[] = []
   for (const {block, input} of plan.chains) {
+    // Read (and check) the chain's waivers whether or not the chain can be evaluated.
+    const waivers = chainWaiversOf(block, file)
     const evaluated = input.stages.map((id) => stages.get(id))
     if (evaluated.some((s) => s === undefined)) continue
     try {
@@ -134,7 +137,7 @@ export function evaluateChains(plan: ChainPlan, stages: ReadonlyMap<string, Eval
         const requirements = [...checkChainRequirements(input, {...cascade, yield: y}), ...cascade.requirements.filter((r) => r.kind === 'limit')]
         result = {...cascade, yield: y, requirements}
       }
-      const notes = runChainRules({input, result, stages: evaluated as EvaluatedStage[]})
+      const notes = applyWaivers(block, runChainRules({input, result, stages: evaluated as EvaluatedStage[]}), waivers, file)
       out.push({block, input, result, notes, topologies: (evaluated as EvaluatedStage[]).map((s) => s.input.topology)})
     } catch (error) {
       const m = file.message(`Could not evaluate chain \`${block.id}\`: ${error instanceof Error ? error.message : String(error)}`,

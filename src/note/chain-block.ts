@@ -18,6 +18,7 @@ import type {Reporter} from './diagnostics.js'
 import {didYouMean} from './did-you-mean.js'
 import {noteMessages} from './messages.js'
 import {readYield} from './yield-read.js'
+import {readAccept} from './stage-read.js'
 import type {DefaultedValue, StageBlockNode} from './types.js'
 import {bandOf, choiceOf, quantityOf, rangeOf, scalarOf} from './values.js'
 
@@ -235,6 +236,9 @@ export function buildChain(fields: readonly Field[], ctx: ChainContext): BuiltCh
         yieldOptions = readYield(field, report)
         break
       case 'require':
+        break
+      case 'accept':
+        readAccept(field, report)
         break
     }
   }

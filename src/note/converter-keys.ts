@@ -31,7 +31,7 @@ export const isAdcKey = (s: string): s is AdcKey => Object.hasOwn(ADC_KEYS, s)
 export const ADC_BLOCK_KEYS: readonly string[] = ['input', ...Object.keys(ADC_KEYS)]
 
 /** Chain keys (DESIGN §8.6). */
-export const CHAIN_KEYS = ['title', 'stages', 'adc', 'temperature', 'band', 'calibration', 'yield', 'require'] as const
+export const CHAIN_KEYS = ['title', 'stages', 'adc', 'temperature', 'band', 'calibration', 'yield', 'require', 'accept'] as const
 export type ChainKey = (typeof CHAIN_KEYS)[number]
 export const isChainKey = (s: string): s is ChainKey => (CHAIN_KEYS as readonly string[]).includes(s)
 

@@ -97,8 +97,8 @@ function readRequire(field: Field, read: StageRead, report: Reporter): void {
   }
 }
 
-/** `accept:` must be a map whose every value is a reason; the rule ids are checked by src/evaluate. */
-function readAccept(field: Field, report: Reporter): void {
+/** `accept:` must be a map whose every value is a reason (a stage's or a chain's); the rule ids are checked by src/evaluate. */
+export function readAccept(field: Field, report: Reporter): void {
   const v = field.value
   if (v.type === 'scalar' && v.text === null) return
   if (v.type !== 'map') {

@@ -23,7 +23,8 @@ export interface JsonChain {
   noise: ChainResult['noise']
   aliasRejection: number | null
   requirements: ChainRequirementResult[]
-  notes: {rule: string; severity: string; text: string}[]
+  /** The chain rules' notes; `accepted` is the author's reason when the chain's `accept:` accepts the rule, else null. */
+  notes: {rule: string; severity: string; text: string; accepted: string | null}[]
   /** The Monte Carlo over the chain's DC budget (DESIGN §8.7), errors at the converter's input; null when off. */
   yield: JsonYield<ChainYieldKey> | null
 }
@@ -71,7 +72,7 @@ export function jsonChain(ev: ChainEvaluation): JsonChain {
     },
     aliasRejection: finite(r.aliasRejection),
     requirements: r.requirements.map(jsonRequirement),
-    notes: ev.notes.map((x) => ({rule: x.rule, severity: x.severity, text: x.text})),
+    notes: ev.notes.map((x) => ({rule: x.rule, severity: x.severity, text: x.text, accepted: x.accepted ?? null})),
     yield: jsonYield(r.yield)
   }
 }

@@ -113,3 +113,42 @@ describe('role: baseline', () => {
     expect(r.stderr).toContain("error: Unexpected role `baselin`, expected `design` or `baseline`; did you mean `baseline`?")
   })
 })
+
+describe('waivers on a chain', () => {
+  // A stage with riso driving an inverting stage: chain-riso-divider cautions (issue 11's rule);
+  // at 25 °C only, so that no stage rule fires (the datasheet's 25 °C bias currents hold).
+  const chainNote = (accept = ''): string => note(
+    '```stage a\ntopology: noninverting\nopamp: precision-bipolar\nrf: 9k\nrg: 1k\nriso: 100\ninput: -0.1 .. 0.1 V\nsupply: ±15 V\nband: 0.1 .. 10 Hz\ntemperature: 25 .. 25 °C\n```\n',
+    '```stage b\ntopology: inverting\nopamp: precision-bipolar\nrf: 10k\nrg: 10k\nsupply: ±15 V\nband: 0.1 .. 10 Hz\ntemperature: 25 .. 25 °C\n```\n',
+    `\`\`\`chain c\nstages: [a, b]\n${accept}\`\`\`\n`)
+  const REASON = 'The 1 % divider is trimmed by the system gain calibration.'
+
+  it('--strict fails on a chain rule’s caution; accepted, it is info and the reason is in the JSON', () => {
+    const dir = tempNotes({'plain.md': chainNote(), 'ok.md': chainNote(`accept:\n  chain-riso-divider: "${REASON}"\n`)})
+    const plain = runCli(['check', '--strict', join(dir, 'plain.md')])
+    expect(plain.stderr).toMatch(/error: Chain `c`: Stage a drives stage b through riso .* \[chain-riso-divider\]/)
+    expect(plain.status).toBe(2)
+    const ok = runCli(['check', '--strict', join(dir, 'ok.md')])
+    expect(ok.stderr).toContain(`info: Chain \`c\`: accepted by the author (${REASON}): Stage a drives stage b`)
+    expect(ok.status).toBe(0)
+    const json = JSON.parse(runCli(['check', '--json', join(dir, 'ok.md'), join(dir, 'plain.md')]).stdout) as {files: {chains: {notes: {rule: string; accepted: string | null}[]}[]}[]}
+    expect(json.files[0]!.chains[0]!.notes.find((n) => n.rule === 'chain-riso-divider')!.accepted).toBe(REASON)
+    expect(json.files[1]!.chains[0]!.notes.find((n) => n.rule === 'chain-riso-divider')!.accepted).toBeNull()
+  })
+
+  it('an id that is not a chain rule is an error at its key with the nearest chain rule id; a stage rule id is not one', () => {
+    const dir = tempNotes({'typo.md': chainNote('accept:\n  chain-riso-divder: "typo"\n'), 'stage.md': chainNote('accept:\n  bandwidth-margin: "a stage rule"\n')})
+    const typo = runCli(['check', join(dir, 'typo.md')])
+    expect(typo.status).toBe(2)
+    expect(typo.stderr).toMatch(/typo\.md:\d+:3: error: Unexpected rule `chain-riso-divder` in `accept`, expected a chain rule id; did you mean `chain-riso-divider`\?/)
+    const stageRule = runCli(['check', join(dir, 'stage.md')])
+    expect(stageRule.status).toBe(2)
+    expect(stageRule.stderr).toContain('error: Unexpected rule `bandwidth-margin` in `accept`, expected a chain rule id')
+  })
+
+  it('an accepted chain rule that raised nothing is an info message at its key', () => {
+    const dir = tempNotes({'n.md': chainNote('accept:\n  chain-aliasing: "no converter here"\n')})
+    const r = runCli(['check', join(dir, 'n.md')])
+    expect(r.stderr).toMatch(/n\.md:\d+:3: info: Rule `chain-aliasing` is accepted in chain `c` but raised no note there/)
+  })
+})
