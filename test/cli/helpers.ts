@@ -77,3 +77,19 @@ export function tempNotes(files: Record<string, string | Uint8Array>): string {
   for (const [name, content] of Object.entries(files)) writeFileSync(join(dir, name), content)
   return dir
 }
+
+/** A noninverting gain-11 note with 0.1 % resistors and an output-error requirement; `extra` lines go before `require`. */
+export const ampNote = (extra = ''): string => `# Amp
+
+\`\`\`stage amp
+topology: noninverting
+opamp: precision-bipolar
+rf: 10k 0.1% 25ppm/K
+rg: 1k 0.1% 25ppm/K
+input: -0.1 .. 0.1 V
+supply: ±15 V
+temperature: 0 .. 50 °C
+${extra}require:
+  output-error: 2 mV
+\`\`\`
+`

@@ -9,7 +9,7 @@ import {createHash} from 'node:crypto'
 import {join} from 'node:path'
 import {afterAll, describe, expect, it} from 'vitest'
 import type {TrialJob} from '../../src/engine/index.js'
-import {runCli, tempNotes} from './helpers.js'
+import {ampNote, runCli, tempNotes} from './helpers.js'
 import {res, stageFrom} from '../support/stage-input.js'
 
 type Threads = {
@@ -93,21 +93,7 @@ describe('trial threads', () => {
 
 describe('through the command', () => {
   it('a note with a 1.2 M-trial Monte Carlo gives the same JSON with --jobs 1 and --jobs 2', () => {
-    const dir = tempNotes({'big.md': `# Big run
-
-\`\`\`stage amp
-topology: noninverting
-opamp: precision-bipolar
-rf: 10k 0.1% 25ppm/K
-rg: 1k 0.1% 25ppm/K
-input: -0.1 .. 0.1 V
-supply: ±15 V
-temperature: 0 .. 50 °C
-yield: { trials: 1.2M, seed: 4 }
-require:
-  output-error: 2 mV
-\`\`\`
-`})
+    const dir = tempNotes({'big.md': ampNote('yield: { trials: 1.2M, seed: 4 }\n')})
     const one = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '1'])
     const two = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '2'])
     expect(one.status).toBe(two.status)

@@ -4,22 +4,9 @@
  */
 import {describe, expect, it} from 'vitest'
 import {join} from 'node:path'
-import {runCli, tempNotes} from './helpers.js'
+import {ampNote, runCli, tempNotes} from './helpers.js'
 
-const NOTE = `# Amp
-
-\`\`\`stage amp
-topology: noninverting
-opamp: precision-bipolar
-rf: 10k 0.1% 25ppm/K
-rg: 1k 0.1% 25ppm/K
-input: -0.1 .. 0.1 V
-supply: ±15 V
-temperature: 0 .. 50 °C
-require:
-  output-error: 2 mV
-\`\`\`
-`
+const NOTE = ampNote()
 
 describe('--yield', () => {
   it('switches the Monte Carlo on for every stage (100k trials, seed 1); without it the JSON yield is null', () => {
