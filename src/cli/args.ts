@@ -58,7 +58,7 @@ Options:
   --format LIST  build outputs, comma-separated: pdf (default), json, md (Markdown + SVG charts)
   --force        rebuild notes even when their outputs are up to date
   --watch        keep running and rebuild a note each time it is saved
-  --jobs N       worker threads for a batch (default: one per free core)
+  --jobs N       worker threads for a batch, and for a large Monte Carlo (default: one per free core)
   --shard I/N    only the notes of shard I of N (split by a hash of each note's path)
   --alternatives evaluate every stage again with each archetype and amplifier block of its kind
   --json         check: print one JSON object on stdout; diagnostics also go to stderr
@@ -68,7 +68,7 @@ Options:
   --quiet        print only diagnostics
   --strict       treat warnings as errors
   --yield        build, check: Monte Carlo yield on every stage (100k trials unless a stage says)
-  --debug        print stack traces of internal errors
+  --debug        print stack traces of internal errors, and where a large Monte Carlo's trials ran
 
 Exit codes: 0 all requirements met; 1 a requirement not met (compare: a verdict went from
 met to not met); 2 a note could not be evaluated or the command was wrong.`

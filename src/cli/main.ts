@@ -48,6 +48,11 @@ async function run(args: CliArgs, abort: AbortController, io: CliIO): Promise<nu
   try {
     return await runCommand(args, abort, io, res)
   } finally {
+    const p = threads.parts()
+    if (args.debug && p.threads + p.here > 0) {
+      const why = threads.stopped()
+      err(`ampreview: Monte Carlo trial parts: ${p.threads} on trial threads, ${p.here} in the main thread${why === null ? '' : `; later runs stayed in the main thread: ${why}`}\n`)
+    }
     await threads.close()
   }
 }

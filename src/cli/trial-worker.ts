@@ -5,13 +5,16 @@
  */
 import {parentPort} from 'node:worker_threads'
 import {runTrialJob} from '../engine/index.js'
-import {PART_DONE, PART_FAILED, type TrialRequest} from './trials.js'
+import {PART_DONE, PART_FAILED, PART_TAKEN, type TrialRequest} from './trials.js'
 
 const port = parentPort
 if (port === null) throw new Error('trial-worker.ts runs only as a worker thread')
 
 port.on('message', (req: TrialRequest) => {
   const status = new Int32Array(req.status)
+  // Taken: the waiting thread now knows this one is alive (and waits for it up to the deadline).
+  Atomics.store(status, 1 + req.part, PART_TAKEN)
+  Atomics.notify(status, 0)
   const n = req.to - req.from
   let state = PART_DONE
   try {

@@ -55,7 +55,7 @@ export {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, INA_ARCHETYPE_DISCLAIMER, inaAsOpam
 export {evaluateInstrumentation, inaGain, INA_DC_KEYS, INA_NOISE_KEYS} from './instrumentation.js'
 export * from './chain/index.js'
 export {
-  runYield, yieldOptionsOf, trialBlock, yieldModel, closedFormOf, wilsonInterval, inverseNormal, truncatedNormal, uniformAt,
+  runYield, yieldOptionsOf, withoutMonteCarlo, trialBlock, yieldModel, closedFormOf, wilsonInterval, inverseNormal, truncatedNormal, uniformAt,
   runChainYield, chainYieldModel, chainTrialBlock, chainTrialErrors, drawChainTrial, STAGE_STRIDE, CONVERTER_KEYS,
   runTrialJob, type TrialJob, type TrialSpread,
   type YieldModel, type ClosedForm, type ChainYieldModel, type ChainYieldStage

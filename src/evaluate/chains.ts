@@ -9,7 +9,7 @@
  * netlist) and runs the chain rules. Pure apart from messages on the file.
  */
 import type {VFile} from 'vfile'
-import {checkChainRequirements, DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, type ChainInput, type TrialSpread, type ChainResult, type ChainStage} from '../engine/index.js'
+import {checkChainRequirements, DEFAULT_YIELD_TRIALS, dcAnalysis, evaluateChain, evaluateInstrumentation, inaGain, operatingPoints, runChainYield, stageSpectrum, withoutMonteCarlo, type ChainInput, type TrialSpread, type ChainResult, type ChainStage} from '../engine/index.js'
 import type {YieldOptions} from '../engine/types.js'
 import type {StageInput, StageResult} from '../engine/types.js'
 import type {ChainBlockNode} from '../note/chain-types.js'
@@ -94,7 +94,7 @@ export interface EvaluatedStage {
  * DC budget of its own netlist, or the block model for an instrumentation stage (no netlist).
  */
 function calibratedAs(input: StageInput, calibration: ChainInput['calibration']): readonly {key: string; output: number}[] | null {
-  const recal = {...input, calibration}
+  const recal = withoutMonteCarlo({...input, calibration})
   const dc = input.topology === 'instrumentation' ? evaluateInstrumentation(recal).dc : dcAnalysis(recal).budget
   return dc.calibrated?.contributors ?? null
 }

@@ -19,7 +19,7 @@
  * but only with a film capacitor of at most 10 µF: a larger bypass is not suggested, and the
  * note advises removing the resistor or rethinking the impedances instead.
  */
-import {evaluateStage} from '../engine/index.js'
+import {evaluateStage, withoutMonteCarlo} from '../engine/index.js'
 import type {Resistor, StageInput, StageResult} from '../engine/types.js'
 import {roundUpToSeries} from './e-series.js'
 import {formatFixed, formatQuantity} from '../units/format.js'
@@ -70,8 +70,9 @@ function check({input, result}: RuleContext): RuleFinding[] {
   const {name, resistor} = found
   const fL = input.band[0]
   const c = bypassCapacitor(resistor.value, fL)
-  const without = evaluateStage(withoutElement(input, name))
-  const bypass = evaluateStage(bypassed(input, name, c))
+  // Only the DC and noise figures of the variants are read: no Monte Carlo for them.
+  const without = evaluateStage(withoutMonteCarlo(withoutElement(input, name)))
+  const bypass = evaluateStage(withoutMonteCarlo(bypassed(input, name, c)))
 
   const dcSaving = without.dc.worstCaseOutput - result.dc.worstCaseOutput
   const noiseCost = result.noise.outputPeakToPeak - without.noise.outputPeakToPeak

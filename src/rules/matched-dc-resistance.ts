@@ -16,7 +16,7 @@
  *
  * What it recommends: the matching resistor, with the saving and the noise it costs.
  */
-import {evaluateStage} from '../engine/index.js'
+import {evaluateStage, withoutMonteCarlo} from '../engine/index.js'
 import type {Resistor, StageInput, StageResult} from '../engine/types.js'
 import {formatPercent, formatQuantity} from '../units/format.js'
 import type {Rule, RuleContext, RuleFinding} from './rule.js'
@@ -76,7 +76,8 @@ function check({input, result}: RuleContext): RuleFinding[] {
   if (Math.abs(rn - rp) <= MISMATCH * Math.max(rn, rp)) return []
   const variant = matchedVariant(input, rn, rp)
   if (variant === null) return []
-  const matched = evaluateStage(variant.input)
+  // Only the DC and noise figures of the variant are read: no Monte Carlo for it.
+  const matched = evaluateStage(withoutMonteCarlo(variant.input))
   const ibBefore = largest.output
   const ibAfter = dcTerm(matched, 'ib')
   const saving = result.dc.worstCaseOutput - matched.dc.worstCaseOutput

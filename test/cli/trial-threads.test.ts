@@ -6,6 +6,9 @@
  * on `--jobs`.
  */
 import {createHash} from 'node:crypto'
+import {mkdtempSync, writeFileSync} from 'node:fs'
+import {tmpdir} from 'node:os'
+import {pathToFileURL} from 'node:url'
 import {join} from 'node:path'
 import {afterAll, describe, expect, it} from 'vitest'
 import type {TrialJob} from '../../src/engine/index.js'
@@ -14,10 +17,12 @@ import {res, stageFrom} from '../support/stage-input.js'
 
 type Threads = {
   spread: (job: TrialJob, err: Float64Array, errCal: Float64Array) => boolean; close: () => Promise<void>; started: () => number
-  parts: () => {threads: number; here: number}
+  parts: () => {threads: number; here: number}; stopped: () => string | null
 }
 const dist = new URL('../../dist/', import.meta.url)
-const {trialThreads} = (await import(new URL('cli/trials.js', dist).href)) as {trialThreads: (threads: number, minTrials?: number) => Threads}
+const {trialThreads} = (await import(new URL('cli/trials.js', dist).href)) as {
+  trialThreads: (threads: number, minTrials?: number, options?: {workerUrl?: URL; pickupGraceMs?: number}) => Threads
+}
 const {runTrialJob} = (await import(new URL('engine/index.js', dist).href)) as {runTrialJob: (job: TrialJob, from: number, to: number, err: Float64Array, errCal: Float64Array) => void}
 
 const digest = (a: Float64Array): string => createHash('sha256').update(new Uint8Array(a.buffer, a.byteOffset, a.byteLength)).digest('hex')
@@ -38,8 +43,8 @@ const chainJob: TrialJob = {
 }
 
 const opened: Threads[] = []
-const threadsOf = (n: number, min?: number): Threads => {
-  const t = trialThreads(n, min)
+const threadsOf = (n: number, min?: number, options?: {workerUrl?: URL; pickupGraceMs?: number}): Threads => {
+  const t = trialThreads(n, min, options)
   opened.push(t)
   return t
 }
@@ -88,15 +93,37 @@ describe('trial threads', () => {
     const errCal = new Float64Array(stageJob.trials)
     expect(t.spread(stageJob, err, errCal)).toBe(true)
     expect([digest(err), digest(errCal)]).toEqual(oneThread(stageJob))
+    // The bad job's thread part failed and ran here (and threw); the good one's ran on the thread.
+    expect(t.parts().threads).toBe(1)
+    expect(t.stopped()).toBeNull()
+  })
+  it('a thread that never takes its part (a worker script that loads and does nothing): run here after the grace, later runs stay here', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'ampreview-idle-worker-'))
+    const idle = join(dir, 'idle.mjs')
+    writeFileSync(idle, '// takes no part\n')
+    const t = threadsOf(3, 10, {workerUrl: pathToFileURL(idle), pickupGraceMs: 300})
+    const err = new Float64Array(stageJob.trials)
+    const errCal = new Float64Array(stageJob.trials)
+    const t0 = performance.now()
+    expect(t.spread(stageJob, err, errCal)).toBe(true)
+    // The grace (0.3 s), not the deadline (10 s and more), bounds the wait.
+    expect(performance.now() - t0).toBeLessThan(5000)
+    expect([digest(err), digest(errCal)]).toEqual(oneThread(stageJob))
+    expect(t.parts()).toEqual({threads: 0, here: 3})
+    expect(t.stopped()).toBe('a trial thread did not take its part in time')
+    expect(t.spread(stageJob, err, errCal)).toBe(false)
   })
 })
 
 describe('through the command', () => {
-  it('a note with a 1.2 M-trial Monte Carlo gives the same JSON with --jobs 1 and --jobs 2', () => {
+  it('a note with a 1.2 M-trial Monte Carlo gives the same JSON with --jobs 1 and --jobs 2 (and --debug says a part ran on the thread)', () => {
     const dir = tempNotes({'big.md': ampNote('yield: { trials: 1.2M, seed: 4 }\n')})
-    const one = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '1'])
-    const two = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '2'])
+    const one = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '1', '--debug'])
+    const two = runCli(['check', join(dir, 'big.md'), '--json', '--jobs', '2', '--debug'])
     expect(one.status).toBe(two.status)
+    // One run stays here with one job; with two, one part ran on the trial thread.
+    expect(one.stderr).not.toContain('Monte Carlo trial parts')
+    expect(two.stderr).toContain('Monte Carlo trial parts: 1 on trial threads, 1 in the main thread')
     expect(JSON.parse(one.stdout).files[0].stages[0].yield.trials).toBe(1_200_000)
     expect(two.stdout).toBe(one.stdout)
   })

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {ARCHETYPES} from '../../src/engine/archetypes.js'
-import {evaluateStage} from '../../src/engine/index.js'
+import {evaluateStage, withoutMonteCarlo} from '../../src/engine/index.js'
 import type {StageInput} from '../../src/engine/types.js'
 import rule from '../../src/rules/matched-dc-resistance.js'
 import {formatQuantity} from '../../src/units/format.js'
@@ -39,5 +39,23 @@ describe('rules/matched-dc-resistance', () => {
     ['a stage whose ib term is not the largest (10 kΩ / 1 kΩ, precision bipolar)', stageInput()]
   ])('stays silent with %s', (_name, input) => {
     expect(checkWithEngine(input)).toEqual([])
+  })
+})
+
+describe('rules that evaluate variants of the stage, with a Monte Carlo on it', () => {
+  it('give the same notes with a Monte Carlo on the stage as without (the variants, now run without it, are read for DC and noise only)', () => {
+    const plain = inverting({require: {'output-error': 0.12}})
+    const withRun = {...plain, yield: {trials: 3000, seed: 2, distribution: 'uniform' as const}, require: {...plain.require, yield: 0.9}}
+    expect(evaluateStage(withRun).yield?.trials).toBe(3000)
+    expect(checkWithEngine(withRun)).toEqual(checkWithEngine(plain))
+  })
+  it('withoutMonteCarlo drops the yield map and the yield requirement, nothing else', () => {
+    const withRun = inverting({yield: {trials: 3000, seed: 2, distribution: 'uniform'}, require: {'output-error': 0.12, yield: 0.9}})
+    const off = withoutMonteCarlo(withRun)
+    expect(off.yield).toBeNull()
+    expect(off.require).toEqual({'output-error': 0.12})
+    expect(evaluateStage(off).yield).toBeNull()
+    expect({...off, yield: withRun.yield, require: withRun.require}).toEqual(withRun)
+    expect(evaluateStage(off).dc).toEqual(evaluateStage(withRun).dc)
   })
 })

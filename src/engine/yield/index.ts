@@ -2,7 +2,7 @@
  * Monte Carlo yield over the DC budget (DESIGN §8.7): `runYield` for a stage; the pieces
  * (generator, truncated normal, closed forms, model, statistics) for tests and the bench.
  */
-export {runYield, yieldOptionsOf, trialBlock, trialErrors, drawTrial, VARIANCE_ROWS, HISTOGRAM_BINS} from './run.js'
+export {runYield, yieldOptionsOf, withoutMonteCarlo, trialBlock, trialErrors, drawTrial, VARIANCE_ROWS, HISTOGRAM_BINS} from './run.js'
 export {yieldModel, SLOT, SLOT_COUNT, DrawKind, type YieldModel, type YieldVariable, type YieldPoint} from './model.js'
 export {closedFormOf, R_INDEX, type ClosedForm} from './closed-form.js'
 export {mix32, seedKey, trialKey, uniformOf, uniformAt} from './counter-rng.js'

@@ -65,10 +65,11 @@ const TABLE = ((): Float64Array => {
   return t
 })()
 
-/** z(u) of the module header, 0 < u < 1, by cubic Hermite interpolation in the table. */
+/** z(u) of the module header, 0 < u < 1 (u = 1 gives the last knot), by cubic Hermite interpolation in the table. */
 export function truncatedStandard(u: number): number {
   const x = u * TABLE_STEPS
-  const i = x | 0
+  // The generator's u stays below 1 − 2^-33 (i ≤ TABLE_STEPS − 1); the guard keeps u = 1 inside the table.
+  const i = Math.min(x | 0, TABLE_STEPS - 1)
   const t = x - i
   const k = 2 * i
   const z0 = TABLE[k]!
@@ -83,6 +84,7 @@ export function truncatedStandard(u: number): number {
 
 /** The draw of standard value z scaled to σ = limit/3 and clamped to ±limit. */
 export function truncatedFromStandard(z: number, limit: number): number {
-  // Math.min/max rather than comparisons: no branch for the hardware to mispredict.
+  // Math.min/max rather than comparisons: no branch for the hardware to mispredict (the same
+  // result for every number; a NaN z, which the table cannot give, would pass through).
   return Math.min(limit, Math.max(-limit, (limit / 3) * z))
 }

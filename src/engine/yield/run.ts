@@ -28,6 +28,17 @@ export function yieldOptionsOf(input: StageInput): YieldOptions | null {
   return input.require.yield !== undefined ? {trials: DEFAULT_YIELD_TRIALS, seed: 1, distribution: 'uniform'} : null
 }
 
+/**
+ * The stage with its Monte Carlo off (no `yield` map, no `yield` requirement): for the variants
+ * the rules and the chain evaluate only for their DC and noise figures, which the Monte Carlo
+ * does not change.
+ */
+export function withoutMonteCarlo(input: StageInput): StageInput {
+  if (!input.yield && input.require.yield === undefined) return input
+  const {yield: _dropped, ...require} = input.require
+  return {...input, yield: null, require}
+}
+
 /** Base rows of the variance-share estimate (each costs one evaluation per variable). */
 export const VARIANCE_ROWS = 8192
 /** Bins of the report's histogram. */
@@ -167,6 +178,8 @@ function blockMax(
         const b = calibrated ? cal + tc + (gainCalibrated ? 0 : gainTerms) : a
         out[row + p] = a
         outCal[row + p] = b
+        // Math.max, not a comparison: no data-dependent branch (equal results for every number;
+        // a NaN, which no term produces, would pass through where `if (aa > e)` skipped it).
         e = Math.max(e, Math.abs(a))
         ec = Math.max(ec, Math.abs(b))
       }

@@ -44,13 +44,16 @@ export function inputResistanceOf(input: StageInput): {ohms: number; what: strin
   }
 }
 
+/** A driving stage's rload that its own figures divide by (finite, positive). */
+const hasLoad = (rload: number | null): rload is number => rload !== null && rload > 0 && Number.isFinite(rload)
+
 /**
  * The fraction of the signal lost to the next stage's Rin that the driving stage's figures do
  * not hold: riso/(riso + Rin) without an rload; with one, what Rin in parallel adds to the
  * division by riso into rload the stage already counts (module header).
  */
 export function missingDivision(riso: number, rin: number, rload: number | null): number {
-  if (rload === null || !(rload > 0) || !Number.isFinite(rload)) return riso / (riso + rin)
+  if (!hasLoad(rload)) return riso / (riso + rin)
   const parallel = (rload * rin) / (rload + rin)
   return 1 - (parallel / (riso + parallel)) / (rload / (riso + rload))
 }
@@ -70,7 +73,7 @@ function check({result, stages}: ChainRuleContext): RuleFinding[] {
     const atOutput = divider * fullScale
     const lead =
       `Stage ${stages[k]!.input.id} drives stage ${next.id} through riso = ${formatQuantity(riso, 'Ω')} into its ${rin.what} = ${formatQuantity(rin.ohms, 'Ω')}: ` +
-      (rload === null || !(rload > 0)
+      (!hasLoad(rload)
         ? `the chain takes each stage as an ideal source, so the divider riso/(riso + Rin) = ${(divider * 100).toPrecision(3)} % is not in the chain's figures. `
         : `stage ${stages[k]!.input.id}'s figures hold riso into its rload = ${formatQuantity(rload, 'Ω')}, not into rload in parallel with Rin, so a further ` +
           `${(divider * 100).toPrecision(3)} % of the signal is lost that the chain's figures do not show. `)

@@ -63,6 +63,8 @@ describe('inverse normal (Acklam) and the truncated normal', () => {
     expect(truncatedNormal(0.5 / 2 ** 32, 1)).toBeGreaterThanOrEqual(-1)
     expect(truncatedNormal(1 - 0.5 / 2 ** 32, 1)).toBeLessThanOrEqual(1)
     expect(truncatedNormal(1 - 0.5 / 2 ** 32, 1)).toBeGreaterThan(0.999)
+    // u = 1 (never drawn) reads the last knot, not past the table.
+    expect(truncatedNormal(1, 1)).toBeCloseTo(1, 6)
   })
 })
 
@@ -142,14 +144,18 @@ describe('determinism', () => {
     // 1, 2 and 4 equal parts, as 1, 2 and 4 workers would take them.
     for (const parts of [1, 2, 4]) {
       const joined = new Float64Array(1000)
+      const joinedCal = new Float64Array(1000)
       for (let k = 0; k < parts; k++) {
         const from = (k * 1000) / parts
         const to = ((k + 1) * 1000) / parts
         const part = new Float64Array(to - from)
-        trialBlock(m, 3, from, to, part, new Float64Array(to - from))
+        const partCal = new Float64Array(to - from)
+        trialBlock(m, 3, from, to, part, partCal)
         joined.set(part, from)
+        joinedCal.set(partCal, from)
       }
       expect(Buffer.from(joined.buffer).equals(Buffer.from(whole.buffer))).toBe(true)
+      expect(Buffer.from(joinedCal.buffer).equals(Buffer.from(wholeCal.buffer))).toBe(true)
     }
     for (const cut of [1, 333, 512, 999]) {
       const a = new Float64Array(cut)
@@ -163,28 +169,43 @@ describe('determinism', () => {
   // the columns; a chain draws and evaluates one trial at a time. Both must give equal bytes.
   for (const [name, make] of Object.entries(CLOSED_FORM_STAGES)) {
     for (const distribution of ['uniform', 'normal'] as const) {
-      it(`${name} (${distribution}): the block draw and evaluation equal the one-trial draw and trialErrors, byte for byte`, () => {
+      it(`${name} (${distribution}): the block draw and evaluation equal the one-trial draw and trialErrors, byte for byte, across block boundaries`, () => {
         const stage = {...make(), calibration: 'offset' as Calibration}
         const m = yieldModel(stage, distribution)!
-        const count = DRAW_BLOCK - 3
+        // A partial block's draws against the one-trial draw.
         const cols = new Float64Array(SLOT_COUNT * DRAW_BLOCK)
-        drawBlock(m, seedKey(11), 40, count, cols, new Int32Array(DRAW_BLOCK), DRAW_BLOCK)
-        const err = new Float64Array(count)
-        const errCal = new Float64Array(count)
-        trialBlock(m, 11, 40, 40 + count, err, errCal)
+        drawBlock(m, seedKey(11), 40, DRAW_BLOCK - 3, cols, new Int32Array(DRAW_BLOCK), DRAW_BLOCK)
         const vals = new Float64Array(SLOT_COUNT)
-        const s = scratchOf(m)
-        const P = m.points.length * m.temperatures.length
-        const out = new Float64Array(P)
-        const outCal = new Float64Array(P)
-        for (let j = 0; j < count; j++) {
+        for (let j = 0; j < DRAW_BLOCK - 3; j++) {
           vals.fill(0)
           drawTrial(m, trialKey(seedKey(11), 40 + j), vals)
           for (let slot = 0; slot < SLOT_COUNT; slot++) expect(Object.is(cols[j + slot * DRAW_BLOCK], vals[slot])).toBe(true)
+        }
+        // Three blocks and a bit, from trial 40 (so no block starts at 0), with the point sums
+        // over the first 300 of them, against one trial after another.
+        const count = 3 * DRAW_BLOCK + 5
+        const P = m.points.length * m.temperatures.length
+        const rows = 300
+        const sums = {rows: 40 + rows, calibrated: true, sum: new Float64Array(P), sum2: new Float64Array(P)}
+        const err = new Float64Array(count)
+        const errCal = new Float64Array(count)
+        trialBlock(m, 11, 40, 40 + count, err, errCal, sums)
+        const s = scratchOf(m)
+        const out = new Float64Array(P)
+        const outCal = new Float64Array(P)
+        const sum = new Float64Array(P)
+        const sum2 = new Float64Array(P)
+        for (let j = 0; j < count; j++) {
+          vals.fill(0)
+          drawTrial(m, trialKey(seedKey(11), 40 + j), vals)
           trialErrors(m, vals, s, out, outCal)
           expect(Object.is(err[j], Math.max(...out.map(Math.abs)))).toBe(true)
           expect(Object.is(errCal[j], Math.max(...outCal.map(Math.abs)))).toBe(true)
+          if (j < rows) for (let k = 0; k < P; k++) { sum[k] += outCal[k]; sum2[k] += outCal[k] * outCal[k] }
         }
+        expect(Buffer.from(sums.sum.buffer).equals(Buffer.from(sum.buffer))).toBe(true)
+        expect(Buffer.from(sums.sum2.buffer).equals(Buffer.from(sum2.buffer))).toBe(true)
+        expect(sum.some((v) => v !== 0)).toBe(true)
       })
     }
   }
