@@ -25,7 +25,7 @@
  */
 import type {VFile} from 'vfile'
 import {ARCHETYPES, ARCHETYPE_NAMES} from '../engine/archetypes.js'
-import {evaluateStage} from '../engine/index.js'
+import {evaluateStage, type EvaluateContext} from '../engine/index.js'
 import {INA_ARCHETYPES, INA_ARCHETYPE_NAMES, inaAsOpamp} from '../engine/ina-archetypes.js'
 import type {DcKey, InaParams, InputType, OpampParams, RequirementKey, StageInput, StageResult} from '../engine/types.js'
 import type {OpampBlockNode} from '../note/types.js'
@@ -148,17 +148,18 @@ export function compareScores(a: AlternativeScore, b: AlternativeScore): number 
 
 /**
  * Evaluate the stage with every candidate (module header). `own` is the stage's own result,
- * reused for the candidate in use. A candidate the engine refuses is left out with a
+ * reused for the candidate in use; `context` is passed on to each candidate's evaluation (a
+ * required yield's Monte Carlo may use the trial threads). A candidate the engine refuses is left out with a
  * warning on `file`.
  */
-export function evaluateAlternatives(input: StageInput, own: StageResult, opamps: readonly OpampBlockNode[], file: VFile, place?: {line: number; column: number}): StageAlternatives {
+export function evaluateAlternatives(input: StageInput, own: StageResult, opamps: readonly OpampBlockNode[], file: VFile, place?: {line: number; column: number}, context: EvaluateContext = {}): StageAlternatives {
   const candidates: AlternativeEvaluation[] = []
   for (const c of candidatesOf(input, opamps)) {
     const current = c.name === inUse(input)
     const candidateInput = current ? input : withoutUnjudgedYield(withCandidate(input, c))
     let result: StageResult
     try {
-      result = current ? own : evaluateStage(candidateInput)
+      result = current ? own : evaluateStage(candidateInput, context)
     } catch (error) {
       file.message(`Alternative \`${c.name}\` of stage \`${input.id}\` could not be evaluated: ${error instanceof Error ? error.message : String(error)}`,
         {place, ruleId: 'alternative-failed', source: 'ampreview'})

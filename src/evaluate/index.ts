@@ -88,7 +88,7 @@ function evaluateOne(block: StageBlockNode, input: StageInput, parsed: ParsedNot
     const result = evaluateStage(input, options.spread ? {spread: options.spread} : {})
     const notes = applyWaivers(block, runRules({input, result, context: parsed.meta.context}), waivers, file)
     const alternatives = block.alternatives === true || options.alternatives === true
-      ? evaluateAlternatives(input, result, [...parsed.opamps, ...(parsed.inas ?? [])], file, block.position?.start) : null
+      ? evaluateAlternatives(input, result, [...parsed.opamps, ...(parsed.inas ?? [])], file, block.position?.start, options.spread ? {spread: options.spread} : {}) : null
     return {block, input, result, notes, role: roleOf(block), alternatives}
   } catch (error) {
     const m = file.message(
