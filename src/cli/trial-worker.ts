@@ -14,6 +14,7 @@ port.on('message', (req: TrialRequest) => {
   const status = new Int32Array(req.status)
   // Taken: the waiting thread now knows this one is alive (and waits for it up to the deadline).
   Atomics.store(status, 1 + req.part, PART_TAKEN)
+  Atomics.add(status, 0, 1)
   Atomics.notify(status, 0)
   const n = req.to - req.from
   let state = PART_DONE

@@ -34,7 +34,7 @@ export interface TrialRequest {
   /** Float64 arrays of job.trials values each (this part writes its range). */
   err: SharedArrayBuffer
   errCal: SharedArrayBuffer
-  /** Int32 words: [0] parts finished, [1 + part] 0 posted, 3 taken, 1 done, 2 failed. */
+  /** Int32 words: [0] events (a part taken or finished), [1 + part] 0 posted, 3 taken, 1 done, 2 failed. */
   status: SharedArrayBuffer
   part: number
 }
@@ -112,6 +112,9 @@ export function trialThreads(threads: number, minTrials = SPREAD_MIN_TRIALS, opt
     const pickupBy = now0 + grace
     // Wait until every posted part is finished, or is still untaken after the grace, or the deadline.
     for (;;) {
+      // Read before the parts' words: a part taken or finished after this read changes it, so
+      // the wait below returns at once instead of sleeping through that event.
+      const seen = Atomics.load(status, 0)
       const now = performance.now()
       let waiting = false
       let untaken = false
@@ -123,7 +126,7 @@ export function trialThreads(threads: number, minTrials = SPREAD_MIN_TRIALS, opt
       }
       if (!waiting || now >= deadline) break
       // Woken by a thread taking or finishing a part; else at the grace's end or the deadline.
-      Atomics.wait(status, 0, Atomics.load(status, 0), (untaken && now < pickupBy ? pickupBy : deadline) - now)
+      Atomics.wait(status, 0, seen, (untaken && now < pickupBy ? pickupBy : deadline) - now)
     }
     const doneErr = new Float64Array(shared.err)
     const doneCal = new Float64Array(shared.errCal)
