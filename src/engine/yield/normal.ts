@@ -81,7 +81,6 @@ export function truncatedStandard(u: number): number {
   return (2 * t3 - 3 * t2 + 1) * z0 + (t3 - 2 * t2 + t) * m0 + (3 * t2 - 2 * t3) * z1 + (t3 - t2) * m1
 }
 
-
 /** The draw of standard value z scaled to σ = limit/3 and clamped to ±limit. */
 export function truncatedFromStandard(z: number, limit: number): number {
   // Math.min/max rather than comparisons: no branch for the hardware to mispredict (the same
